@@ -1,0 +1,9 @@
+import type { NextConfig } from "next";
+
+const nextConfig: NextConfig = {
+  // The ORM loads dialect drivers dynamically; bundling it breaks resolution of drivers we don't use.
+  serverExternalPackages: ["sequelize", "mariadb", "piscina", "smtp-server", "mailparser", "nodemailer"],
+  poweredByHeader: false,
+};
+
+export default nextConfig;

@@ -1,0 +1,43 @@
+// odex ships its TypeScript source, not declarations; a strict build would type-check that source.
+// This file describes the part of its API the engine uses.
+declare module "odex" {
+  export type Derivative = (x: number, y: number[]) => number[];
+  export type OutputFunction = (
+    nr: number,
+    xold: number,
+    x: number,
+    y: number[],
+    dense?: (c: number, x: number) => number,
+  ) => boolean | void;
+  export enum Outcome {
+    Converged = 0,
+    MaxStepsExceeded = 1,
+    EarlyReturn = 2,
+  }
+  export interface SolveResult {
+    y: number[];
+    outcome: Outcome;
+    nStep: number;
+    xEnd: number;
+    nAccept: number;
+    nReject: number;
+    nEval: number;
+  }
+  export class Solver {
+    constructor(n: number);
+    n: number;
+    maxSteps: number;
+    initialStepSize: number;
+    maxStepSize: number;
+    maxExtrapolationColumns: number;
+    stepSizeSequence: number;
+    denseOutput: boolean;
+    denseComponents: number[] | undefined;
+    interpolationFormulaDegree: number;
+    relativeTolerance: number | number[];
+    absoluteTolerance: number | number[];
+    debug: boolean;
+    grid(dt: number, out: (xOut: number, yOut: number[]) => unknown): OutputFunction;
+    solve(f: Derivative, x: number, y0: number[], xEnd: number, solOut?: OutputFunction): SolveResult;
+  }
+}
