@@ -1,0 +1,12 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+
+export default defineConfig({
+  resolve: { alias: { "@": path.resolve(__dirname) } },
+  test: {
+    include: ["tests/unit/**/*.test.ts", "tests/sim/**/*.test.ts", "tests/integration/**/*.test.ts"],
+    environment: "node",
+    testTimeout: 60_000,
+    hookTimeout: 120_000,
+  },
+});
