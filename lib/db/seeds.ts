@@ -1,0 +1,10 @@
+import type { Sequelize } from "sequelize";
+
+/** One idempotent seed step: running it twice leaves the same rows as running it once. */
+export interface SeedStep {
+  name: string;
+  run: (sequelize: Sequelize) => Promise<void>;
+}
+
+// Demo data, in dependency order. To add a step: import it and append it here.
+export const seedSteps: SeedStep[] = [];

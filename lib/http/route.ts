@@ -1,0 +1,18 @@
+import type { NextResponse } from "next/server";
+import { respondError } from "./errors";
+
+type Handler<C> = (req: Request, ctx: C) => Promise<Response | NextResponse>;
+
+/**
+ * Wraps a route handler so that any thrown HttpError (or unexpected error) becomes a JSON answer.
+ * Route handlers stay thin: validate, authorise, call lib/, answer.
+ */
+export function route<C = unknown>(handler: Handler<C>): Handler<C> {
+  return async (req, ctx) => {
+    try {
+      return await handler(req, ctx);
+    } catch (err) {
+      return respondError(err);
+    }
+  };
+}
