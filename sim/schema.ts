@@ -1,0 +1,336 @@
+/**
+ * The scenario format `tautline-scenario/1`: one zod schema shared by the engine, the API, the UI and the CLI.
+ * SI units throughout (m, kg, s, N, W); angles in degrees (the only non-SI field, converted at the edge).
+ * Every message names its field path, e.g. "lift.angle must be at most 80 (degrees)".
+ */
+import { z } from "zod";
+
+export const SCENARIO_FORMAT = "tautline-scenario/1";
+
+interface NumOpts {
+  min?: number; // inclusive lower bound
+  gt?: number; // exclusive lower bound
+  max?: number; // inclusive upper bound
+  int?: boolean;
+}
+
+/** A finite number with bounds whose messages name the field and its unit. */
+function num(path: string, unit: string, o: NumOpts) {
+  const u = unit ? ` (${unit})` : "";
+  let s = z.number({
+    error: (iss) =>
+      iss.input === undefined ? `${path} is required${u}` : `${path} must be a finite number${u}`,
+  });
+  if (o.int) s = s.int({ error: `${path} must be a whole number` });
+  if (o.gt !== undefined) s = s.gt(o.gt, { error: `${path} must be greater than ${o.gt}${u}` });
+  if (o.min !== undefined) s = s.min(o.min, { error: `${path} must be at least ${o.min}${u}` });
+  if (o.max !== undefined) s = s.max(o.max, { error: `${path} must be at most ${o.max}${u}` });
+  return s;
+}
+
+/** A missing or non-object section says which one. */
+function section(path: string) {
+  return { error: `${path} must be an object (section "${path}")` };
+}
+
+function bool(path: string) {
+  return z.boolean({ error: `${path} must be true or false` });
+}
+
+export const liftSchema = z.object({
+  approachLength: num("lift.approachLength", "m", { min: 0, max: 1000 }),
+  sagRadius: num("lift.sagRadius", "m", { min: 1, max: 1000 }),
+  angle: num("lift.angle", "degrees", { min: 2, max: 80 }),
+  inclineLength: num("lift.inclineLength", "m", { min: 1, max: 2000 }),
+  crestRadius: num("lift.crestRadius", "m", { min: 1, max: 1000 }),
+  exitLength: num("lift.exitLength", "m", { min: 1, max: 1000 }),
+  chainFrom: num("lift.chainFrom", "m", { min: 0, max: 5000 }),
+  chainTo: num("lift.chainTo", "m", { min: 0, max: 5000 }),
+  dogRelease: num("lift.dogRelease", "m", { min: 0, max: 5000 }),
+  /** Length of the bottom run linking drive sprocket, take-up sprocket and bottom idler. */
+  bottomRun: num("lift.bottomRun", "m", { min: 0.5, max: 200 }).default(4),
+}, section("lift"));
+
+export const chainSchema = z.object({
+  massPerLength: num("chain.massPerLength", "kg/m", { min: 0.5, max: 300 }),
+  /** E·A: force per unit strain. */
+  axialStiffness: num("chain.axialStiffness", "N per unit strain", { min: 1e5, max: 1e10 }),
+  breakingStrength: num("chain.breakingStrength", "N", { min: 1e3, max: 1e8 }),
+  pitch: num("chain.pitch", "m", { min: 0.005, max: 0.5 }),
+  catchSpacing: num("chain.catchSpacing", "m", { min: 0.1, max: 200 }),
+  /** Arc position of one catch point at t = 0; absent means `lift.chainFrom` (see catchOffsetOf). */
+  catchOffset: num("chain.catchOffset", "m", { min: 0, max: 5000 }).optional(),
+  guideFriction: num("chain.guideFriction", "", { min: 0, max: 0.5 }).default(0.02),
+  /**
+   * Internal (Kelvin–Voigt) damping: segment tension T = E·A·ε + damping·dε/dt, in N·s (N per unit
+   * strain rate). 0 means no internal damping. The default damps the shortest waves of a 60-segment
+   * mesh of the example chain at a few % of critical and leaves the slow modes practically undamped.
+   */
+  damping: num("chain.damping", "N·s", { min: 0, max: 1e9 }).default(2000),
+}, section("chain"));
+
+export const driveSchema = z.object({
+  speed: num("drive.speed", "m/s", { gt: 0, max: 10 }),
+  rampTime: num("drive.rampTime", "s", { min: 0, max: 120 }).default(2),
+  sprocketTeeth: num("drive.sprocketTeeth", "teeth", { min: 5, max: 120, int: true }),
+  efficiency: num("drive.efficiency", "", { min: 0.2, max: 1 }).default(0.9),
+}, section("drive"));
+
+export const takeUpSchema = z.object({
+  mass: num("takeUp.mass", "kg", { min: 10, max: 200000 }),
+  travel: num("takeUp.travel", "m", { min: 0.05, max: 50 }),
+  /** Initial distance below the top stop. */
+  position: num("takeUp.position", "m", { min: 0, max: 50 }),
+  friction: num("takeUp.friction", "N", { min: 0, max: 1e6 }).default(0),
+}, section("takeUp"));
+
+export const trainSchema = z.object({
+  cars: num("train.cars", "cars", { min: 1, max: 40, int: true }),
+  carMass: num("train.carMass", "kg", { min: 10, max: 50000 }),
+  carLength: num("train.carLength", "m", { min: 0.3, max: 30 }),
+  dogOffset: num("train.dogOffset", "m", { min: 0, max: 1200 }),
+  rollingResistance: num("train.rollingResistance", "", { min: 0, max: 0.2 }).default(0.015),
+  dragArea: num("train.dragArea", "m²", { min: 0, max: 100 }).default(1),
+  entrySpeed: num("train.entrySpeed", "m/s", { min: 0, max: 30 }).default(0),
+  startPosition: num("train.startPosition", "m", { min: 0, max: 5000 }),
+}, section("train"));
+
+export const antiRollbackSchema = z.object({
+  enabled: bool("antiRollback.enabled").default(true),
+  from: num("antiRollback.from", "m", { min: 0, max: 5000 }),
+  to: num("antiRollback.to", "m", { min: 0, max: 5000 }),
+  toothSpacing: num("antiRollback.toothSpacing", "m", { min: 0.02, max: 5 }),
+}, section("antiRollback"));
+
+export const INTEGRATORS = ["verlet", "odex"] as const;
+
+export const runSettingsSchema = z.object({
+  duration: num("run.duration", "s", { gt: 0, max: 600 }),
+  segments: num("run.segments", "segments", { min: 4, max: 2000, int: true }).default(60),
+  /** "verlet": fixed-step velocity Verlet (default, fast); "odex": adaptive extrapolation (reference). */
+  integrator: z
+    .enum(INTEGRATORS, { error: `run.integrator must be one of ${INTEGRATORS.join(", ")}` })
+    .default("verlet"),
+  /** Verlet step as a fraction of the computed stability limit. */
+  stepFraction: num("run.stepFraction", "", { min: 0.05, max: 0.95 }).default(0.5),
+  /** odex relative tolerance (absolute tolerances are scaled per state from it). */
+  tolerance: num("run.tolerance", "", { min: 1e-10, max: 1e-2 }).default(1e-6),
+  /** Dog and ARD contact stiffness; absent means E·A / 1 m (as stiff as one metre of chain). */
+  contactStiffness: num("run.contactStiffness", "N/m", { gt: 0, max: 1e11 }).optional(),
+  /** Take-up end-stop stiffness; absent means 20 × the take-up's own static stiffness (4·E·A/loop length). */
+  endStopStiffness: num("run.endStopStiffness", "N/m", { gt: 0, max: 1e11 }).optional(),
+  /** Damping ratio of the contacts (dog, ARD pawl, end stops). */
+  contactDamping: num("run.contactDamping", "", { min: 0, max: 2 }).default(0.1),
+  gravity: num("run.gravity", "m/s²", { min: 0.1, max: 30 }).default(9.80665),
+  airDensity: num("run.airDensity", "kg/m³", { min: 0, max: 5 }).default(1.2),
+}, section("run"));
+
+/** Check limits used by evaluateChecks; each default's source (or "assumption") is in LIMIT_SOURCES. */
+export const limitsSchema = z.object({
+  requiredSafetyFactor: num("limits.requiredSafetyFactor", "", { min: 1, max: 50 }).default(5),
+  maxSnatchFactor: num("limits.maxSnatchFactor", "", { min: 1, max: 20 }).default(2),
+  motorRating: num("limits.motorRating", "W", { gt: 0, max: 1e8 }).optional(),
+  maxRiderAccel: num("limits.maxRiderAccel", "g", { gt: 0, max: 10 }).default(0.5),
+  allowRollback: bool("limits.allowRollback").default(false),
+  maxPickupDelay: num("limits.maxPickupDelay", "s", { gt: 0, max: 60 }).default(1.5),
+  wearAllowance: num("limits.wearAllowance", "% elongation", { min: 0, max: 10 }).default(3),
+  thermalDeltaT: num("limits.thermalDeltaT", "K", { min: 0, max: 200 }).default(40),
+  thermalExpansion: num("limits.thermalExpansion", "1/K", { min: 0, max: 1e-4 }).default(11.7e-6),
+}, section("limits"));
+
+/** Where each default limit comes from. Results support, and never replace, review by a qualified engineer. */
+export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> = {
+  requiredSafetyFactor:
+    "5 on ultimate strength, by analogy to hoisting roller chain (MIL-H-904J factor of safety 5; German hoist rules breaking/working ≥ 5). Assumption for a lift chain; local codes govern.",
+  maxSnatchFactor:
+    "2: a suddenly applied load on a spring–mass peaks at twice its static value (e.g. Rao, Mechanical Vibrations). Assumption as a limit.",
+  motorRating: "The installed motor's rating: the user's input (no default).",
+  maxRiderAccel:
+    "0.5 g longitudinal at pick-up: assumption. Patron acceleration limits are set by ASTM F2291 (by axis and duration); its numeric envelope is not reproduced here.",
+  allowRollback:
+    "false: any train settling back onto the ARD fails the check. A rollback of more than one tooth spacing always fails (the model's definition of an ARD failure).",
+  maxPickupDelay: "1.5 s from first dog contact to full pick-up: assumption.",
+  wearAllowance:
+    "3 % elongation: replace roller chain at about 3 % (lower, ≈1.5 %, where fixed centres matter): common practice, no source.",
+  thermalDeltaT: "40 K between installation and the extreme service temperature: assumption.",
+  thermalExpansion: "11.7e-6 /K for carbon steel: from memory.",
+};
+
+const baseScenarioSchema = z.object({
+  format: z.literal(SCENARIO_FORMAT, { error: `format must be "${SCENARIO_FORMAT}"` }),
+  name: z
+    .string({ error: "name must be text" })
+    .trim()
+    .min(1, { error: "name must not be empty" })
+    .max(200, { error: "name must be at most 200 characters" }),
+  description: z.string({ error: "description must be text" }).max(5000).optional(),
+  lift: liftSchema,
+  chain: chainSchema,
+  drive: driveSchema,
+  takeUp: takeUpSchema,
+  train: trainSchema,
+  antiRollback: antiRollbackSchema,
+  run: runSettingsSchema,
+  limits: limitsSchema.default(() => limitsSchema.parse({})),
+}, { error: "the scenario must be a JSON object" });
+
+const SECTION_SHAPES = {
+  lift: liftSchema.shape,
+  chain: chainSchema.shape,
+  drive: driveSchema.shape,
+  takeUp: takeUpSchema.shape,
+  train: trainSchema.shape,
+  antiRollback: antiRollbackSchema.shape,
+  run: runSettingsSchema.shape,
+};
+
+export interface FieldIssue {
+  path: string;
+  message: string;
+}
+
+const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
+const rad = (deg: number) => (deg * Math.PI) / 180;
+
+/** Total track length: approach + sag arc + incline + crest arc + exit. */
+export function trackLength(l: {
+  approachLength: number;
+  sagRadius: number;
+  angle: number;
+  inclineLength: number;
+  crestRadius: number;
+  exitLength: number;
+}): number {
+  const a = rad(l.angle);
+  return l.approachLength + l.sagRadius * a + l.inclineLength + l.crestRadius * a + l.exitLength;
+}
+
+function get(obj: unknown, section: string, key: string): unknown {
+  if (!obj || typeof obj !== "object") return undefined;
+  const s = (obj as Record<string, unknown>)[section];
+  if (!s || typeof s !== "object") return undefined;
+  return (s as Record<string, unknown>)[key];
+}
+
+/**
+ * Checks between fields. Works on raw input too: a rule runs only when the fields it needs are numbers,
+ * so a scenario with both a bad field and an inconsistency reports both at once.
+ */
+export function crossFieldIssues(data: unknown): FieldIssue[] {
+  const out: FieldIssue[] = [];
+  // Only values that pass their own field rule take part, so one bad field does not produce misleading noise.
+  const n = (sec: keyof typeof SECTION_SHAPES, key: string) => {
+    const v = get(data, sec, key);
+    const field = (SECTION_SHAPES[sec] as Record<string, z.ZodType>)[key];
+    return isNum(v) && field && field.safeParse(v).success ? v : undefined;
+  };
+  const lift = ["approachLength", "sagRadius", "angle", "inclineLength", "crestRadius", "exitLength"].map(
+    (k) => n("lift", k),
+  );
+  const L = lift.every(isNum)
+    ? trackLength({
+        approachLength: lift[0]!,
+        sagRadius: lift[1]!,
+        angle: lift[2]!,
+        inclineLength: lift[3]!,
+        crestRadius: lift[4]!,
+        exitLength: lift[5]!,
+      })
+    : undefined;
+  const Ls = L !== undefined ? L.toFixed(2) : "";
+  const from = n("lift", "chainFrom");
+  const to = n("lift", "chainTo");
+  if (from !== undefined && to !== undefined && !(from < to))
+    out.push({ path: "lift.chainTo", message: "lift.chainTo must be greater than lift.chainFrom" });
+  if (to !== undefined && L !== undefined && to > L)
+    out.push({ path: "lift.chainTo", message: `lift.chainTo must not exceed the track length ${Ls} m` });
+  const rel = n("lift", "dogRelease");
+  if (rel !== undefined && from !== undefined && to !== undefined && (rel <= from || rel > to))
+    out.push({
+      path: "lift.dogRelease",
+      message: "lift.dogRelease must lie within the chain (greater than lift.chainFrom, at most lift.chainTo)",
+    });
+  const co = n("chain", "catchOffset");
+  if (co !== undefined && from !== undefined && to !== undefined && (co < from || co > to))
+    out.push({
+      path: "chain.catchOffset",
+      message: "chain.catchOffset must lie on the carrying strand (lift.chainFrom … lift.chainTo)",
+    });
+  const cs = n("chain", "catchSpacing");
+  if (cs !== undefined && from !== undefined && to !== undefined && cs > to - from)
+    out.push({ path: "chain.catchSpacing", message: "chain.catchSpacing must not exceed the chained length" });
+  const pitch = n("chain", "pitch");
+  if (pitch !== undefined && cs !== undefined && pitch > cs)
+    out.push({ path: "chain.pitch", message: "chain.pitch must not exceed chain.catchSpacing" });
+  const arFrom = n("antiRollback", "from");
+  const arTo = n("antiRollback", "to");
+  if (arFrom !== undefined && arTo !== undefined && !(arFrom < arTo))
+    out.push({ path: "antiRollback.to", message: "antiRollback.to must be greater than antiRollback.from" });
+  if (arTo !== undefined && L !== undefined && arTo > L)
+    out.push({ path: "antiRollback.to", message: `antiRollback.to must not exceed the track length ${Ls} m` });
+  const ts = n("antiRollback", "toothSpacing");
+  if (ts !== undefined && arFrom !== undefined && arTo !== undefined && arFrom < arTo && ts > arTo - arFrom)
+    out.push({
+      path: "antiRollback.toothSpacing",
+      message: "antiRollback.toothSpacing must not exceed the ratchet length (antiRollback.to − antiRollback.from)",
+    });
+  const sp = n("train", "startPosition");
+  if (sp !== undefined && L !== undefined && sp >= L)
+    out.push({ path: "train.startPosition", message: `train.startPosition must lie on the track (below ${Ls} m)` });
+  const cars = n("train", "cars");
+  const carLength = n("train", "carLength");
+  const dog = n("train", "dogOffset");
+  if (dog !== undefined && cars !== undefined && carLength !== undefined && dog > cars * carLength)
+    out.push({
+      path: "train.dogOffset",
+      message: "train.dogOffset must not exceed the train length (train.cars × train.carLength)",
+    });
+  const pos = n("takeUp", "position");
+  const travel = n("takeUp", "travel");
+  if (pos !== undefined && travel !== undefined && pos > travel)
+    out.push({ path: "takeUp.position", message: "takeUp.position must not exceed takeUp.travel" });
+  return out;
+}
+
+export const scenarioSchema = baseScenarioSchema.superRefine((s, ctx) => {
+  for (const i of crossFieldIssues(s)) ctx.addIssue({ code: "custom", path: i.path.split("."), message: i.message });
+});
+
+export type Scenario = z.output<typeof scenarioSchema>;
+export type ScenarioInput = z.input<typeof scenarioSchema>;
+export type LiftSettings = z.output<typeof liftSchema>;
+export type ChainSettings = z.output<typeof chainSchema>;
+export type DriveSettings = z.output<typeof driveSchema>;
+export type TakeUpSettings = z.output<typeof takeUpSchema>;
+export type TrainSettings = z.output<typeof trainSchema>;
+export type AntiRollbackSettings = z.output<typeof antiRollbackSchema>;
+export type RunSettings = z.output<typeof runSettingsSchema>;
+export type Limits = z.output<typeof limitsSchema>;
+export type Integrator = (typeof INTEGRATORS)[number];
+
+export type ParseResult = { ok: true; scenario: Scenario } | { ok: false; issues: FieldIssue[] };
+
+/** Validates a scenario and lists every problem at once, each with a dotted field path. */
+export function parseScenario(data: unknown): ParseResult {
+  const r = scenarioSchema.safeParse(data);
+  if (r.success) return { ok: true, scenario: r.data };
+  const issues: FieldIssue[] = r.error.issues.map((i) => ({
+    path: i.path.length ? i.path.map(String).join(".") : "(scenario)",
+    message: i.message,
+  }));
+  // Cross-field rules do not run in zod when a field failed; run them on the raw input as well.
+  const seen = new Set(issues.map((i) => `${i.path}|${i.message}`));
+  for (const i of crossFieldIssues(data)) {
+    const key = `${i.path}|${i.message}`;
+    if (!seen.has(key) && !issues.some((j) => j.path === i.path)) {
+      issues.push(i);
+      seen.add(key);
+    }
+  }
+  return { ok: false, issues };
+}
+
+/** The catch point that sits at a known arc position at t = 0 (default: the chain's start). */
+export function catchOffsetOf(s: Scenario): number {
+  return s.chain.catchOffset ?? s.lift.chainFrom;
+}
