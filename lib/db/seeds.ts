@@ -1,4 +1,5 @@
 import type { Sequelize } from "sequelize";
+import { demoAccountsSeed } from "@/lib/auth/seed";
 
 /** One idempotent seed step: running it twice leaves the same rows as running it once. */
 export interface SeedStep {
@@ -7,4 +8,6 @@ export interface SeedStep {
 }
 
 // Demo data, in dependency order. To add a step: import it and append it here.
-export const seedSteps: SeedStep[] = [];
+export const seedSteps: SeedStep[] = [
+  demoAccountsSeed,
+];

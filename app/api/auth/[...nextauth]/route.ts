@@ -1,0 +1,43 @@
+import NextAuth from "next-auth/next";
+import type { NextRequest } from "next/server";
+import { getAuthOptions } from "@/lib/auth/options";
+import { clientIp } from "@/lib/auth/rate-limit";
+import { signInAllowed, RATE_LIMITED_ERROR } from "@/lib/auth/sign-in";
+import { emailSchema } from "@/lib/auth/schemas";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ nextauth: string[] }> };
+
+async function handle(req: NextRequest, ctx: Ctx) {
+  return NextAuth(req, ctx, getAuthOptions());
+}
+
+export const GET = handle;
+
+/**
+ * The credentials callback answers 429 (with Retry-After) once the account or the address is over its
+ * failed sign-in limit, before next-auth runs. The body keeps next-auth's `{ url }` shape so the sign-in
+ * form (next-auth/react `signIn`) reads `error=RateLimited` from it.
+ */
+export async function POST(req: NextRequest, ctx: Ctx) {
+  const { nextauth } = await ctx.params;
+  if (nextauth[0] === "callback" && nextauth[1] === "credentials") {
+    const form = await req.clone().formData().catch(() => null);
+    const email = emailSchema.safeParse(form?.get("email") ?? "");
+    const decision = await signInAllowed(email.success ? email.data : "", clientIp(req.headers));
+    if (!decision.allowed) {
+      const url = new URL("/sign-in", req.nextUrl.origin);
+      url.searchParams.set("error", RATE_LIMITED_ERROR);
+      return Response.json(
+        {
+          error: `Too many failed sign-ins. Try again in ${Math.ceil(decision.retryAfterSeconds / 60)} minute(s).`,
+          url: url.toString(),
+        },
+        { status: 429, headers: { "Retry-After": String(decision.retryAfterSeconds) } },
+      );
+    }
+  }
+  return handle(req, ctx);
+}

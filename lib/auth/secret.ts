@@ -1,0 +1,24 @@
+/** Used only outside production so a fresh checkout signs in without setup. Never valid in production. */
+const DEVELOPMENT_SECRET = "tautline-development-secret-not-for-production";
+
+export class MissingSecretError extends Error {
+  constructor() {
+    super(
+      "NEXTAUTH_SECRET is not set. In production Tautline refuses to run without it: " +
+        "set NEXTAUTH_SECRET to a long random string (e.g. `openssl rand -base64 32`).",
+    );
+    this.name = "MissingSecretError";
+  }
+}
+
+/** The secret that signs session tokens; throws in production when none is configured. */
+export function authSecret(env: NodeJS.ProcessEnv = process.env): string {
+  const secret = env.NEXTAUTH_SECRET || env.AUTH_SECRET;
+  if (secret) return secret;
+  if (env.NODE_ENV === "production") throw new MissingSecretError();
+  return DEVELOPMENT_SECRET;
+}
+
+export function isProductionInstance(env: NodeJS.ProcessEnv = process.env): boolean {
+  return (env.TAUTLINE_ENV ?? env.NODE_ENV) === "production";
+}
