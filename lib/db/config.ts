@@ -8,13 +8,52 @@ export interface DbConfig {
   poolMax: number;
 }
 
+/** A setting that cannot be used as given; the message names the variable and what it expects. */
+export class ConfigError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = "ConfigError";
+  }
+}
+
+/** A TCP port from the environment: an integer 1–65535, or the fallback when unset or empty. */
+export function parsePort(value: string | undefined, name: string, fallback: number): number {
+  if (value === undefined || value.trim() === "") return fallback;
+  const n = Number(value.trim());
+  if (!Number.isInteger(n) || n < 1 || n > 65535) {
+    throw new ConfigError(`${name} must be a port number between 1 and 65535 (got "${value}").`);
+  }
+  return n;
+}
+
+function parsePositiveInt(value: string | undefined, name: string, fallback: number): number {
+  if (value === undefined || value.trim() === "") return fallback;
+  const n = Number(value.trim());
+  if (!Number.isInteger(n) || n < 1) throw new ConfigError(`${name} must be a whole number above 0 (got "${value}").`);
+  return n;
+}
+
+// Names go into SQL identifiers when the scripts create the database and user, so keep them plain.
+const PLAIN_NAME = /^[A-Za-z0-9_]{1,64}$/;
+
+function parseName(value: string | undefined, name: string, fallback: string): string {
+  const v = value === undefined || value.trim() === "" ? fallback : value.trim();
+  if (!PLAIN_NAME.test(v)) throw new ConfigError(`${name} may use only letters, digits and _ (1–64 characters; got "${v}").`);
+  return v;
+}
+
 export function dbConfig(env: NodeJS.ProcessEnv = process.env): DbConfig {
   return {
-    host: env.DB_HOST ?? "127.0.0.1",
-    port: Number(env.DB_PORT ?? 3307),
-    database: env.DB_NAME ?? "tautline",
-    user: env.DB_USER ?? "tautline",
+    host: env.DB_HOST?.trim() || "127.0.0.1",
+    port: parsePort(env.DB_PORT, "DB_PORT", 3307),
+    database: parseName(env.DB_NAME, "DB_NAME", "tautline"),
+    user: parseName(env.DB_USER, "DB_USER", "tautline"),
     password: env.DB_PASSWORD ?? "tautline-local",
-    poolMax: Number(env.DB_POOL_MAX ?? 10),
+    poolMax: parsePositiveInt(env.DB_POOL_MAX, "DB_POOL_MAX", 10),
   };
+}
+
+/** "host:port", for messages. */
+export function dbTarget(c: Pick<DbConfig, "host" | "port">): string {
+  return `${c.host}:${c.port}`;
 }

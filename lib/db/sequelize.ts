@@ -1,10 +1,8 @@
 import { Sequelize } from "sequelize";
-import { dbConfig } from "./config";
+import { dbConfig, type DbConfig } from "./config";
 
-const globalForDb = globalThis as unknown as { tautlineSequelize?: Sequelize };
-
-function create(): Sequelize {
-  const c = dbConfig();
+/** A new Sequelize instance for the given settings (scripts and tests that target a chosen database). */
+export function createSequelize(c: DbConfig = dbConfig()): Sequelize {
   return new Sequelize(c.database, c.user, c.password, {
     host: c.host,
     port: c.port,
@@ -16,8 +14,10 @@ function create(): Sequelize {
   });
 }
 
+const globalForDb = globalThis as unknown as { tautlineSequelize?: Sequelize };
+
 /** One Sequelize instance per process (cached on globalThis so dev reloads don't leak pools). */
 export function getSequelize(): Sequelize {
-  if (!globalForDb.tautlineSequelize) globalForDb.tautlineSequelize = create();
+  if (!globalForDb.tautlineSequelize) globalForDb.tautlineSequelize = createSequelize();
   return globalForDb.tautlineSequelize;
 }

@@ -1,0 +1,128 @@
+import crypto from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
+import { dbConfig, parsePort, type DbConfig } from "../../lib/db/config";
+import { dataDirFromEnv } from "./instance-paths";
+
+export const repoRoot = path.resolve(__dirname, "..", "..");
+
+/** Everything one running copy of Tautline needs: database, app port, mail fake, sign-in settings. */
+export interface Stack {
+  kind: "demo" | "test";
+  db: DbConfig;
+  dataDir: string;
+  appPort: number;
+  appHost: string;
+  appUrl: string;
+  smtpPort: number;
+  mailHttpPort: number;
+  smtpUrl: string;
+  mailFakeUrl: string;
+  /** False when SMTP_URL points at a real provider: then no local fake is started. */
+  runMailFake: boolean;
+  mailDir: string;
+  nextauthSecret: string;
+}
+
+function isLoopbackUrl(url: string): boolean {
+  try {
+    const h = new URL(url).hostname;
+    return h === "127.0.0.1" || h === "localhost" || h === "[::1]";
+  } catch {
+    return false;
+  }
+}
+
+/** The demo stack (npm start / npm run dev / db:*): ports from PORT, DB_PORT, SMTP_PORT, MAIL_HTTP_PORT. */
+export function demoStack(env: NodeJS.ProcessEnv = process.env): Stack {
+  const db = dbConfig(env);
+  const appPort = parsePort(env.PORT, "PORT", 3000);
+  const smtpPort = parsePort(env.SMTP_PORT, "SMTP_PORT", 2525);
+  const mailHttpPort = parsePort(env.MAIL_HTTP_PORT, "MAIL_HTTP_PORT", 1080);
+  const smtpUrl = env.SMTP_URL?.trim() || `smtp://127.0.0.1:${smtpPort}`;
+  const dataDir = dataDirFromEnv(repoRoot, env, "demo", db.port);
+  return {
+    kind: "demo",
+    db,
+    dataDir,
+    appPort,
+    appHost: env.APP_HOST?.trim() || "127.0.0.1",
+    appUrl: env.NEXTAUTH_URL?.trim() || `http://localhost:${appPort}`,
+    smtpPort,
+    mailHttpPort,
+    smtpUrl,
+    mailFakeUrl: env.MAIL_FAKE_URL?.trim() || `http://127.0.0.1:${mailHttpPort}`,
+    runMailFake: env.MAIL_FAKE !== "0" && isLoopbackUrl(smtpUrl),
+    mailDir: path.join(path.dirname(dataDir), `mail-${path.basename(dataDir)}`),
+    nextauthSecret: env.NEXTAUTH_SECRET?.trim() || storedSecret(path.join(repoRoot, ".data", "nextauth-secret")),
+  };
+}
+
+/** The throwaway test stack (npm test): its own ports from TEST_*, never the demo database. */
+export function testStack(env: NodeJS.ProcessEnv = process.env): Stack {
+  const dbPort = parsePort(env.TEST_DB_PORT, "TEST_DB_PORT", 3308);
+  const db = { ...dbConfig({ ...env, DB_HOST: "127.0.0.1", DB_PORT: String(dbPort) }) };
+  const appPort = parsePort(env.TEST_APP_PORT, "TEST_APP_PORT", 3100);
+  const smtpPort = parsePort(env.TEST_SMTP_PORT, "TEST_SMTP_PORT", 2526);
+  const mailHttpPort = parsePort(env.TEST_MAIL_HTTP_PORT, "TEST_MAIL_HTTP_PORT", 1081);
+  const dataDir = path.join(repoRoot, ".data", `test-${dbPort}`);
+  return {
+    kind: "test",
+    db,
+    dataDir,
+    appPort,
+    appHost: "127.0.0.1",
+    appUrl: `http://127.0.0.1:${appPort}`,
+    smtpPort,
+    mailHttpPort,
+    smtpUrl: `smtp://127.0.0.1:${smtpPort}`,
+    mailFakeUrl: `http://127.0.0.1:${mailHttpPort}`,
+    runMailFake: true,
+    mailDir: path.join(repoRoot, ".data", `test-mail-${dbPort}`),
+    // A fresh secret per test run: nothing outlives it.
+    nextauthSecret: crypto.randomBytes(32).toString("base64url"),
+  };
+}
+
+/** A secret generated once and kept in .data/ (mode 600), so sessions survive a restart. */
+export function storedSecret(file: string): string {
+  try {
+    const s = fs.readFileSync(file, "utf8").trim();
+    if (s.length >= 32) return s;
+  } catch {
+    // first run
+  }
+  fs.mkdirSync(path.dirname(file), { recursive: true });
+  const s = crypto.randomBytes(32).toString("base64url");
+  fs.writeFileSync(file, s + "\n", { mode: 0o600 });
+  return s;
+}
+
+/** Environment for Next, vitest and Playwright: the stack's settings over the caller's environment. */
+export function stackEnv(s: Stack, base: NodeJS.ProcessEnv = process.env): NodeJS.ProcessEnv {
+  return {
+    ...base,
+    DB_HOST: s.db.host,
+    DB_PORT: String(s.db.port),
+    DB_NAME: s.db.database,
+    DB_USER: s.db.user,
+    DB_PASSWORD: s.db.password,
+    DB_POOL_MAX: String(s.db.poolMax),
+    PORT: String(s.appPort),
+    NEXTAUTH_URL: s.appUrl,
+    NEXTAUTH_SECRET: s.nextauthSecret,
+    SMTP_URL: s.smtpUrl,
+    MAIL_FAKE_URL: s.mailFakeUrl,
+    SMTP_PORT: String(s.smtpPort),
+    MAIL_HTTP_PORT: String(s.mailHttpPort),
+    ...(s.kind === "test"
+      ? {
+          TEST_DB_PORT: String(s.db.port),
+          TEST_APP_PORT: String(s.appPort),
+          TEST_SMTP_PORT: String(s.smtpPort),
+          TEST_MAIL_HTTP_PORT: String(s.mailHttpPort),
+          TAUTLINE_TEST: "1",
+        }
+      : {}),
+  };
+}
