@@ -3,6 +3,12 @@ import * as m0001 from "./0001_organisations";
 import * as m0002 from "./0002_users";
 import * as m0003 from "./0003_auth_tokens";
 import * as m0004 from "./0004_rate_limit_hits";
+import * as m0010 from "./0010_create_chain_specs";
+import * as m0011 from "./0011_create_lifts";
+import * as m0012 from "./0012_create_trains";
+import * as m0013 from "./0013_create_scenarios";
+import * as m0014 from "./0014_create_audit_entries";
+import * as m0015 from "./0015_create_comments";
 
 export interface Migration {
   name: string;
@@ -17,4 +23,10 @@ export const migrations: Migration[] = [
   { name: "0002_users", ...m0002 },
   { name: "0003_auth_tokens", ...m0003 },
   { name: "0004_rate_limit_hits", ...m0004 },
+  { name: "0010_create_chain_specs", ...m0010 },
+  { name: "0011_create_lifts", ...m0011 },
+  { name: "0012_create_trains", ...m0012 },
+  { name: "0013_create_scenarios", ...m0013 },
+  { name: "0014_create_audit_entries", ...m0014 },
+  { name: "0015_create_comments", ...m0015 },
 ];

@@ -4,8 +4,16 @@ import { initOrganisation, Organisation } from "./Organisation";
 import { initUser, User } from "./User";
 import { initAuthToken, AuthToken } from "./AuthToken";
 import { initRateLimitHit, RateLimitHit } from "./RateLimitHit";
+import { initChainSpec, ChainSpec } from "./ChainSpec";
+import { initLift, Lift } from "./Lift";
+import { initLiftRevision, LiftRevision } from "./LiftRevision";
+import { initTrain, Train } from "./Train";
+import { initScenario, Scenario } from "./Scenario";
+import { initAuditEntry, AuditEntry } from "./AuditEntry";
+import { initComment, Comment } from "./Comment";
 
 export { Organisation, User, AuthToken, RateLimitHit };
+export { ChainSpec, Lift, LiftRevision, Train, Scenario, AuditEntry, Comment };
 
 /**
  * Every model, bound to one Sequelize instance. To add a model: import its class and init function,
@@ -16,6 +24,13 @@ export interface Models {
   User: typeof User;
   AuthToken: typeof AuthToken;
   RateLimitHit: typeof RateLimitHit;
+  ChainSpec: typeof ChainSpec;
+  Lift: typeof Lift;
+  LiftRevision: typeof LiftRevision;
+  Train: typeof Train;
+  Scenario: typeof Scenario;
+  AuditEntry: typeof AuditEntry;
+  Comment: typeof Comment;
 }
 
 const boundTo = new WeakMap<Sequelize, Models>();
@@ -25,6 +40,17 @@ function associate(m: Models): void {
   m.User.belongsTo(m.Organisation, { foreignKey: "organisationId", as: "organisation" });
   m.User.hasMany(m.AuthToken, { foreignKey: "userId", as: "tokens" });
   m.AuthToken.belongsTo(m.User, { foreignKey: "userId", as: "user" });
+  // Design data. lifts.current_revision_id and lift_revisions.lift_id point at each other: no sync constraints.
+  m.Lift.hasMany(m.LiftRevision, { foreignKey: "liftId", as: "revisions", constraints: false });
+  m.LiftRevision.belongsTo(m.Lift, { foreignKey: "liftId", as: "lift", constraints: false });
+  m.Lift.belongsTo(m.LiftRevision, { foreignKey: "currentRevisionId", as: "currentRevision", constraints: false });
+  m.LiftRevision.belongsTo(m.ChainSpec, { foreignKey: "chainSpecId", as: "chainSpec" });
+  m.Scenario.belongsTo(m.Lift, { foreignKey: "liftId", as: "lift" });
+  m.Scenario.belongsTo(m.LiftRevision, { foreignKey: "liftRevisionId", as: "liftRevision" });
+  m.Scenario.belongsTo(m.Train, { foreignKey: "trainId", as: "train" });
+  m.Comment.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
+  m.Comment.belongsTo(m.User, { foreignKey: "userId", as: "author" });
+  m.AuditEntry.belongsTo(m.User, { foreignKey: "userId", as: "user" });
 }
 
 /** Inits all models on `sequelize` and sets their associations. Calling it again is a no-op. */
@@ -36,6 +62,13 @@ export function initModels(sequelize: Sequelize): Models {
     User: initUser(sequelize),
     AuthToken: initAuthToken(sequelize),
     RateLimitHit: initRateLimitHit(sequelize),
+    ChainSpec: initChainSpec(sequelize),
+    Lift: initLift(sequelize),
+    LiftRevision: initLiftRevision(sequelize),
+    Train: initTrain(sequelize),
+    Scenario: initScenario(sequelize),
+    AuditEntry: initAuditEntry(sequelize),
+    Comment: initComment(sequelize),
   };
   associate(m);
   boundTo.set(sequelize, m);
