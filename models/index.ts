@@ -11,9 +11,11 @@ import { initTrain, Train } from "./Train";
 import { initScenario, Scenario } from "./Scenario";
 import { initAuditEntry, AuditEntry } from "./AuditEntry";
 import { initComment, Comment } from "./Comment";
+import { initRun, Run } from "./Run";
 
 export { Organisation, User, AuthToken, RateLimitHit };
 export { ChainSpec, Lift, LiftRevision, Train, Scenario, AuditEntry, Comment };
+export { Run };
 
 /**
  * Every model, bound to one Sequelize instance. To add a model: import its class and init function,
@@ -31,6 +33,7 @@ export interface Models {
   Scenario: typeof Scenario;
   AuditEntry: typeof AuditEntry;
   Comment: typeof Comment;
+  Run: typeof Run;
 }
 
 const boundTo = new WeakMap<Sequelize, Models>();
@@ -51,6 +54,11 @@ function associate(m: Models): void {
   m.Comment.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
   m.Comment.belongsTo(m.User, { foreignKey: "userId", as: "author" });
   m.AuditEntry.belongsTo(m.User, { foreignKey: "userId", as: "user" });
+  // Runs.
+  m.Scenario.hasMany(m.Run, { foreignKey: "scenarioId", as: "runs" });
+  m.Run.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
+  m.Run.belongsTo(m.LiftRevision, { foreignKey: "liftRevisionId", as: "liftRevision" });
+  m.Run.belongsTo(m.User, { foreignKey: "startedBy", as: "starter" });
 }
 
 /** Inits all models on `sequelize` and sets their associations. Calling it again is a no-op. */
@@ -69,6 +77,7 @@ export function initModels(sequelize: Sequelize): Models {
     Scenario: initScenario(sequelize),
     AuditEntry: initAuditEntry(sequelize),
     Comment: initComment(sequelize),
+    Run: initRun(sequelize),
   };
   associate(m);
   boundTo.set(sequelize, m);
