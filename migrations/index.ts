@@ -9,6 +9,7 @@ import * as m0012 from "./0012_create_trains";
 import * as m0013 from "./0013_create_scenarios";
 import * as m0014 from "./0014_create_audit_entries";
 import * as m0015 from "./0015_create_comments";
+import * as m0016 from "./0016_widen_scenario_names";
 import * as m0020 from "./0020_runs";
 
 export interface Migration {
@@ -30,5 +31,6 @@ export const migrations: Migration[] = [
   { name: "0013_create_scenarios", ...m0013 },
   { name: "0014_create_audit_entries", ...m0014 },
   { name: "0015_create_comments", ...m0015 },
+  { name: "0016_widen_scenario_names", ...m0016 },
   { name: "0020_runs", ...m0020 },
 ];

@@ -45,7 +45,7 @@ export function initScenario(sequelize: Sequelize): typeof Scenario {
     {
       id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
       organisationId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-      name: { type: DataTypes.STRING(120), allowNull: false },
+      name: { type: DataTypes.STRING(200), allowNull: false },
       liftId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
       liftRevisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
       trainId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
