@@ -1,5 +1,6 @@
 import type { Sequelize } from "sequelize";
 import { demoAccountsSeed } from "@/lib/auth/seed";
+import { standardChainsSeed } from "@/lib/chains/seed";
 
 /** One idempotent seed step: running it twice leaves the same rows as running it once. */
 export interface SeedStep {
@@ -10,4 +11,5 @@ export interface SeedStep {
 // Demo data, in dependency order. To add a step: import it and append it here.
 export const seedSteps: SeedStep[] = [
   demoAccountsSeed,
+  standardChainsSeed,
 ];

@@ -1,0 +1,100 @@
+import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
+import { getSequelize } from "@/lib/db/sequelize";
+import { getModels } from "@/models";
+import { badRequest } from "@/lib/http/errors";
+import { assertCan, type Actor } from "@/lib/api/actor";
+import { recordAudit } from "@/lib/audit/record";
+import { createLiftIn, type LiftView } from "@/lib/lifts/service";
+import { liftRevisionSchema } from "@/lib/lifts/schema";
+import { trainView, type TrainView } from "@/lib/trains/service";
+import { DEFAULT_RIDER_MASS } from "@/lib/trains/schema";
+import { createScenarioIn, type ScenarioView } from "./service";
+
+export interface ImportResult {
+  scenario: ScenarioView;
+  lift: LiftView;
+  train: TrainView;
+}
+
+const IMPORTED_TRAIN_NOTE =
+  "Imported from a scenario file, which gives one car mass: it is stored as the empty car mass with no seats " +
+  "(scenario loading: empty), so the engine sees exactly the file's car mass. Add seats and rider mass to model loading cases.";
+
+const clip = (text: string, max: number) => (text.length <= max ? text : `${text.slice(0, max - 1)}…`);
+
+/**
+ * Imports a `tautline-scenario/1` file: validates it completely (400 with every problem at once,
+ * nothing stored), then creates a lift with revision 1, a train and the scenario in one transaction.
+ * Exporting the new scenario gives back the file's values (with the format's defaults filled in).
+ */
+export async function importScenario(actor: Actor, file: unknown): Promise<ImportResult> {
+  assertCan(actor, "design:write");
+  const parsed = parseScenario(file);
+  if (!parsed.ok) throw badRequest("The scenario file has problems; nothing was imported.", parsed.issues);
+  const s: EngineScenario = parsed.scenario;
+
+  const revision = liftRevisionSchema.parse({
+    name: clip(s.name, 120),
+    site: null,
+    notes: s.description ?? null,
+    chainSpecId: null,
+    lift: s.lift,
+    chain: s.chain,
+    drive: s.drive,
+    takeUp: s.takeUp,
+    antiRollback: s.antiRollback,
+    limits: s.limits,
+  });
+
+  const { Train } = getModels();
+  return getSequelize().transaction(async (transaction) => {
+    const lift = await createLiftIn(actor, revision, "Imported from a tautline-scenario/1 file", "import", transaction);
+    const trainRow = await Train.create(
+      {
+        organisationId: actor.organisationId,
+        name: clip(`${s.name} – train`, 120),
+        notes: IMPORTED_TRAIN_NOTE,
+        cars: s.train.cars,
+        carMassEmpty: s.train.carMass,
+        seatsPerCar: 0,
+        riderMass: DEFAULT_RIDER_MASS,
+        carLength: s.train.carLength,
+        dogOffset: s.train.dogOffset,
+        rollingResistance: s.train.rollingResistance,
+        dragArea: s.train.dragArea,
+        archivedAt: null,
+        createdBy: actor.id,
+      },
+      { transaction },
+    );
+    const train = trainView(trainRow);
+    await recordAudit({ transaction, actor, entity: "train", entityId: trainRow.id, action: "import", after: train });
+
+    const { Lift, LiftRevision } = getModels();
+    const liftRow = (await Lift.findByPk(lift.id, { transaction }))!;
+    const revRow = (await LiftRevision.findByPk(lift.currentRevision.id, { transaction }))!;
+    const scenario = await createScenarioIn(
+      actor,
+      {
+        data: {
+          name: s.name,
+          notes: s.description ?? null,
+          liftId: lift.id,
+          liftRevisionId: revRow.id,
+          trainId: trainRow.id,
+          loading: "empty",
+          riderCount: null,
+          entrySpeed: s.train.entrySpeed,
+          startPosition: s.train.startPosition,
+          runSettings: s.run,
+        },
+        lift: liftRow,
+        revision: revRow,
+        train: trainRow,
+      },
+      "import",
+      transaction,
+    );
+    return { scenario, lift, train };
+  });
+}

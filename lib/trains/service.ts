@@ -1,0 +1,132 @@
+import { Op, type WhereOptions } from "sequelize";
+import { z } from "zod";
+import { getSequelize } from "@/lib/db/sequelize";
+import { getModels } from "@/models";
+import type { Train } from "@/models/Train";
+import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
+import { assertVersion, versionField } from "@/lib/api/concurrency";
+import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/api/list-query";
+import { validate } from "@/lib/api/validate";
+import { recordAudit } from "@/lib/audit/record";
+import { trainInputSchema, type TrainData } from "./schema";
+import { loadedCarMass } from "./mass";
+import { assertNotArchived, type DeleteOutcome } from "@/lib/api/outcome";
+
+export interface TrainView extends TrainData {
+  id: number;
+  /** kg per car with every seat taken. */
+  carMassLoaded: number;
+  version: number;
+  archivedAt: Date | null;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+function trainData(t: Train): TrainData {
+  return {
+    name: t.name,
+    notes: t.notes,
+    cars: t.cars,
+    carMassEmpty: t.carMassEmpty,
+    seatsPerCar: t.seatsPerCar,
+    riderMass: t.riderMass,
+    carLength: t.carLength,
+    dogOffset: t.dogOffset,
+    rollingResistance: t.rollingResistance,
+    dragArea: t.dragArea,
+  };
+}
+
+export function trainView(t: Train): TrainView {
+  return {
+    id: t.id,
+    ...trainData(t),
+    carMassLoaded: loadedCarMass(t),
+    version: t.version,
+    archivedAt: t.archivedAt,
+    createdAt: t.createdAt,
+    updatedAt: t.updatedAt,
+  };
+}
+
+export const trainListQuery = listQuerySchema({
+  sortFields: ["name", "cars", "carMassEmpty", "createdAt", "updatedAt"],
+  defaultSort: "name",
+  filters: { archived: archivedFilter },
+});
+export type TrainListQuery = z.input<typeof trainListQuery>;
+
+export async function listTrains(actor: Actor, query: TrainListQuery = {}): Promise<Page<TrainView>> {
+  assertCan(actor, "design:read");
+  const q = validate(trainListQuery, query);
+  const { Train } = getModels();
+  const where: WhereOptions = {
+    organisationId: actor.organisationId,
+    ...(q.archived === "all" ? {} : { archivedAt: q.archived === "true" ? { [Op.ne]: null } : null }),
+    ...(q.q ? { name: { [Op.like]: likePattern(q.q) } } : {}),
+  };
+  const { rows, count } = await Train.findAndCountAll({ where, ...pageOptions(q) });
+  return toPage(rows.map(trainView), count, q);
+}
+
+export async function findOwnTrain(actor: Actor, id: number): Promise<Train> {
+  const { Train } = getModels();
+  return ownOr404(await Train.findByPk(id), actor, "Train");
+}
+
+export async function getTrain(actor: Actor, id: number): Promise<TrainView> {
+  assertCan(actor, "design:read");
+  return trainView(await findOwnTrain(actor, id));
+}
+
+export async function createTrain(actor: Actor, input: unknown): Promise<TrainView> {
+  assertCan(actor, "design:write");
+  const data = validate(trainInputSchema, input);
+  const { Train } = getModels();
+  return getSequelize().transaction(async (transaction) => {
+    const row = await Train.create(
+      { ...data, organisationId: actor.organisationId, archivedAt: null, createdBy: actor.id },
+      { transaction },
+    );
+    await recordAudit({ transaction, actor, entity: "train", entityId: row.id, action: "create", after: trainView(row) });
+    return trainView(row);
+  });
+}
+
+export const trainUpdateSchema = z.object({ version: versionField }).loose();
+
+/** Partial update: given fields replace, the merged train must pass the full rules. */
+export async function updateTrain(actor: Actor, id: number, input: unknown): Promise<TrainView> {
+  assertCan(actor, "design:write");
+  const { version, ...changes } = validate(trainUpdateSchema, input);
+  const { Train } = getModels();
+  return getSequelize().transaction(async (transaction) => {
+    const row = ownOr404(await Train.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE }), actor, "Train");
+    assertNotArchived(row, "train");
+    const data = validate(trainInputSchema, { ...trainData(row), ...changes });
+    assertVersion(row.version, version, "train");
+    const before = trainView(row);
+    await row.update({ ...data, version: row.version + 1 }, { transaction });
+    await recordAudit({ transaction, actor, entity: "train", entityId: row.id, action: "update", before, after: trainView(row) });
+    return trainView(row);
+  });
+}
+
+/** Archives a train that scenarios use (they keep pointing at it), deletes an unused one. */
+export async function deleteTrain(actor: Actor, id: number): Promise<DeleteOutcome> {
+  assertCan(actor, "design:write");
+  const { Train, Scenario } = getModels();
+  return getSequelize().transaction(async (transaction) => {
+    const row = ownOr404(await Train.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE }), actor, "Train");
+    const before = trainView(row);
+    const used = await Scenario.count({ where: { trainId: row.id }, transaction });
+    if (used > 0) {
+      if (!row.archivedAt) await row.update({ archivedAt: new Date(), version: row.version + 1 }, { transaction });
+      await recordAudit({ transaction, actor, entity: "train", entityId: row.id, action: "archive", before, after: trainView(row) });
+      return { id: row.id, outcome: "archived" };
+    }
+    await row.destroy({ transaction });
+    await recordAudit({ transaction, actor, entity: "train", entityId: id, action: "delete", before, after: null });
+    return { id, outcome: "deleted" };
+  });
+}
