@@ -53,6 +53,16 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   "/api/admin/users/[id]": { methods: { PATCH: needs("users:manage") }, rows: { id: "users" } },
   "/api/admin/users/[id]/invite": { methods: { POST: needs("users:manage") }, rows: { id: "users" } },
   "/api/admin/mail": { methods: { GET: needs("devmail:read"), DELETE: needs("devmail:read") }, nonProduction: true },
+  // Runs. The probe bodies fail validation so the access test starts nothing; DELETE without ?version= is a 400.
+  "/api/scenarios/[id]/runs": {
+    methods: { GET: needs("run:read"), POST: needs("run:start") },
+    rows: { id: "scenarios" },
+    probeBody: { segments: 0 },
+  },
+  "/api/runs/[id]": { methods: { GET: needs("run:read"), DELETE: needs("run:delete") }, rows: { id: "runs" } },
+  "/api/runs/[id]/result": { methods: { GET: needs("run:read") }, rows: { id: "runs" } },
+  "/api/runs/[id]/events": { methods: { GET: needs("run:read") }, rows: { id: "runs" } },
+  "/api/runs/[id]/cancel": { methods: { POST: needs("run:cancel") }, rows: { id: "runs" } },
 };
 
 export const PAGE_ROUTES: Record<string, PageAccess> = {

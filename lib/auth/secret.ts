@@ -12,13 +12,13 @@ export class MissingSecretError extends Error {
 }
 
 /** The secret that signs session tokens; throws in production when none is configured. */
-export function authSecret(env: NodeJS.ProcessEnv = process.env): string {
+export function authSecret(env: Readonly<Record<string, string | undefined>> = process.env): string {
   const secret = env.NEXTAUTH_SECRET || env.AUTH_SECRET;
   if (secret) return secret;
   if (env.NODE_ENV === "production") throw new MissingSecretError();
   return DEVELOPMENT_SECRET;
 }
 
-export function isProductionInstance(env: NodeJS.ProcessEnv = process.env): boolean {
+export function isProductionInstance(env: Readonly<Record<string, string | undefined>> = process.env): boolean {
   return (env.TAUTLINE_ENV ?? env.NODE_ENV) === "production";
 }

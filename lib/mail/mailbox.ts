@@ -3,7 +3,7 @@ import type { FakeMessage } from "./fake-server";
 export type { FakeMessage } from "./fake-server";
 
 /** Where the local mail fake serves its messages, or null when this instance has none (production). */
-export function mailFakeUrl(env: NodeJS.ProcessEnv = process.env): string | null {
+export function mailFakeUrl(env: Readonly<Record<string, string | undefined>> = process.env): string | null {
   return env.MAIL_FAKE_URL?.replace(/\/+$/, "") || null;
 }
 

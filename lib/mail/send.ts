@@ -3,7 +3,7 @@ import type { MailContent } from "./templates";
 
 const DEFAULT_SMTP_URL = "smtp://127.0.0.1:2525";
 
-export function mailFrom(env: NodeJS.ProcessEnv = process.env): string {
+export function mailFrom(env: Readonly<Record<string, string | undefined>> = process.env): string {
   return env.MAIL_FROM ?? "Tautline <no-reply@tautline.example>";
 }
 

@@ -1,0 +1,19 @@
+import { redirect } from "next/navigation";
+import type { ReactNode } from "react";
+import { AppShell } from "@/components/shell/AppShell";
+import { getCurrentUser } from "@/lib/auth/session";
+import { getModels } from "@/models";
+
+export const dynamic = "force-dynamic";
+
+/** Every workspace page sits in this frame. Each page still checks its own access (lib/auth/page-guard.ts). */
+export default async function WorkspaceLayout({ children }: { children: ReactNode }) {
+  const user = await getCurrentUser();
+  if (!user) redirect("/sign-in");
+  const org = await getModels().Organisation.findByPk(user.organisationId);
+  return (
+    <AppShell user={user} organisationName={org?.name ?? ""}>
+      {children}
+    </AppShell>
+  );
+}

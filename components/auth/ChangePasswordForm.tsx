@@ -1,0 +1,60 @@
+"use client";
+
+import { signOut } from "next-auth/react";
+import { useState, type FormEvent } from "react";
+import { changePasswordSchema, PASSWORD_MIN } from "@/lib/auth/schemas";
+import { Alert } from "@/components/ui/Alert";
+import { Button } from "@/components/ui/Button";
+import { Field, Input } from "@/components/ui/Field";
+import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+
+export function ChangePasswordForm() {
+  const [values, setValues] = useState({ currentPassword: "", newPassword: "", confirm: "" });
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  async function submit(e: FormEvent) {
+    e.preventDefault();
+    setError(null);
+    const checked = validate(changePasswordSchema, values);
+    const errs: FieldErrors = { ...(checked.errors ?? {}) };
+    if (!errs.newPassword && values.confirm !== values.newPassword) errs.confirm = "The two new passwords differ.";
+    if (Object.keys(errs).length || !checked.data) return setErrors(errs);
+    setErrors({});
+    setBusy(true);
+    const res = await sendJson("/api/me/password", "POST", checked.data);
+    if (!res.ok) {
+      setBusy(false);
+      setErrors(res.errors);
+      return setError(res.error);
+    }
+    // Every session of this account ended with the change; sign in again with the new password.
+    await signOut({ callbackUrl: "/sign-in?passwordChanged=1" });
+  }
+
+  const set = (k: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement>) => setValues({ ...values, [k]: e.target.value });
+
+  return (
+    <form onSubmit={submit} noValidate className="space-y-4" data-testid="password-form">
+      <Field label="Current password" name="currentPassword" error={errors.currentPassword}>
+        <Input id="currentPassword" type="password" autoComplete="current-password" value={values.currentPassword} invalid={!!errors.currentPassword} onChange={set("currentPassword")} />
+      </Field>
+      <Field label="New password" name="newPassword" error={errors.newPassword} hint={`At least ${PASSWORD_MIN} characters.`}>
+        <Input id="newPassword" type="password" autoComplete="new-password" value={values.newPassword} invalid={!!errors.newPassword} onChange={set("newPassword")} />
+      </Field>
+      <Field label="New password again" name="confirm" error={errors.confirm}>
+        <Input id="confirm" type="password" autoComplete="new-password" value={values.confirm} invalid={!!errors.confirm} onChange={set("confirm")} />
+      </Field>
+      {error && (
+        <Alert tone="error" testId="form-error">
+          {error}
+        </Alert>
+      )}
+      <p className="text-[12.5px] text-steel-500">Changing the password signs you out everywhere, this browser included.</p>
+      <Button type="submit" busy={busy}>
+        Change password
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,55 @@
+"use client";
+
+import { useState, type FormEvent } from "react";
+import { forgotPasswordSchema } from "@/lib/auth/schemas";
+import { Alert } from "@/components/ui/Alert";
+import { Button } from "@/components/ui/Button";
+import { Field, Input } from "@/components/ui/Field";
+import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+
+export function ForgotPasswordForm() {
+  const [email, setEmail] = useState("");
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [error, setError] = useState<string | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  async function submit(e: FormEvent) {
+    e.preventDefault();
+    setError(null);
+    const checked = validate(forgotPasswordSchema, { email });
+    if (checked.errors) return setErrors(checked.errors);
+    setErrors({});
+    setBusy(true);
+    const res = await sendJson<{ message: string }>("/api/account/forgot-password", "POST", checked.data);
+    setBusy(false);
+    if (!res.ok) {
+      setErrors(res.errors);
+      return setError(res.error);
+    }
+    setDone(res.data?.message ?? "Check your e-mail.");
+  }
+
+  if (done) {
+    return (
+      <Alert tone="success" testId="forgot-sent" title="Check your e-mail">
+        {done}
+      </Alert>
+    );
+  }
+  return (
+    <form onSubmit={submit} noValidate className="space-y-4" data-testid="forgot-form">
+      <Field label="E-mail" name="email" error={errors.email}>
+        <Input id="email" type="email" autoComplete="username" autoFocus value={email} invalid={!!errors.email} onChange={(e) => setEmail(e.target.value)} />
+      </Field>
+      {error && (
+        <Alert tone="error" testId="form-error">
+          {error}
+        </Alert>
+      )}
+      <Button type="submit" busy={busy} className="w-full">
+        Send reset link
+      </Button>
+    </form>
+  );
+}

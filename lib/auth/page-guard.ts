@@ -1,0 +1,20 @@
+import { notFound, redirect } from "next/navigation";
+import { PAGE_ROUTES } from "./route-access";
+import { can } from "./permissions";
+import { isProductionInstance } from "./secret";
+import { getCurrentUser, type CurrentUser } from "./session";
+
+/**
+ * The server-side check every workspace page makes, driven by the same PAGE_ROUTES table the access
+ * test reads: no (valid) session → sign-in page; a role that may not see the page → 404, like a row of
+ * another organisation.
+ */
+export async function pageUser(pattern: keyof typeof PAGE_ROUTES & string): Promise<CurrentUser> {
+  const entry = PAGE_ROUTES[pattern];
+  if (!entry) throw new Error(`Page ${pattern} has no entry in lib/auth/route-access.ts`);
+  if (entry.nonProduction && isProductionInstance()) notFound();
+  const user = await getCurrentUser();
+  if (!user) redirect(`/sign-in?callbackUrl=${encodeURIComponent(pattern)}`);
+  if (typeof entry.access === "object" && !can(user.role, entry.access.action)) notFound();
+  return user;
+}
