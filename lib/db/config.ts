@@ -42,7 +42,10 @@ function parseName(value: string | undefined, name: string, fallback: string): s
   return v;
 }
 
-export function dbConfig(env: NodeJS.ProcessEnv = process.env): DbConfig {
+/** Environment variables as read here (plain records are fine, e.g. in tests). */
+export type Env = Record<string, string | undefined>;
+
+export function dbConfig(env: Env = process.env): DbConfig {
   return {
     host: env.DB_HOST?.trim() || "127.0.0.1",
     port: parsePort(env.DB_PORT, "DB_PORT", 3307),

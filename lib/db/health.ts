@@ -50,10 +50,17 @@ function reason(err: unknown): string {
   return err instanceof Error ? err.message : String(err);
 }
 
+/** host:port from a socket error (Node puts them on ECONNREFUSED and friends), when present. */
+function errorTarget(err: unknown): string | undefined {
+  const e = err as { parent?: { address?: unknown; port?: unknown }; original?: { address?: unknown; port?: unknown } } | null;
+  const src = e?.parent ?? e?.original;
+  return typeof src?.address === "string" && typeof src.port === "number" ? `${src.address}:${src.port}` : undefined;
+}
+
 /** The sentence shown to a developer when the database cannot be reached. */
 export function dbUnreachableMessage(err: unknown, c: DbConfig = dbConfig()): string {
   return (
-    `Cannot reach the Tautline database at ${dbTarget(c)} (${reason(err)}). ` +
+    `Cannot reach the Tautline database at ${errorTarget(err) ?? dbTarget(c)} (${reason(err)}). ` +
     `Start it with \`npm start\` or \`npm run db:start\`, or point DB_HOST / DB_PORT at a running MariaDB.`
   );
 }

@@ -38,7 +38,7 @@ export function defaultDataDir(repoRoot: string, kind: "demo" | "test", port: nu
   return path.join(repoRoot, ".data", port === 3307 ? "demo" : `demo-${port}`);
 }
 
-export function dataDirFromEnv(repoRoot: string, env: NodeJS.ProcessEnv, kind: "demo" | "test", port: number): string {
+export function dataDirFromEnv(repoRoot: string, env: Record<string, string | undefined>, kind: "demo" | "test", port: number): string {
   const given = env.DB_DATA_DIR?.trim();
   return given ? path.resolve(repoRoot, given) : defaultDataDir(repoRoot, kind, port);
 }

@@ -11,16 +11,21 @@ export class Lifecycle {
   private children = new Set<ChildProcess>();
   /** Set once a signal arrived: long steps check it to avoid starting new work. */
   interrupted = false;
+  private interruptedAt = 0;
 
   constructor() {
     for (const sig of ["SIGINT", "SIGTERM", "SIGHUP"] as const) {
       process.on(sig, () => {
         if (this.interrupted) {
-          warn(`${sig} again: stopping without waiting`);
+          // One Ctrl-C arrives several times (terminal group, npm and tsx each pass it on): only a
+          // signal well after the first one means "stop now".
+          if (Date.now() - this.interruptedAt < 3_000) return;
+          warn(`${sig} again: stopping without waiting (a database left running stops with npm run db:stop)`);
           for (const c of this.children) c.kill("SIGKILL");
           process.exit(130);
         }
         this.interrupted = true;
+        this.interruptedAt = Date.now();
         say(`${sig} received: stopping`);
         void this.stop().then(() => process.exit(sig === "SIGINT" ? 130 : 143));
       });

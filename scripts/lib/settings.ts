@@ -1,7 +1,7 @@
 import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import { dbConfig, parsePort, type DbConfig } from "../../lib/db/config";
+import { dbConfig, parsePort, type DbConfig, type Env } from "../../lib/db/config";
 import { dataDirFromEnv } from "./instance-paths";
 
 export const repoRoot = path.resolve(__dirname, "..", "..");
@@ -34,7 +34,7 @@ function isLoopbackUrl(url: string): boolean {
 }
 
 /** The demo stack (npm start / npm run dev / db:*): ports from PORT, DB_PORT, SMTP_PORT, MAIL_HTTP_PORT. */
-export function demoStack(env: NodeJS.ProcessEnv = process.env): Stack {
+export function demoStack(env: Env = process.env): Stack {
   const db = dbConfig(env);
   const appPort = parsePort(env.PORT, "PORT", 3000);
   const smtpPort = parsePort(env.SMTP_PORT, "SMTP_PORT", 2525);
@@ -59,7 +59,7 @@ export function demoStack(env: NodeJS.ProcessEnv = process.env): Stack {
 }
 
 /** The throwaway test stack (npm test): its own ports from TEST_*, never the demo database. */
-export function testStack(env: NodeJS.ProcessEnv = process.env): Stack {
+export function testStack(env: Env = process.env): Stack {
   const dbPort = parsePort(env.TEST_DB_PORT, "TEST_DB_PORT", 3308);
   const db = { ...dbConfig({ ...env, DB_HOST: "127.0.0.1", DB_PORT: String(dbPort) }) };
   const appPort = parsePort(env.TEST_APP_PORT, "TEST_APP_PORT", 3100);
@@ -99,8 +99,8 @@ export function storedSecret(file: string): string {
 }
 
 /** Environment for Next, vitest and Playwright: the stack's settings over the caller's environment. */
-export function stackEnv(s: Stack, base: NodeJS.ProcessEnv = process.env): NodeJS.ProcessEnv {
-  return {
+export function stackEnv(s: Stack, base: Env = process.env): NodeJS.ProcessEnv {
+  const env: Env = {
     ...base,
     DB_HOST: s.db.host,
     DB_PORT: String(s.db.port),
@@ -125,4 +125,5 @@ export function stackEnv(s: Stack, base: NodeJS.ProcessEnv = process.env): NodeJ
         }
       : {}),
   };
+  return env as NodeJS.ProcessEnv;
 }
