@@ -29,7 +29,7 @@ async function assembleChain(
   current: LiftRevisionData | null,
   issues: FieldIssue[],
   transaction?: Transaction,
-): Promise<{ chain: unknown; chainSpecId: number | null }> {
+): Promise<{ chain: unknown; chainSpecId: number | null; valuesMissing?: boolean }> {
   const currentChain = current?.chain as Raw | undefined;
   if (given === undefined) {
     if (current) return { chain: currentChain, chainSpecId: current.chainSpecId };
@@ -56,7 +56,7 @@ async function assembleChain(
     const spec = await ChainSpec.findByPk(chainSpecId, { transaction });
     if (!spec || (spec.organisationId !== null && spec.organisationId !== actor.organisationId)) {
       issues.push({ path: "chain.chainSpecId", message: `chain.chainSpecId ${chainSpecId}: no such chain in the catalogue` });
-      return { chain: { ...currentChain, ...rest }, chainSpecId };
+      return { chain: { ...currentChain, ...rest }, chainSpecId, valuesMissing: !currentChain };
     }
     if (spec.archivedAt) issues.push({ path: "chain.chainSpecId", message: `chain.chainSpecId ${chainSpecId}: that chain is archived` });
     const values = {
@@ -94,7 +94,7 @@ export async function buildRevisionData(
 ): Promise<LiftRevisionData> {
   const issues: FieldIssue[] = [];
   const pick = (k: "name" | "site" | "notes") => (k in body && body[k] !== undefined ? body[k] : current?.[k]);
-  const { chain, chainSpecId } = await assembleChain(actor, body.chain, current, issues, transaction);
+  const { chain, chainSpecId, valuesMissing } = await assembleChain(actor, body.chain, current, issues, transaction);
   const candidate: Raw = { name: pick("name"), site: pick("site"), notes: pick("notes"), chainSpecId, chain };
   for (const key of SECTION_KEYS) {
     if (key === "chain") continue;
@@ -109,6 +109,8 @@ export async function buildRevisionData(
   if (!parsed.success) {
     for (const i of zodIssues(parsed.error)) {
       if (i.path === "chainSpecId") continue; // reported above with its section path
+      // The chain's values were to come from a catalogue entry that was not found: already reported.
+      if (valuesMissing && CHAIN_VALUE_FIELDS.some((f) => i.path === `chain.${f}`)) continue;
       all.push(i);
       seen.add(i.path);
     }
