@@ -1,0 +1,26 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { readObjectBody } from "@/lib/api/body";
+import { parseId } from "@/lib/api/ids";
+import type { RouteContext } from "@/lib/api/params";
+import { deleteChainSpec, getChainSpec, updateChainSpec } from "@/lib/chains/service";
+
+export const runtime = "nodejs";
+
+export const GET = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:read");
+  return NextResponse.json(await getChainSpec(actor, parseId((await ctx.params).id, "Chain not found.")));
+});
+
+/** Updates one of the organisation's own chains (the standard catalogue is read-only). */
+export const PATCH = route(async (req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  const id = parseId((await ctx.params).id, "Chain not found.");
+  return NextResponse.json(await updateChainSpec(actor, id, await readObjectBody(req)));
+});
+
+export const DELETE = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await deleteChainSpec(actor, parseId((await ctx.params).id, "Chain not found.")));
+});

@@ -1,0 +1,18 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { queryOf } from "@/lib/api/body";
+import { parseId } from "@/lib/api/ids";
+import type { RouteContext } from "@/lib/api/params";
+import { getRevision } from "@/lib/lifts/service";
+
+export const runtime = "nodejs";
+
+/** One revision by its number, with the field changes from the one before (or from ?compare=N). */
+export const GET = route(async (req, ctx: RouteContext<{ id: string; number: string }>) => {
+  const actor = await requirePermission("design:read");
+  const p = await ctx.params;
+  return NextResponse.json(
+    await getRevision(actor, parseId(p.id, "Lift not found."), parseId(p.number, "Revision not found."), queryOf(req)),
+  );
+});

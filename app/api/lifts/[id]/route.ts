@@ -1,0 +1,27 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { readObjectBody } from "@/lib/api/body";
+import { parseId } from "@/lib/api/ids";
+import type { RouteContext } from "@/lib/api/params";
+import { deleteLift, getLift, updateLift } from "@/lib/lifts/service";
+
+export const runtime = "nodejs";
+
+export const GET = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:read");
+  return NextResponse.json(await getLift(actor, parseId((await ctx.params).id, "Lift not found.")));
+});
+
+/** Saves the lift as a new revision; the body carries the version it edits. */
+export const PATCH = route(async (req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  const id = parseId((await ctx.params).id, "Lift not found.");
+  return NextResponse.json(await updateLift(actor, id, await readObjectBody(req)));
+});
+
+/** Deletes an unused lift; archives one that scenarios use. */
+export const DELETE = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await deleteLift(actor, parseId((await ctx.params).id, "Lift not found.")));
+});

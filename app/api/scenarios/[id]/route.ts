@@ -1,0 +1,27 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { readObjectBody } from "@/lib/api/body";
+import { parseId } from "@/lib/api/ids";
+import type { RouteContext } from "@/lib/api/params";
+import { deleteScenario, getScenario, updateScenario } from "@/lib/scenarios/service";
+
+export const runtime = "nodejs";
+
+export const GET = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:read");
+  return NextResponse.json(await getScenario(actor, parseId((await ctx.params).id, "Scenario not found.")));
+});
+
+/** Partial update with the version edited; a frozen scenario answers 409. */
+export const PATCH = route(async (req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  const id = parseId((await ctx.params).id, "Scenario not found.");
+  return NextResponse.json(await updateScenario(actor, id, await readObjectBody(req)));
+});
+
+/** Deletes a scenario without runs or comments; archives one with them. */
+export const DELETE = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await deleteScenario(actor, parseId((await ctx.params).id, "Scenario not found.")));
+});

@@ -1,0 +1,16 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { readJsonBody } from "@/lib/api/body";
+import { importScenario } from "@/lib/scenarios/import";
+
+export const runtime = "nodejs";
+
+/**
+ * Imports a `tautline-scenario/1` file (the body): 400 lists every problem at once; otherwise a lift
+ * (revision 1), a train and the scenario are created together.
+ */
+export const POST = route(async (req) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await importScenario(actor, await readJsonBody(req)), { status: 201 });
+});

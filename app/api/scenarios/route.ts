@@ -1,0 +1,19 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { queryOf, readObjectBody } from "@/lib/api/body";
+import { createScenario, listScenarios } from "@/lib/scenarios/service";
+
+export const runtime = "nodejs";
+
+/** Scenarios: ?page&pageSize&sort=name|createdAt|updatedAt|entrySpeed&order&q&liftId&trainId&loading&frozen&archived. */
+export const GET = route(async (req) => {
+  const actor = await requirePermission("design:read");
+  return NextResponse.json(await listScenarios(actor, queryOf(req)));
+});
+
+/** A scenario pinned to the lift's current revision (or the given liftRevisionId). */
+export const POST = route(async (req) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await createScenario(actor, await readObjectBody(req)), { status: 201 });
+});

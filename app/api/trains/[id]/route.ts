@@ -1,0 +1,26 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { readObjectBody } from "@/lib/api/body";
+import { parseId } from "@/lib/api/ids";
+import type { RouteContext } from "@/lib/api/params";
+import { deleteTrain, getTrain, updateTrain } from "@/lib/trains/service";
+
+export const runtime = "nodejs";
+
+export const GET = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:read");
+  return NextResponse.json(await getTrain(actor, parseId((await ctx.params).id, "Train not found.")));
+});
+
+export const PATCH = route(async (req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  const id = parseId((await ctx.params).id, "Train not found.");
+  return NextResponse.json(await updateTrain(actor, id, await readObjectBody(req)));
+});
+
+/** Deletes an unused train; archives one that scenarios use. */
+export const DELETE = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await deleteTrain(actor, parseId((await ctx.params).id, "Train not found.")));
+});

@@ -1,0 +1,18 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { queryOf, readObjectBody } from "@/lib/api/body";
+import { createTrain, listTrains } from "@/lib/trains/service";
+
+export const runtime = "nodejs";
+
+/** Trains of the organisation: ?page&pageSize&sort=name|cars|carMassEmpty|createdAt|updatedAt&order&q&archived. */
+export const GET = route(async (req) => {
+  const actor = await requirePermission("design:read");
+  return NextResponse.json(await listTrains(actor, queryOf(req)));
+});
+
+export const POST = route(async (req) => {
+  const actor = await requirePermission("design:write");
+  return NextResponse.json(await createTrain(actor, await readObjectBody(req)), { status: 201 });
+});
