@@ -39,23 +39,26 @@ export function InviteForm({ showMailbox }: { showMailbox: boolean }) {
 
   return (
     <form onSubmit={submit} noValidate className="space-y-4" data-testid="invite-form">
-      <div className="grid gap-4 sm:grid-cols-2">
+      <div className="grid items-start gap-4 md:grid-cols-[minmax(0,1.2fr)_minmax(0,1fr)_220px_auto]">
         <Field label="E-mail" name="email" error={errors.email}>
           <Input id="email" type="email" autoComplete="off" value={values.email} invalid={!!errors.email} onChange={(e) => setValues({ ...values, email: e.target.value })} />
         </Field>
         <Field label="Name" name="name" error={errors.name}>
           <Input id="name" value={values.name} invalid={!!errors.name} onChange={(e) => setValues({ ...values, name: e.target.value })} />
         </Field>
+        <Field label="Role" name="role" error={errors.role}>
+          <Select id="role" value={values.role} invalid={!!errors.role} onChange={(e) => setValues({ ...values, role: e.target.value as Role })}>
+            {ROLES.map((r) => (
+              <option key={r} value={r}>
+                {ROLE_LABELS[r]}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Button type="submit" busy={busy} className="md:mt-[26px]">
+          Send invitation
+        </Button>
       </div>
-      <Field label="Role" name="role" error={errors.role}>
-        <Select id="role" value={values.role} invalid={!!errors.role} onChange={(e) => setValues({ ...values, role: e.target.value as Role })}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
-        </Select>
-      </Field>
       {result && (
         <Alert tone={result.tone} testId={result.tone === "success" ? "invite-sent" : "form-error"}>
           {result.text}{" "}
@@ -66,9 +69,6 @@ export function InviteForm({ showMailbox }: { showMailbox: boolean }) {
           )}
         </Alert>
       )}
-      <Button type="submit" busy={busy}>
-        Send invitation
-      </Button>
     </form>
   );
 }

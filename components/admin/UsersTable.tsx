@@ -64,7 +64,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                   <Select
                     aria-label={`Role of ${u.name}`}
                     data-testid={`role-${u.email}`}
-                    className="h-8 w-52 text-[13px]"
+                    className="h-8 min-w-52 text-[13px]"
                     value={u.role}
                     disabled={me || busyId === u.id}
                     title={me ? "Another administrator must change your role." : undefined}
@@ -82,7 +82,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                 <Td>
                   <Badge tone={STATUS_TONE[u.status]}>{u.status}</Badge>
                 </Td>
-                <Td className="font-mono text-[12px] text-steel-500">{date(u.lastSignInAt)}</Td>
+                <Td className="whitespace-nowrap font-mono text-[12px] text-steel-500">{date(u.lastSignInAt)}</Td>
                 <Td className="space-x-2 text-right whitespace-nowrap">
                   {u.status === "invited" && (
                     <Button

@@ -2,14 +2,14 @@ import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react
 import { cx } from "./cx";
 
 const control =
-  "block w-full rounded-md border bg-white px-3 text-sm text-ink-900 shadow-inner shadow-ink-950/[0.02] " +
+  "block rounded-md border bg-white px-3 text-sm text-ink-900 shadow-inner shadow-ink-950/[0.02] " +
   "placeholder:text-steel-500 focus:outline-none focus:ring-2 focus:ring-lamp-500/50 focus:border-lamp-600 " +
   "disabled:bg-steel-100 disabled:text-steel-500";
 
 export function Input({ invalid, className, ...rest }: InputHTMLAttributes<HTMLInputElement> & { invalid?: boolean }) {
   return (
     <input
-      className={cx(control, "h-10", invalid ? "border-fail" : "border-steel-300", className)}
+      className={cx(control, "h-10 w-full", invalid ? "border-fail" : "border-steel-300", className)}
       aria-invalid={invalid || undefined}
       {...rest}
     />
@@ -24,7 +24,7 @@ export function Select({
 }: SelectHTMLAttributes<HTMLSelectElement> & { invalid?: boolean }) {
   return (
     <select
-      className={cx(control, "h-10 pr-8", invalid ? "border-fail" : "border-steel-300", className)}
+      className={cx(control, "h-10 pr-8", className?.includes("w-") ? "" : "w-full", invalid ? "border-fail" : "border-steel-300", className)}
       aria-invalid={invalid || undefined}
       {...rest}
     >

@@ -17,10 +17,12 @@ export type Method = (typeof METHODS)[number];
 export interface ApiRouteAccess {
   methods: Partial<Record<Method, Access>>;
   /**
-   * For dynamic segments: the table whose row id fills each segment. The test takes a row of the demo
-   * park (column organisation_id) and expects users of another organisation to get 404 for it.
+   * For dynamic segments: where the test finds a row of the demo park to put in each segment. A table
+   * name means `SELECT id FROM <table> WHERE organisation_id = ? ORDER BY id LIMIT 1`; for rows scoped
+   * through a parent give `{ sql }` with one `?` for the organisation id. Users of another organisation
+   * must get 404 for that row.
    */
-  rows?: Record<string, string>;
+  rows?: Record<string, RowSource>;
   /** Body sent by the test for writes (default `{}`): it must not pass validation, so nothing changes. */
   probeBody?: unknown;
   /** Not for the access test to call (explain why in a comment), e.g. the next-auth catch-all. */
@@ -29,9 +31,11 @@ export interface ApiRouteAccess {
   nonProduction?: boolean;
 }
 
+export type RowSource = string | { sql: string };
+
 export interface PageAccess {
   access: Access;
-  rows?: Record<string, string>;
+  rows?: Record<string, RowSource>;
   nonProduction?: boolean;
   /** Pages that need a query parameter to be useful (they still answer 200 without it). */
   query?: string;

@@ -19,6 +19,11 @@ export function authSecret(env: Readonly<Record<string, string | undefined>> = p
   return DEVELOPMENT_SECRET;
 }
 
+/**
+ * A live deployment, as opposed to a demo, development or test instance. `next start` always runs with
+ * NODE_ENV=production, so the deployment says so itself with TAUTLINE_ENV=production; development tools
+ * (the mailbox page) then answer 404.
+ */
 export function isProductionInstance(env: Readonly<Record<string, string | undefined>> = process.env): boolean {
-  return (env.TAUTLINE_ENV ?? env.NODE_ENV) === "production";
+  return env.TAUTLINE_ENV === "production";
 }

@@ -26,6 +26,9 @@ export interface MailFakeOptions {
 }
 
 export interface MailFake {
+  /** The ports actually bound (useful when 0 was asked for). */
+  smtpPort: number;
+  httpPort: number;
   close(): Promise<void>;
 }
 
@@ -115,9 +118,13 @@ export async function startMailFake(opts: MailFakeOptions): Promise<MailFake> {
     await new Promise<void>((r) => smtp.close(() => r()));
     throw err;
   }
-  log(`mail fake: SMTP on ${host}:${opts.smtpPort}, messages at http://${host}:${opts.httpPort}/messages`);
+  const smtpPort = (smtp.server.address() as { port: number }).port;
+  const httpPort = (http.address() as { port: number }).port;
+  log(`mail fake: SMTP on ${host}:${smtpPort}, messages at http://${host}:${httpPort}/messages`);
 
   return {
+    smtpPort,
+    httpPort,
     async close() {
       await Promise.all([
         new Promise<void>((r) => smtp.close(() => r())),

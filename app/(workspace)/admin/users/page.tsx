@@ -22,16 +22,16 @@ export default async function AdminUsersPage() {
         description="Invite colleagues by e-mail, set what each role may do, and deactivate accounts that should no longer sign in."
         actions={devMail ? <ButtonLink href="/admin/mail" variant="secondary" size="sm">Development mailbox</ButtonLink> : undefined}
       />
-      <div className="grid gap-5 xl:grid-cols-[minmax(0,1fr)_380px]">
+      <div className="space-y-5">
         <Card>
-          <CardHeader title={`${users.length} people`} description="Changes apply at the person's next request." />
-          <UsersTable users={users} meId={admin.id} />
-        </Card>
-        <Card className="self-start">
-          <CardHeader title="Invite someone" description="They get a one-time link to choose a password." />
+          <CardHeader title="Invite someone" description="They get a one-time link to choose a password; it works once, within 72 hours." />
           <CardBody>
             <InviteForm showMailbox={devMail} />
           </CardBody>
+        </Card>
+        <Card>
+          <CardHeader title={`${users.length} people`} description="Role changes and deactivation apply at the person's next request." />
+          <UsersTable users={users} meId={admin.id} />
         </Card>
       </div>
     </>
