@@ -80,6 +80,18 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
   const st = newState(n);
   st.x = s.train.startPosition;
   st.vx = s.train.entrySpeed;
+  const notes: string[] = [];
+  // A train given at rest on the ARD starts settled on the last tooth behind its pawl (in static equilibrium).
+  if (st.vx === 0 && sys.ratchet.enabled) {
+    const back = -sys.train.force(st.x, 0);
+    const tooth = sys.ratchet.toothBehind(st.x - sys.dogOffset);
+    if (back > 0 && tooth === tooth && st.x - sys.dogOffset - tooth <= s.antiRollback.toothSpacing) {
+      st.x = tooth + sys.dogOffset - back / sys.ardStiffness;
+      sys.pawlMax = Math.max(sys.pawlMax, tooth);
+      sys.tooth = tooth;
+      notes.push(`The train starts at rest on the ARD tooth at ${tooth.toFixed(3)} m (front at ${st.x.toFixed(3)} m).`);
+    }
+  }
   sys.updateModes(0, st.w, st.x);
   const aw = new Float64Array(n);
   sys.accel(0, st.w, st.vw, st.x, st.vx, st.y, st.vy, aw);
@@ -178,7 +190,6 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     trainReachedEnd: reachedEnd,
   });
 
-  const notes: string[] = [];
   if (reachedEnd) notes.push(`The train reached the end of the track at t = ${fin.t.toFixed(2)} s; the run ends there.`);
   if (sum.engagementTime === null) notes.push("The dog never engaged a catch point.");
   if (sum.slackSegments > 0) notes.push(`The chain went slack: up to ${sum.slackSegments} segment(s) at once carried no tension.`);

@@ -56,6 +56,9 @@ export interface StepView {
 /** Rider acceleration is smoothed by a first-order low-pass with this time constant (s). */
 export const RIDER_ACCEL_TIME_CONSTANT = 0.05;
 
+/** Forward travel (m) the pawl must make off a tooth before landing on one again counts as an ARD catch. */
+export const ARD_LIFT_OFF = 0.001;
+
 export class SummaryRecorder {
   private sys: LiftSystem;
   peakTension = 0;
@@ -70,6 +73,7 @@ export class SummaryRecorder {
   rollback = 0;
   ardCatches = 0;
   private ardOn = false;
+  private xSinceArd = -Infinity;
   peakArdForce = 0;
   yMax = 0;
   yMin = 0;
@@ -128,8 +132,12 @@ export class SummaryRecorder {
     if (dogF > this.peakDogForce) this.peakDogForce = dogF;
     if (v.x > this.xMax) this.xMax = v.x;
     if (this.xMax - v.x > this.rollback) this.rollback = this.xMax - v.x;
+    // An ARD catch: the pawl comes back onto a tooth after the train had pulled at least
+    // ARD_LIFT_OFF clear of where it now lands (light re-touches of a resting pawl do not count).
     const ard = sys.ardForce;
-    if (ard > 0 && !this.ardOn) this.ardCatches++;
+    if (ard > 0 && !this.ardOn && this.xSinceArd - v.x > ARD_LIFT_OFF) this.ardCatches++;
+    if (ard > 0) this.xSinceArd = v.x;
+    else if (v.x > this.xSinceArd) this.xSinceArd = v.x;
     this.ardOn = ard > 0;
     if (ard > this.peakArdForce) this.peakArdForce = ard;
     if (v.y > this.yMax) this.yMax = v.y;
