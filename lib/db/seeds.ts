@@ -1,6 +1,7 @@
 import type { Sequelize } from "sequelize";
 import { demoAccountsSeed } from "@/lib/auth/seed";
 import { standardChainsSeed } from "@/lib/chains/seed";
+import { demoDesignSeed, demoRunsSeed, interruptedRunsSeed } from "@/lib/demo/seed";
 
 /** One idempotent seed step: running it twice leaves the same rows as running it once. */
 export interface SeedStep {
@@ -12,4 +13,7 @@ export interface SeedStep {
 export const seedSteps: SeedStep[] = [
   demoAccountsSeed,
   standardChainsSeed,
+  demoDesignSeed,
+  demoRunsSeed,
+  interruptedRunsSeed,
 ];

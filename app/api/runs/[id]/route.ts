@@ -1,0 +1,23 @@
+import { NextResponse } from "next/server";
+import { route } from "@/lib/http/route";
+import { requirePermission } from "@/lib/auth/session";
+import { deleteRun, getRun } from "@/lib/runs/service";
+import { idFrom, type IdParams } from "@/lib/runs/http";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+/** Status, progress, summary and the stored inputs of one run (poll this, or follow /events). */
+export const GET = route<IdParams>(async (_req, ctx) => {
+  const user = await requirePermission("run:read");
+  const run = await getRun(user, await idFrom(ctx, "No such run."));
+  return NextResponse.json({ run });
+});
+
+/** Deletes a run: DELETE /api/runs/{id}?version={the version you loaded} (409 when stale). */
+export const DELETE = route<IdParams>(async (req, ctx) => {
+  const user = await requirePermission("run:delete");
+  const version = new URL(req.url).searchParams.get("version");
+  await deleteRun(user, await idFrom(ctx, "No such run."), version);
+  return new NextResponse(null, { status: 204 });
+});

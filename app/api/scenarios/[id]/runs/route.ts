@@ -1,0 +1,28 @@
+import { NextResponse } from "next/server";
+import { route } from "@/lib/http/route";
+import { parseQuery } from "@/lib/http/request";
+import { requirePermission } from "@/lib/auth/session";
+import { assertOwnScenario, listRuns, startRun } from "@/lib/runs/service";
+import { listRunsQuerySchema } from "@/lib/runs/schema";
+import { idFrom, parseStartRunBody, type IdParams } from "@/lib/runs/http";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+/** Runs of one scenario, newest first: ?page=&pageSize=&status=&sort=newest|oldest */
+export const GET = route<IdParams>(async (req, ctx) => {
+  const user = await requirePermission("run:read");
+  const scenarioId = await idFrom(ctx, "No such scenario.");
+  const query = parseQuery(req, listRunsQuerySchema);
+  return NextResponse.json(await listRuns(user, scenarioId, query));
+});
+
+/** Starts a run off the request thread; answers 202 with the queued run (503 + Retry-After when the queue is full). */
+export const POST = route<IdParams>(async (req, ctx) => {
+  const user = await requirePermission("run:start");
+  const scenarioId = await idFrom(ctx, "No such scenario.");
+  await assertOwnScenario(user, scenarioId);
+  const body = await parseStartRunBody(req);
+  const run = await startRun(user, scenarioId, body);
+  return NextResponse.json({ run }, { status: 202, headers: { Location: run.links.self } });
+});

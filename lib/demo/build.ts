@@ -1,0 +1,96 @@
+/**
+ * Turns the demo park's definitions (park.ts) into validated rows and engine scenarios, without a
+ * database: the seed stores exactly these, and the public/scenarios/*.json files are exactly these.
+ */
+import { liftRevisionSchema, type LiftRevisionData } from "@/lib/lifts/schema";
+import { trainInputSchema, type TrainData } from "@/lib/trains/schema";
+import { engineScenarioInput } from "@/lib/scenarios/resolve";
+import { parseScenario, runSettingsSchema, type Scenario as EngineScenario } from "@/sim/schema";
+import { DEMO_SCENARIOS, demoLift, demoTrain, type DemoLift, type DemoScenario } from "./park";
+
+function fail(what: string, issues: { path: string; message: string }[]): never {
+  throw new Error(`Demo ${what} is invalid: ${issues.map((i) => `${i.path}: ${i.message}`).join("; ")}`);
+}
+
+function zodIssues(e: { issues: { path: PropertyKey[]; message: string }[] }) {
+  return e.issues.map((i) => ({ path: i.path.map(String).join("."), message: i.message }));
+}
+
+/** Revision `number` (1-based) of a demo lift, validated as the lift API validates a revision. */
+export function demoRevisionData(lift: DemoLift, number: number): LiftRevisionData {
+  const r = lift.revisions[number - 1];
+  if (!r) throw new Error(`Demo lift ${lift.key} has no revision ${number}`);
+  const parsed = liftRevisionSchema.safeParse({
+    name: lift.name,
+    site: lift.site,
+    notes: lift.notes,
+    chainSpecId: null,
+    lift: r.geometry,
+    chain: r.chain,
+    drive: r.drive,
+    takeUp: r.takeUp,
+    antiRollback: r.antiRollback,
+    limits: r.limits ?? {},
+  });
+  if (!parsed.success) fail(`lift ${lift.key} revision ${number}`, zodIssues(parsed.error));
+  return parsed.data;
+}
+
+export function demoTrainData(key: string): TrainData {
+  const t = demoTrain(key);
+  const parsed = trainInputSchema.safeParse({
+    name: t.name,
+    notes: t.notes,
+    cars: t.cars,
+    carMassEmpty: t.carMassEmpty,
+    seatsPerCar: t.seatsPerCar,
+    riderMass: t.riderMass,
+    carLength: t.carLength,
+    dogOffset: t.dogOffset,
+    rollingResistance: t.rollingResistance,
+    dragArea: t.dragArea,
+  });
+  if (!parsed.success) fail(`train ${key}`, zodIssues(parsed.error));
+  return parsed.data;
+}
+
+/** The scenario row's own fields (run settings with the engine's defaults filled in). */
+export function demoScenarioFields(s: DemoScenario) {
+  const run = runSettingsSchema.safeParse(s.runSettings);
+  if (!run.success) fail(`scenario ${s.key} run settings`, zodIssues(run.error));
+  return {
+    name: s.name,
+    notes: s.notes,
+    loading: s.loading,
+    riderCount: s.loading === "riders" ? (s.riderCount ?? 0) : null,
+    entrySpeed: s.entrySpeed,
+    startPosition: s.startPosition,
+    runSettings: run.data as unknown as Record<string, unknown>,
+  };
+}
+
+/** The full, validated `tautline-scenario/1` object of a demo scenario. */
+export function demoEngineScenario(s: DemoScenario): EngineScenario {
+  const rev = demoRevisionData(demoLift(s.lift), s.revision);
+  const input = engineScenarioInput(
+    demoScenarioFields(s),
+    {
+      geometry: rev.lift,
+      chain: rev.chain,
+      drive: rev.drive,
+      takeUp: rev.takeUp,
+      antiRollback: rev.antiRollback,
+      limits: rev.limits,
+    },
+    demoTrainData(s.train),
+  );
+  const parsed = parseScenario(input);
+  if (!parsed.ok) fail(`scenario ${s.key}`, parsed.issues);
+  return parsed.scenario;
+}
+
+export function demoScenario(key: string): DemoScenario {
+  const s = DEMO_SCENARIOS.find((x) => x.key === key);
+  if (!s) throw new Error(`No demo scenario ${key}`);
+  return s;
+}

@@ -1,0 +1,56 @@
+import { z } from "zod";
+import { runSettingsSchema } from "@/sim/schema";
+import { RUN_STATUSES } from "./status";
+
+const run = runSettingsSchema.shape;
+
+/**
+ * Solver settings a run may override on top of its scenario's `run` section. The bounds are the
+ * engine's own (sim/schema.ts); `frameBudget` and `budgetSeconds` go to simulate() as options.
+ */
+export const startRunSchema = z
+  .object({
+    duration: run.duration.optional(),
+    segments: run.segments.unwrap().optional(),
+    integrator: run.integrator.unwrap().optional(),
+    stepFraction: run.stepFraction.unwrap().optional(),
+    tolerance: run.tolerance.unwrap().optional(),
+    frameBudget: z
+      .number({ error: "frameBudget must be a whole number of frames" })
+      .int({ error: "frameBudget must be a whole number of frames" })
+      .min(10, { error: "frameBudget must be at least 10 (frames)" })
+      .max(5000, { error: "frameBudget must be at most 5000 (frames)" })
+      .optional(),
+    budgetSeconds: z
+      .number({ error: "budgetSeconds must be a number (s)" })
+      .gt(0, { error: "budgetSeconds must be greater than 0 (s)" })
+      .max(600, { error: "budgetSeconds must be at most 600 (s)" })
+      .optional(),
+  })
+  .strict();
+
+export type StartRunInput = z.output<typeof startRunSchema>;
+
+/** Overrides that belong to the scenario's `run` section (the rest are simulate() options). */
+export const RUN_SECTION_OVERRIDES = ["duration", "segments", "integrator", "stepFraction", "tolerance"] as const;
+
+const intParam = (name: string, min: number, max: number, fallback: number) =>
+  z.coerce
+    .number({ error: `${name} must be a whole number` })
+    .int({ error: `${name} must be a whole number` })
+    .min(min, { error: `${name} must be at least ${min}` })
+    .max(max, { error: `${name} must be at most ${max}` })
+    .default(fallback);
+
+export const listRunsQuerySchema = z.object({
+  page: intParam("page", 1, 100_000, 1),
+  pageSize: intParam("pageSize", 1, 100, 20),
+  status: z.enum(RUN_STATUSES, { error: `status must be one of ${RUN_STATUSES.join(", ")}` }).optional(),
+  sort: z.enum(["newest", "oldest"], { error: "sort must be newest or oldest" }).default("newest"),
+});
+
+export type ListRunsQuery = z.output<typeof listRunsQuerySchema>;
+
+export const resultQuerySchema = z.object({
+  format: z.enum(["json", "binary"], { error: "format must be json or binary" }).optional(),
+});

@@ -1,0 +1,225 @@
+import { Op, type WhereOptions } from "sequelize";
+import { getModels } from "@/models";
+import type { Run } from "@/models/Run";
+import { ownRowOr404, type CurrentUser } from "@/lib/auth/session";
+import { recordAudit } from "@/lib/audit/record";
+import { engineScenarioInput } from "@/lib/scenarios/resolve";
+import { badRequest, conflict, HttpError, notFound, unavailable } from "@/lib/http/errors";
+import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
+import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
+import { runConfig } from "./config";
+import { decodeResult } from "./result-format";
+import { abortRun, dispatchRun, type SolverSettings } from "./runner";
+import { RUNNER_ID } from "./runner-id";
+import { recoverOnce } from "./recover";
+import { RUN_SECTION_OVERRIDES, type ListRunsQuery, type StartRunInput } from "./schema";
+import { ACTIVE_RUN_STATUSES, isFinished } from "./status";
+import { json, toRunView, type RunView } from "./serialize";
+
+type Actor = Pick<CurrentUser, "id" | "organisationId">;
+
+const RUN_NOT_FOUND = "No such run.";
+const SCENARIO_NOT_FOUND = "No such scenario.";
+
+/** The scenario, its pinned lift revision and train as one validated engine scenario, with overrides applied. */
+export async function resolveRunInputs(
+  user: Actor,
+  scenarioId: number,
+  overrides: StartRunInput,
+): Promise<{ scenarioId: number; liftRevisionId: number; inputs: EngineScenario }> {
+  const { Scenario, LiftRevision, Train } = getModels();
+  const scenario = ownRowOr404(await Scenario.findByPk(scenarioId), user, SCENARIO_NOT_FOUND);
+  if (scenario.archivedAt) throw conflict("This scenario is archived; restore it before starting a run.");
+  const [revision, train] = await Promise.all([
+    LiftRevision.findByPk(scenario.liftRevisionId),
+    Train.findByPk(scenario.trainId),
+  ]);
+  if (!revision || !train) throw notFound("The scenario's lift revision or train is missing.");
+  const resolved = engineScenarioInput(scenario, revision, train);
+  const run = { ...(resolved.run as Record<string, unknown>) };
+  for (const k of RUN_SECTION_OVERRIDES) if (overrides[k] !== undefined) run[k] = overrides[k];
+  const parsed = parseScenario({ ...resolved, run });
+  if (!parsed.ok) {
+    throw badRequest("The scenario cannot be run as it stands: fix these fields first.", parsed.issues);
+  }
+  return { scenarioId: scenario.id, liftRevisionId: scenario.liftRevisionId, inputs: parsed.scenario };
+}
+
+function reserveSlot(): Slot {
+  try {
+    return getJobPool().reserve();
+  } catch (err) {
+    if (err instanceof QueueFullError) {
+      throw unavailable("Every run worker is busy and the queue is full; try again shortly.", err.retryAfterSeconds);
+    }
+    throw err;
+  }
+}
+
+/**
+ * Accepts a run: validates the inputs, holds a place in the job pool (503 when full, nothing stored),
+ * stores the run as queued with its audit entry, and hands it to the pool. Answers at once.
+ */
+export async function startRun(user: Actor, scenarioId: number, body: StartRunInput): Promise<RunView> {
+  await recoverOnce();
+  const { scenarioId: sid, liftRevisionId, inputs } = await resolveRunInputs(user, scenarioId, body);
+  const solver: SolverSettings = {
+    budgetSeconds: body.budgetSeconds ?? runConfig().defaultBudgetSeconds,
+    ...(body.frameBudget !== undefined ? { frameBudget: body.frameBudget } : {}),
+  };
+  const slot = reserveSlot();
+  let run: Run;
+  try {
+    const { Run } = getModels();
+    run = await Run.sequelize!.transaction(async (transaction) => {
+      const row = await Run.create(
+        {
+          organisationId: user.organisationId,
+          scenarioId: sid,
+          liftRevisionId,
+          startedBy: user.id,
+          inputs: inputs as unknown as Record<string, unknown>,
+          solver: { ...solver, run: inputs.run },
+          runner: RUNNER_ID,
+          queuedAt: new Date(),
+        },
+        { transaction },
+      );
+      await recordAudit({
+        transaction,
+        actor: user,
+        entity: "run",
+        entityId: row.id,
+        action: "create",
+        before: null,
+        after: { scenarioId: sid, liftRevisionId, status: "queued", solver: row.solver },
+      });
+      return row;
+    });
+  } catch (err) {
+    slot.release();
+    throw err;
+  }
+  void dispatchRun(run, solver, slot);
+  return toRunView(run);
+}
+
+/** 404 unless the scenario exists in the user's organisation (checked before the body is read). */
+export async function assertOwnScenario(user: Actor, scenarioId: number): Promise<void> {
+  const { Scenario } = getModels();
+  ownRowOr404(await Scenario.findByPk(scenarioId, { attributes: ["id", "organisationId"] }), user, SCENARIO_NOT_FOUND);
+}
+
+/** Loads a run of the user's organisation (404 for another organisation's). */
+export async function findOwnRun(user: Actor, runId: number, opts: { withResult?: boolean } = {}): Promise<Run> {
+  const { Run } = getModels();
+  const model = opts.withResult ? Run.scope("withResult") : Run;
+  return ownRowOr404(await model.findByPk(runId), user, RUN_NOT_FOUND);
+}
+
+export async function getRun(user: Actor, runId: number): Promise<RunView> {
+  await recoverOnce();
+  return toRunView(await findOwnRun(user, runId), { inputs: true });
+}
+
+export interface RunPage {
+  runs: RunView[];
+  page: number;
+  pageSize: number;
+  total: number;
+}
+
+export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery): Promise<RunPage> {
+  const { Run } = getModels();
+  await recoverOnce();
+  await assertOwnScenario(user, scenarioId);
+  const where: WhereOptions = { organisationId: user.organisationId, scenarioId, ...(q.status ? { status: q.status } : {}) };
+  const { rows, count } = await Run.findAndCountAll({
+    where,
+    attributes: { exclude: ["result", "inputs"] },
+    order: [["id", q.sort === "oldest" ? "ASC" : "DESC"]],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
+  return { runs: rows.map((r) => toRunView(r)), page: q.page, pageSize: q.pageSize, total: count };
+}
+
+/** Cancels a queued or running run; a finished one answers 409. */
+export async function cancelRun(user: Actor, runId: number): Promise<RunView> {
+  const { Run } = getModels();
+  const run = await findOwnRun(user, runId);
+  if (isFinished(run.status)) throw conflict(`The run is already ${run.status}.`);
+  const before = { status: run.status, progress: run.progress };
+  const changed = await Run.sequelize!.transaction(async (transaction) => {
+    const [count] = await Run.update(
+      { status: "cancelled", finishedAt: new Date(), version: Run.sequelize!.literal("version + 1") as never },
+      { where: { id: run.id, status: { [Op.in]: [...ACTIVE_RUN_STATUSES] } }, transaction },
+    );
+    if (count) {
+      await recordAudit({ transaction, actor: user, entity: "run", entityId: run.id, action: "update", before, after: { status: "cancelled" } });
+    }
+    return count > 0;
+  });
+  // Stop the worker (ends its thread if the task is running, drops it if it waits).
+  await abortRun(run.id);
+  const fresh = await findOwnRun(user, run.id);
+  if (!changed && fresh.status !== "cancelled") throw conflict(`The run is already ${fresh.status}.`);
+  return toRunView(fresh);
+}
+
+/**
+ * Deletes a run (cancelling it first if it is still active). `version` is the run version the caller saw
+ * (query ?version=): a missing one is a 400, a stale one a 409, so nobody deletes a run they have not seen.
+ */
+export async function deleteRun(user: Actor, runId: number, version: string | null): Promise<void> {
+  const { Run } = getModels();
+  const run = await findOwnRun(user, runId);
+  if (version === null || !/^\d{1,10}$/.test(version)) {
+    throw badRequest("Say which version of the run you are deleting.", [
+      { path: "version", message: "version is required (the run's current version, a whole number)" },
+    ]);
+  }
+  if (Number(version) !== run.version) {
+    throw conflict(`The run has changed since you loaded it (version ${run.version}, not ${version}); reload and try again.`);
+  }
+  if (!isFinished(run.status)) await abortRun(run.id);
+  await Run.sequelize!.transaction(async (transaction) => {
+    await Run.destroy({ where: { id: run.id }, transaction });
+    await recordAudit({
+      transaction,
+      actor: user,
+      entity: "run",
+      entityId: run.id,
+      action: "delete",
+      before: toRunView(run),
+      after: null,
+    });
+  });
+}
+
+export interface RunResult {
+  runId: number;
+  format: string;
+  summary: Record<string, unknown> | null;
+  /** series, frames, notes as the engine produced them (float arrays at f32 precision). */
+  result: Record<string, unknown>;
+}
+
+/** The stored result of a finished run: the raw blob, or decoded for JSON. 409 while there is none. */
+export async function getRunResultBlob(user: Actor, runId: number): Promise<{ run: Run; blob: Buffer }> {
+  const run = await findOwnRun(user, runId, { withResult: true });
+  if (run.status !== "done" || !run.result) {
+    throw new HttpError(409, run.status === "done" ? "This run stored no result." : `The run is ${run.status}; it has no result yet.`);
+  }
+  return { run, blob: run.result };
+}
+
+export async function getRunResult(user: Actor, runId: number): Promise<RunResult> {
+  const { run, blob } = await getRunResultBlob(user, runId);
+  return {
+    runId: run.id,
+    format: run.resultFormat ?? "",
+    summary: json(run.summary ?? null),
+    result: decodeResult(blob, { arrays: "plain" }) as Record<string, unknown>,
+  };
+}
