@@ -113,11 +113,11 @@ export const chainSpecUpdateSchema = z.object({ version: versionField }).loose()
 
 export async function updateChainSpec(actor: Actor, id: number, input: unknown): Promise<ChainSpecView> {
   assertCan(actor, "design:write");
-  const { version, ...changes } = validate(chainSpecUpdateSchema, input);
   const { ChainSpec } = getModels();
   return getSequelize().transaction(async (transaction) => {
     const row = ownOr404(await ChainSpec.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE }), actor, "Chain", true);
     if (row.organisationId === null) throw readOnlyStandard();
+    const { version, ...changes } = validate(chainSpecUpdateSchema, input);
     assertNotArchived(row, "chain");
     const current = {
       designation: row.designation,

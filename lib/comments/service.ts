@@ -86,10 +86,10 @@ async function assertRunOfScenario(runId: number, scenarioId: number, transactio
 
 export async function createComment(actor: Actor, scenarioId: number, input: unknown): Promise<CommentView> {
   assertCan(actor, "comment:write");
-  const data = validate(commentInputSchema, input);
   const { Comment, User } = getModels();
   return getSequelize().transaction(async (transaction) => {
     const id = await ownScenarioId(actor, scenarioId, transaction);
+    const data = validate(commentInputSchema, input);
     if (data.runId) await assertRunOfScenario(data.runId, id, transaction);
     const row = await Comment.create(
       { organisationId: actor.organisationId, scenarioId: id, runId: data.runId ?? null, userId: actor.id, body: data.body },
@@ -112,10 +112,10 @@ async function loadOwnComment(actor: Actor, scenarioId: number, commentId: numbe
 /** Only the author edits a comment (a review record is the author's own words). */
 export async function updateComment(actor: Actor, scenarioId: number, commentId: number, input: unknown): Promise<CommentView> {
   assertCan(actor, "comment:write");
-  const data = validate(commentUpdateSchema, input);
   const { User } = getModels();
   return getSequelize().transaction(async (transaction) => {
     const row = await loadOwnComment(actor, scenarioId, commentId, transaction);
+    const data = validate(commentUpdateSchema, input);
     if (row.userId !== actor.id) throw forbidden("Only the author may edit a comment.");
     const author = await User.findByPk(actor.id, { transaction });
     const before = commentView(row, author);

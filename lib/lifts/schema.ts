@@ -55,9 +55,10 @@ export const liftChainInputSchema = chainSchema.partial().extend({
 });
 
 const envelope = {
-  name: z.unknown(),
-  site: z.unknown(),
-  notes: z.unknown(),
+  // Checked with the revision's own rules once merged with the current revision (see build.ts).
+  name: z.unknown().optional(),
+  site: z.unknown().optional(),
+  notes: z.unknown().optional(),
   /** Why this revision was made; shown in the revision list. */
   changeSummary: optionalText("changeSummary", 500),
   lift: sectionObject("lift"),

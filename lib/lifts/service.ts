@@ -230,10 +230,11 @@ export interface LiftUpdateResult extends LiftView {
  */
 export async function updateLift(actor: Actor, id: number, input: unknown): Promise<LiftUpdateResult> {
   assertCan(actor, "design:write");
-  const { version, changeSummary, ...changes } = validate(liftUpdateBodySchema, input);
   const { LiftRevision } = getModels();
   return getSequelize().transaction(async (transaction) => {
+    // Another organisation's lift is 404 whatever the body says, so the row comes first.
     const lift = await loadOwnLift(actor, id, transaction, true);
+    const { version, changeSummary, ...changes } = validate(liftUpdateBodySchema, input);
     assertNotArchived(lift, "lift");
     const current = await currentRevisionOf(lift, transaction);
     const before = revisionData(current);

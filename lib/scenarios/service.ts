@@ -247,9 +247,9 @@ function assertNotFrozen(s: Scenario): void {
  */
 export async function updateScenario(actor: Actor, id: number, input: unknown): Promise<ScenarioView> {
   assertCan(actor, "design:write");
-  const { version, ...changes } = validate(scenarioUpdateSchema, input);
   return getSequelize().transaction(async (transaction) => {
     const row = await loadOwnScenario(actor, id, transaction, true);
+    const { version, ...changes } = validate(scenarioUpdateSchema, input);
     assertNotFrozen(row);
     assertNotArchived(row, "scenario");
     const current: Record<string, unknown> = {

@@ -98,10 +98,10 @@ export const trainUpdateSchema = z.object({ version: versionField }).loose();
 /** Partial update: given fields replace, the merged train must pass the full rules. */
 export async function updateTrain(actor: Actor, id: number, input: unknown): Promise<TrainView> {
   assertCan(actor, "design:write");
-  const { version, ...changes } = validate(trainUpdateSchema, input);
   const { Train } = getModels();
   return getSequelize().transaction(async (transaction) => {
     const row = ownOr404(await Train.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE }), actor, "Train");
+    const { version, ...changes } = validate(trainUpdateSchema, input);
     assertNotArchived(row, "train");
     const data = validate(trainInputSchema, { ...trainData(row), ...changes });
     assertVersion(row.version, version, "train");

@@ -55,6 +55,14 @@ describe("lift life cycle", () => {
     expect(audit.items[1].changes.some((c) => c.path === "currentRevision.lift.angle")).toBe(true);
   });
 
+  it("takes a lift without site and notes (optional fields)", async () => {
+    const { site: _s, notes: _n, ...body } = liftBody({ name: "Minimal lift" });
+    void _s;
+    void _n;
+    const lift = await createLift(org.as.engineer, body);
+    expect([lift.site, lift.notes, lift.currentRevision.site]).toEqual([null, null, null]);
+  });
+
   it("a save that changes nothing writes no revision", async () => {
     const eng = org.as.engineer;
     const lift = await createLift(eng, liftBody({ name: "No-op lift" }));
