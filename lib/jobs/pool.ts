@@ -67,14 +67,9 @@ export class JobPool {
     }
   }
 
-  stats(): { held: number; capacity: number; running: number; waiting: number; threads: number } {
-    return {
-      held: this.held,
-      capacity: this.capacity,
-      running: this.piscina.utilization > 0 ? Math.min(this.held, this.config.workers) : 0,
-      waiting: this.piscina.queueSize,
-      threads: this.piscina.threads.length,
-    };
+  /** Places held (running + waiting), the capacity, tasks piscina has not started yet, live threads. */
+  stats(): { held: number; capacity: number; waiting: number; threads: number } {
+    return { held: this.held, capacity: this.capacity, waiting: this.piscina.queueSize, threads: this.piscina.threads.length };
   }
 
   async close(): Promise<void> {

@@ -1,5 +1,5 @@
 import { execFileSync } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, statSync } from "node:fs";
 import path from "node:path";
 
 /** The project folder: `next start`, `next dev`, vitest and the seed all run from it. */
@@ -14,14 +14,31 @@ export function workerFile(): string {
 
 const state = globalThis as unknown as { tautlineWorkerBundled?: boolean };
 
+function mtime(file: string): number {
+  try {
+    return statSync(file).mtimeMs;
+  } catch {
+    return 0;
+  }
+}
+
+/** Whether the bundle must be (re)built before the pool starts. */
+function needsBuild(file: string): boolean {
+  if (process.env.JOB_WORKER_FILE) return false; // given from outside: use as is
+  if (!existsSync(file)) return true;
+  // Outside production: once per process, so `npm run dev` and the tests always run the current engine.
+  if (process.env.NODE_ENV !== "production") return !state.tautlineWorkerBundled;
+  // Production: rebuild when the bundle is older than the Next build it serves (npm start rebuilds Next).
+  return mtime(file) < mtime(path.join(projectRoot(), ".next", "BUILD_ID"));
+}
+
 /**
- * Makes sure the worker bundle exists. In production it is built by `npm run build`; outside production
- * it is rebuilt once per process, so `npm run dev` and the tests always run the current engine code.
+ * Makes sure the worker bundle exists and is current; returns its absolute path. `npm run build`
+ * bundles it before `next build`; this covers every other way the server is started.
  */
 export function ensureWorkerBundle(): string {
   const file = workerFile();
-  const rebuild = process.env.NODE_ENV !== "production" && !process.env.JOB_WORKER_FILE && !state.tautlineWorkerBundled;
-  if (rebuild || !existsSync(file)) {
+  if (needsBuild(file)) {
     const script = path.join(projectRoot(), "lib", "jobs", "build-worker.mjs");
     execFileSync(process.execPath, [script, file], { stdio: ["ignore", "ignore", "inherit"], timeout: 60_000 });
   }
