@@ -15,7 +15,13 @@ describe("tautline-result/1 container", () => {
 
   it("round-trips structure, strings and numbers; floats at f32 precision", () => {
     const blob = encodeResult(sample);
-    const out = decodeResult(blob) as typeof sample & { series: { t: Float32Array; speed: Float32Array } };
+    const out = decodeResult(blob) as {
+      series: { t: Float32Array; speed: Float32Array; labels: string[] };
+      frames: { tension: Float32Array[] };
+      notes: unknown;
+      steps: Float64Array;
+      count: number;
+    };
     expect(out.series.labels).toEqual(["t", "speed"]);
     expect(out.notes).toEqual(sample.notes);
     expect(out.count).toBe(3);
@@ -27,7 +33,7 @@ describe("tautline-result/1 container", () => {
     }
     expect(Array.from(out.frames.tension[0]!)).toEqual([1, 2, 3, 4, 5, 6, 7, 8]);
     // Whole-number arrays are kept exactly (f64).
-    expect(Array.from(out.steps as unknown as Float64Array)).toEqual(sample.steps);
+    expect(Array.from(out.steps)).toEqual(sample.steps);
   });
 
   it("documents its layout: gzip around magic TLR1, a header length and a JSON header", () => {
