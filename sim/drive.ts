@@ -7,9 +7,10 @@ export interface DriveMotion {
 
 export function driveMotion(speed: number, rampTime: number): DriveMotion {
   if (rampTime <= 0) {
+    // A sudden start: full speed from t = 0 on (the chain stations keep their absolute rest at t = 0).
     return {
       displacement: (t) => (t > 0 ? speed * t : 0),
-      velocity: (t) => (t > 0 ? speed : 0),
+      velocity: (t) => (t >= 0 ? speed : 0),
       acceleration: () => 0,
     };
   }

@@ -92,6 +92,9 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
       notes.push(`The train starts at rest on the ARD tooth at ${tooth.toFixed(3)} m (front at ${st.x.toFixed(3)} m).`);
     }
   }
+  // The chain stands still at t = 0; relative to drive transport that is ẇ = −v_d(0) (non-zero for a sudden start).
+  const vd0 = sys.drive.velocity(0);
+  for (let i = 0; i < n; i++) st.vw[i] = i === sys.loop.driveNode ? 0 : -vd0;
   sys.updateModes(0, st.w, st.x);
   const aw = new Float64Array(n);
   sys.accel(0, st.w, st.vw, st.x, st.vx, st.y, st.vy, aw);
@@ -194,7 +197,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
   if (sum.engagementTime === null) notes.push("The dog never engaged a catch point.");
   if (sum.slackSegments > 0) notes.push(`The chain went slack: up to ${sum.slackSegments} segment(s) at once carried no tension.`);
   if (sum.takeUpEndStop) notes.push("The take-up hit an end stop.");
-  if (sum.rollbackDistance > s.antiRollback.toothSpacing)
+  if (sum.rollbackDistance - sum.peakArdCompression > s.antiRollback.toothSpacing)
     notes.push(
       `The train rolled back ${sum.rollbackDistance.toFixed(3)} m, more than one tooth spacing (${s.antiRollback.toothSpacing} m): an anti-rollback failure in this model.`,
     );

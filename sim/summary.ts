@@ -43,6 +43,8 @@ export interface Summary {
   dogReleaseTime: number | null;
   trainReachedEnd: boolean;
   maxTrainSpeed: number;
+  /** Largest compression of the ARD contact, m (peak ARD force / contact stiffness): part of rollbackDistance. */
+  peakArdCompression: number;
 }
 
 export interface StepView {
@@ -234,6 +236,7 @@ export class SummaryRecorder {
       dogReleaseTime: this.dogReleaseTime,
       trainReachedEnd: extra.trainReachedEnd,
       maxTrainSpeed: this.maxTrainSpeed,
+      peakArdCompression: this.peakArdForce / sys.ardStiffness,
     };
   }
 }

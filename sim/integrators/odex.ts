@@ -211,7 +211,7 @@ export function integrateOdex(
         stop = true;
         return false;
       }
-      if ((steps & 63) === 0) hooks.check(steps, x);
+      if ((steps & 15) === 0) hooks.check(steps, x);
       return true;
     });
     if (stop) {
