@@ -6,6 +6,7 @@ import { errorMessage, say } from "./lib/log";
 
 async function main(): Promise<number> {
   const life = new Lifecycle();
+  life.watchLauncher();
   try {
     const stack = demoStack();
     await bringUpDatabase(stack, life);

@@ -7,6 +7,7 @@ import { errorMessage, say, warn } from "./lib/log";
 
 async function main(): Promise<number> {
   const life = new Lifecycle();
+  life.watchLauncher();
   try {
     const stack = demoStack();
     const env = stackEnv(stack);

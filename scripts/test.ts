@@ -109,6 +109,7 @@ function takeLock(stack: Stack, life: Lifecycle): void {
 async function main(): Promise<boolean> {
   const parts = parseParts(process.argv.slice(2));
   const life = new Lifecycle();
+  life.watchLauncher();
   const h = new Harness();
   const stack = testStack();
   const env = stackEnv(stack);

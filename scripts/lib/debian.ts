@@ -53,8 +53,7 @@ export async function ensureDebianPackages(needs: DebianNeed[]): Promise<void> {
   const code = await runLive("apt-get", [...lock, "install", "-y", "-q", ...pkgs], { env });
   const still = missing(todo);
   if (code !== 0 || still.length > 0) {
-    throw new MissingPackageError(
-      `Installing ${pkgs.join(", ")} failed (apt-get exit ${code}). Run yourself:\n  ${command}`,
-    );
+    const why = code !== 0 ? `apt-get exit ${code}` : `still missing: ${still.flatMap((n) => n.binaries).join(", ")}`;
+    throw new MissingPackageError(`Installing ${pkgs.join(", ")} failed (${why}). Run yourself:\n  ${command}`);
   }
 }

@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process";
+import fs from "node:fs";
 import { errorMessage, say, warn } from "./log";
 
 /**
@@ -30,6 +31,26 @@ export class Lifecycle {
         void this.stop().then(() => process.exit(sig === "SIGINT" ? 130 : 143));
       });
     }
+  }
+
+  /**
+   * `kill <npm pid>` ends npm and the `sh -c` it runs, but the signal never reaches us (we run under
+   * tsx below that shell). So watch the process above tsx: once it is gone, stop as for SIGTERM.
+   */
+  watchLauncher(): void {
+    const launcher = parentOf(process.ppid);
+    if (!launcher || launcher <= 1) return;
+    const timer = setInterval(() => {
+      if (this.interrupted) return clearInterval(timer);
+      if (parentOf(process.ppid) !== launcher) {
+        clearInterval(timer);
+        this.interrupted = true;
+        this.interruptedAt = Date.now();
+        say("the launching process ended: stopping");
+        void this.stop().then(() => process.exit(143));
+      }
+    }, 1_000);
+    timer.unref();
   }
 
   onStop(name: string, stop: () => Promise<unknown>): void {
@@ -71,7 +92,9 @@ export class Lifecycle {
         warn(`stopping ${s.name}: ${errorMessage(err)}`);
       }
     }
+    const any = this.stoppers.length > 0;
     this.stoppers = [];
+    if (any) say("stopped");
   }
 }
 
@@ -86,4 +109,14 @@ export function stopChild(child: ChildProcess, graceMs = 10_000): Promise<void> 
     });
     child.kill("SIGTERM");
   });
+}
+
+/** Parent pid of a process from /proc (null when it is gone). */
+function parentOf(pid: number): number | null {
+  try {
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, "utf8");
+    return Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]);
+  } catch {
+    return null;
+  }
 }
