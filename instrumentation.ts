@@ -1,12 +1,7 @@
-import { authSecret } from "@/lib/auth/secret";
-
 /** Runs once when the server starts: a production server without NEXTAUTH_SECRET refuses to start. */
 export async function register(): Promise<void> {
-  if (process.env.NEXT_RUNTIME !== "nodejs") return;
-  try {
-    authSecret();
-  } catch (err) {
-    console.error(`\n${(err as Error).message}\n`);
-    process.exit(1);
+  if (process.env.NEXT_RUNTIME === "nodejs") {
+    const { assertAuthConfigured } = await import("./lib/auth/startup");
+    assertAuthConfigured();
   }
 }

@@ -7,6 +7,7 @@ import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
 import { inviteUserSchema } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
+import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input, Select } from "@/components/ui/Field";
 import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
 
@@ -38,7 +39,7 @@ export function InviteForm({ showMailbox }: { showMailbox: boolean }) {
   }
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" data-testid="invite-form">
+    <ClientForm onSubmit={submit} testId="invite-form">
       <div className="grid items-start gap-4 md:grid-cols-[minmax(0,1.2fr)_minmax(0,1fr)_220px_auto]">
         <Field label="E-mail" name="email" error={errors.email}>
           <Input id="email" type="email" autoComplete="off" value={values.email} invalid={!!errors.email} onChange={(e) => setValues({ ...values, email: e.target.value })} />
@@ -69,6 +70,6 @@ export function InviteForm({ showMailbox }: { showMailbox: boolean }) {
           )}
         </Alert>
       )}
-    </form>
+    </ClientForm>
   );
 }

@@ -10,6 +10,7 @@ import { Button } from "@/components/ui/Button";
 import { Select } from "@/components/ui/Field";
 import { sendJson } from "@/components/ui/form-errors";
 import { Table, Td, Th, THead, Tr } from "@/components/ui/Table";
+import { useHydrated } from "@/components/ui/ClientForm";
 
 const STATUS_TONE: Record<UserSummary["status"], Tone> = { active: "pass", invited: "caution", deactivated: "neutral" };
 
@@ -19,6 +20,7 @@ function date(iso: string | null): string {
 
 export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number }) {
   const router = useRouter();
+  const hydrated = useHydrated();
   const [busyId, setBusyId] = useState<number | null>(null);
   const [message, setMessage] = useState<{ tone: "success" | "error"; text: string } | null>(null);
 
@@ -49,7 +51,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
             <Th className="text-right">Actions</Th>
           </tr>
         </THead>
-        <tbody data-testid="users-table">
+        <tbody data-testid="users-table" data-ready={hydrated ? "true" : "false"}>
           {users.map((u) => {
             const me = u.id === meId;
             return (
@@ -66,7 +68,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                     data-testid={`role-${u.email}`}
                     className="h-8 min-w-52 text-[13px]"
                     value={u.role}
-                    disabled={me || busyId === u.id}
+                    disabled={!hydrated || me || busyId === u.id}
                     title={me ? "Another administrator must change your role." : undefined}
                     onChange={(e) =>
                       act(u.id, `/api/admin/users/${u.id}`, "PATCH", { role: e.target.value as Role }, `${u.name} is now ${ROLE_LABELS[e.target.value as Role]}.`)
@@ -89,6 +91,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                       size="sm"
                       variant="secondary"
                       busy={busyId === u.id}
+                        disabled={!hydrated}
                       onClick={() => act(u.id, `/api/admin/users/${u.id}/invite`, "POST", undefined, `A new invitation went to ${u.email}.`)}
                     >
                       Send new link
@@ -101,6 +104,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                         variant="secondary"
                         data-testid={`reactivate-${u.email}`}
                         busy={busyId === u.id}
+                        disabled={!hydrated}
                         onClick={() => act(u.id, `/api/admin/users/${u.id}`, "PATCH", { active: true }, `${u.name} can sign in again.`)}
                       >
                         Reactivate
@@ -111,6 +115,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                         variant="danger"
                         data-testid={`deactivate-${u.email}`}
                         busy={busyId === u.id}
+                        disabled={!hydrated}
                         onClick={() => act(u.id, `/api/admin/users/${u.id}`, "PATCH", { active: false }, `${u.name} is deactivated and signed out.`)}
                       >
                         Deactivate

@@ -5,6 +5,7 @@ import { useState, type FormEvent } from "react";
 import { changePasswordSchema, PASSWORD_MIN } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
+import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
 
@@ -36,7 +37,7 @@ export function ChangePasswordForm() {
   const set = (k: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement>) => setValues({ ...values, [k]: e.target.value });
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" data-testid="password-form">
+    <ClientForm onSubmit={submit} testId="password-form">
       <Field label="Current password" name="currentPassword" error={errors.currentPassword}>
         <Input id="currentPassword" type="password" autoComplete="current-password" value={values.currentPassword} invalid={!!errors.currentPassword} onChange={set("currentPassword")} />
       </Field>
@@ -55,6 +56,6 @@ export function ChangePasswordForm() {
       <Button type="submit" busy={busy}>
         Change password
       </Button>
-    </form>
+    </ClientForm>
   );
 }

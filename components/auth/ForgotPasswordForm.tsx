@@ -4,6 +4,7 @@ import { useState, type FormEvent } from "react";
 import { forgotPasswordSchema } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
+import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
 
@@ -38,7 +39,7 @@ export function ForgotPasswordForm() {
     );
   }
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" data-testid="forgot-form">
+    <ClientForm onSubmit={submit} testId="forgot-form">
       <Field label="E-mail" name="email" error={errors.email}>
         <Input id="email" type="email" autoComplete="username" autoFocus value={email} invalid={!!errors.email} onChange={(e) => setEmail(e.target.value)} />
       </Field>
@@ -50,6 +51,6 @@ export function ForgotPasswordForm() {
       <Button type="submit" busy={busy} className="w-full">
         Send reset link
       </Button>
-    </form>
+    </ClientForm>
   );
 }

@@ -5,6 +5,7 @@ import { useState, type FormEvent } from "react";
 import { acceptInviteSchema, PASSWORD_MIN, resetPasswordSchema } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
+import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
 
@@ -47,7 +48,7 @@ export function NewPasswordForm({ mode, token, email, name = "" }: { mode: "invi
   const set = (k: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement>) => setValues({ ...values, [k]: e.target.value });
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" data-testid={mode === "invite" ? "accept-form" : "reset-form"}>
+    <ClientForm onSubmit={submit} testId={mode === "invite" ? "accept-form" : "reset-form"}>
       <Field label="E-mail" name="email-shown">
         <Input id="email-shown" value={email} readOnly disabled />
       </Field>
@@ -70,6 +71,6 @@ export function NewPasswordForm({ mode, token, email, name = "" }: { mode: "invi
       <Button type="submit" busy={busy} className="w-full">
         {mode === "invite" ? "Create my account" : "Set new password"}
       </Button>
-    </form>
+    </ClientForm>
   );
 }

@@ -5,6 +5,7 @@ import { useState, type FormEvent } from "react";
 import { profileSchema } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
+import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
 import { cx } from "@/components/ui/cx";
@@ -34,7 +35,7 @@ export function ProfileForm({ name, units }: { name: string; units: "si" | "us" 
   }
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" data-testid="profile-form">
+    <ClientForm onSubmit={submit} testId="profile-form">
       <Field label="Name" name="name" error={errors.name}>
         <Input id="name" name="name" value={values.name} invalid={!!errors.name} onChange={(e) => setValues({ ...values, name: e.target.value })} />
       </Field>
@@ -77,6 +78,6 @@ export function ProfileForm({ name, units }: { name: string; units: "si" | "us" 
       <Button type="submit" busy={busy}>
         Save profile
       </Button>
-    </form>
+    </ClientForm>
   );
 }

@@ -6,6 +6,7 @@ import { useState, type FormEvent } from "react";
 import { signInSchema } from "@/lib/auth/schemas";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
+import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { validate, type FieldErrors } from "@/components/ui/form-errors";
 import { signInErrorText } from "./messages";
@@ -41,7 +42,7 @@ export function SignInForm({ callbackUrl, initialError, initialEmail }: { callba
   }
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" data-testid="sign-in-form">
+    <ClientForm onSubmit={submit} testId="sign-in-form">
       <Field label="E-mail" name="email" error={errors.email}>
         <Input
           id="email"
@@ -80,6 +81,6 @@ export function SignInForm({ callbackUrl, initialError, initialEmail }: { callba
           Forgot your password?
         </Link>
       </p>
-    </form>
+    </ClientForm>
   );
 }

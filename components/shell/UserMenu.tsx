@@ -6,6 +6,7 @@ import { signOut } from "next-auth/react";
 import { useEffect, useRef, useState } from "react";
 import { sendJson } from "@/components/ui/form-errors";
 import { cx } from "@/components/ui/cx";
+import { useHydrated } from "@/components/ui/ClientForm";
 
 export function UserMenu({
   name,
@@ -20,6 +21,7 @@ export function UserMenu({
   organisationName: string;
   units: "si" | "us";
 }) {
+  const hydrated = useHydrated();
   const [open, setOpen] = useState(false);
   const [saving, setSaving] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -64,6 +66,7 @@ export function UserMenu({
         data-testid="user-menu"
         aria-haspopup="menu"
         aria-expanded={open}
+        disabled={!hydrated}
         onClick={() => setOpen((o) => !o)}
         className="flex items-center gap-2.5 rounded-md border border-transparent py-1 pl-1 pr-2.5 text-left hover:border-steel-300 hover:bg-white"
       >

@@ -27,12 +27,13 @@ export function Button({
   variant = "primary",
   size = "md",
   busy = false,
+  disabled,
   className,
   children,
   ...rest
 }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: Size; busy?: boolean }) {
   return (
-    <button className={buttonClass(variant, size, className)} disabled={busy || rest.disabled} aria-busy={busy} {...rest}>
+    <button className={buttonClass(variant, size, className)} disabled={busy || disabled} aria-busy={busy} {...rest}>
       {busy && <span className="size-3.5 animate-spin rounded-full border-2 border-current border-r-transparent" aria-hidden />}
       {children}
     </button>
