@@ -53,7 +53,7 @@ export async function ensureDebianPackages(needs: DebianNeed[]): Promise<void> {
   const code = await runLive("apt-get", [...lock, "install", "-y", "-q", ...pkgs], { env });
   const still = missing(todo);
   if (code !== 0 || still.length > 0) {
-    const why = code !== 0 ? `apt-get exit ${code}` : `still missing: ${still.flatMap((n) => n.binaries).join(", ")}`;
+    const why = code !== 0 ? `apt-get exit ${code}` : `still missing: ${still.flatMap((n) => n.binaries.filter((b) => findBinary(b) === null)).join(", ")}`;
     throw new MissingPackageError(`Installing ${pkgs.join(", ")} failed (${why}). Run yourself:\n  ${command}`);
   }
 }
