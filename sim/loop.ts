@@ -37,10 +37,14 @@ export interface ChainLoop {
   /** Station indices. */
   topNode: number;
   driveNode: number;
+  /** Station at (or, for an odd bottom run, just before) the take-up sprocket. */
   takeUpNode: number;
-  /** Segments on either side of the take-up sprocket: both lengthen by the take-up drop y. */
-  legLeft: number;
-  legRight: number;
+  /**
+   * Segments the take-up drop y lengthens, with their weight: two legs × 1 when the take-up sits on a
+   * station, or one central segment × 2 when the bottom run has an odd number of segments (a frictionless
+   * take-up sprocket carries the same tension on both legs, so one segment with 2·y is exact for it).
+   */
+  legs: { seg: number; weight: number }[];
   /** Carrying strand: stations 0…nsStrand, uniformly spaced by hStrand. */
   nsStrand: number;
   hStrand: number;
@@ -61,14 +65,14 @@ export function buildLoop(s: Scenario, track: Track, segmentsOverride?: number):
   const Ltot = 2 * Lc + B;
   const N = Math.max(4, Math.round(segmentsOverride ?? s.run.segments));
   const h = Ltot / N;
-  // At least one segment on each side of the take-up; the rest shared equally by the two strands.
-  const nb = Math.max(1, Math.round(B / 2 / h));
-  const ns = Math.max(2, Math.round((N - 2 * nb) / 2));
-  const n = 2 * ns + 2 * nb;
+  // The bottom run gets segments about as long as the rest (at least one); the strands share the others.
+  const nbt = Math.max(1, Math.round(B / h));
+  const ns = Math.max(2, Math.round((N - nbt) / 2));
+  const n = 2 * ns + nbt;
   const q = new Float64Array(n);
   for (let j = 0; j < ns; j++) q[j] = (Lc * j) / ns;
   for (let j = 0; j < ns; j++) q[ns + j] = Lc + (Lc * j) / ns;
-  for (let j = 0; j < 2 * nb; j++) q[2 * ns + j] = 2 * Lc + (B * j) / (2 * nb);
+  for (let j = 0; j < nbt; j++) q[2 * ns + j] = 2 * Lc + (B * j) / nbt;
   const L = new Float64Array(n);
   for (let i = 0; i < n; i++) L[i] = (i + 1 < n ? q[i + 1] : Ltot) - q[i];
 
@@ -103,7 +107,15 @@ export function buildLoop(s: Scenario, track: Track, segmentsOverride?: number):
     mass[i] = (mu * (L[prev] + L[i])) / 2;
     weight[i] = -mu * g * (zMid[i] - zMid[prev]);
   }
-  const takeUpNode = 2 * ns + nb;
+  const half = Math.floor(nbt / 2);
+  const takeUpNode = 2 * ns + half;
+  const legs =
+    nbt % 2 === 0
+      ? [
+          { seg: takeUpNode - 1, weight: 1 },
+          { seg: takeUpNode, weight: 1 },
+        ]
+      : [{ seg: takeUpNode, weight: 2 }];
   return {
     strandLength: Lc,
     length: Ltot,
@@ -122,8 +134,7 @@ export function buildLoop(s: Scenario, track: Track, segmentsOverride?: number):
     topNode: ns,
     driveNode: 2 * ns,
     takeUpNode,
-    legLeft: takeUpNode - 1,
-    legRight: takeUpNode,
+    legs,
     nsStrand: ns,
     hStrand: Lc / ns,
     zBottom,

@@ -53,6 +53,9 @@ export class LiftSystem {
 
   // Contact modes, changed only between steps.
   engaged = NaN; // index of the catch point in contact with the dog, NaN for none
+  // Penetration found when a contact was detected at a step end; the contact is measured from it so it
+  // starts without a force jump (no energy injected by the step's late detection).
+  engageOffset = 0;
   pawlMax: number;
   tooth = NaN; // position of the tooth the pawl would fall on
   lastCatchIndex = NaN; // catch at or behind the dog at the last step end
@@ -92,8 +95,7 @@ export class LiftSystem {
     this.invL = loop.L.map((l) => 1 / l);
     this.invM = loop.mass.map((m) => 1 / m);
     this.legY = new Float64Array(this.n);
-    this.legY[loop.legLeft] = 1;
-    this.legY[loop.legRight] = 1;
+    for (const leg of loop.legs) this.legY[leg.seg] = leg.weight;
     this.frictionCoef = s.chain.guideFriction;
     this.lattice = catchLattice(catchOffsetOf(s) - s.lift.chainFrom, s.chain.catchSpacing, loop.length);
     const ar = s.antiRollback;
@@ -218,7 +220,7 @@ export class LiftSystem {
     if (this.engaged === this.engaged && this.dogInZone(x)) {
       const qd = x - this.dogOffset - this.chainFrom;
       const qk = this.catchPosition(t, this.engaged, w, qd);
-      const delta = qk - qd;
+      const delta = qk - qd - this.engageOffset;
       const h = loop.hStrand;
       let j = Math.floor(qk / h);
       if (j < 0) j = 0;
@@ -256,7 +258,9 @@ export class LiftSystem {
       diss -= (stop - el) * vy;
     }
     diss -= fr * vy;
-    this.ay = (tu.mass * this.g - T[loop.legLeft] - T[loop.legRight] + stop + fr) / tu.mass;
+    let legPull = 0;
+    for (const leg of loop.legs) legPull += leg.weight * T[leg.seg];
+    this.ay = (tu.mass * this.g - legPull + stop + fr) / tu.mass;
     // Train.
     const ext = this.train.force(x, vx);
     diss += this.train.lastDissipation;
@@ -296,16 +300,17 @@ export class LiftSystem {
       if (last === last) {
         if (K < last) {
           this.engaged = K + 1;
+          const qd = xp - this.chainFrom;
+          this.engageOffset = Math.max(0, this.catchPosition(t, K + 1, w, qd) - qd);
           ev |= EVENT_ENGAGE;
         } else if (K > last) ev |= EVENT_CLICK;
       }
       this.lastCatchIndex = K;
-      if (this.engaged === this.engaged && !(ev & EVENT_ENGAGE)) {
-        const qd = xp - this.chainFrom;
-        if (this.catchPosition(t, this.engaged, w, qd) - qd < 0) {
-          this.engaged = NaN;
-          ev |= EVENT_SEPARATE;
-        }
+      // A catch stays the dog's partner while it is the next one ahead (the contact law gives no force
+      // while they are apart); once the dog has passed it, it is behind and the dog rides free.
+      if (this.engaged === this.engaged && K >= this.engaged) {
+        this.engaged = NaN;
+        ev |= EVENT_SEPARATE;
       }
     } else {
       if (this.engaged === this.engaged) ev |= EVENT_RELEASE;
@@ -349,13 +354,23 @@ export class LiftSystem {
       const p = i > 0 ? i - 1 : n - 1;
       const kk = this.EA * (this.invL[i] + this.invL[p]);
       const cc = this.damping * (this.invL[i] + this.invL[p]);
-      const contact = i <= loop.nsStrand ? this.dogStiffness : 0;
+      // The dog couples a strand station to the train too: its row holds the contact twice.
+      const contact = i <= loop.nsStrand ? 2 * this.dogStiffness : 0;
       const cContact = i <= loop.nsStrand ? this.dogDamping : 0;
       w2 = Math.max(w2, (2 * kk + contact) * this.invM[i]);
       beta = Math.max(beta, (2 * cc + cContact) * this.invM[i]);
     }
     const tu = this.takeUp;
-    const kLegs = this.EA * (this.invL[loop.legLeft] + this.invL[loop.legRight]);
+    let kLegs = 0;
+    for (const leg of loop.legs) {
+      const k = this.EA * leg.weight * this.invL[leg.seg];
+      kLegs += leg.weight * k;
+      // Stations at the ends of a leg also feel the take-up through it.
+      const a = leg.seg;
+      const b = (leg.seg + 1) % n;
+      w2 = Math.max(w2, (2 * this.EA * (this.invL[a] + this.invL[(a - 1 + n) % n]) + k) * this.invM[a] + this.dogStiffness * this.invM[a]);
+      w2 = Math.max(w2, (2 * this.EA * (this.invL[b] + this.invL[a]) + k) * this.invM[b]);
+    }
     w2 = Math.max(w2, (2 * kLegs + tu.stopStiffness) / tu.mass);
     w2 = Math.max(w2, (this.dogStiffness + this.ardStiffness) / this.train.mass);
     const omega = Math.sqrt(w2);

@@ -112,7 +112,7 @@ export const runSettingsSchema = z.object({
     .enum(INTEGRATORS, { error: `run.integrator must be one of ${INTEGRATORS.join(", ")}` })
     .default("verlet"),
   /** Verlet step as a fraction of the computed stability limit. */
-  stepFraction: num("run.stepFraction", "", { min: 0.05, max: 0.95 }).default(0.5),
+  stepFraction: num("run.stepFraction", "", { min: 0.05, max: 0.95 }).default(0.6),
   /** odex relative tolerance (absolute tolerances are scaled per state from it). */
   tolerance: num("run.tolerance", "", { min: 1e-10, max: 1e-2 }).default(1e-6),
   /** Dog and ARD contact stiffness; absent means E·A / 1 m (as stiff as one metre of chain). */

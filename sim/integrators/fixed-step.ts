@@ -63,7 +63,7 @@ export function integrateVerlet(
     // A contact that just started or ended changes the forces: re-evaluate so the next kick uses them.
     if (ev & (EVENT_ENGAGE | EVENT_RELEASE)) sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
     if (!hooks.step(st, dt, ev, false)) return { final: st, steps, timeStep: dt, endedEarly: true };
-    if ((steps & 255) === 0) hooks.check(steps, t);
+    if ((steps & 127) === 0) hooks.check(steps, t);
   }
   return { final: st, steps, timeStep: dt, endedEarly: false };
 }

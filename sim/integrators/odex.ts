@@ -179,6 +179,7 @@ export function integrateOdex(
             Y: denseState(dense, te),
             mode: () => {
               sys.engaged = K0;
+              sys.engageOffset = 0; // located exactly
               sys.lastCatchIndex = K0 - 1;
             },
           };
