@@ -1,6 +1,7 @@
 import type { Sequelize } from "sequelize";
 import { demoAccountsSeed } from "@/lib/auth/seed";
-import { standardChainsSeed } from "@/lib/chains/seed";
+import { demoParkChainSeed, standardChainsSeed } from "@/lib/chains/seed";
+import { demoReviewCommentSeed } from "@/lib/comments/seed";
 import { demoDesignSeed, demoRunsSeed, interruptedRunsSeed } from "@/lib/demo/seed";
 
 /** One idempotent seed step: running it twice leaves the same rows as running it once. */
@@ -16,4 +17,6 @@ export const seedSteps: SeedStep[] = [
   demoDesignSeed,
   demoRunsSeed,
   interruptedRunsSeed,
+  demoParkChainSeed,
+  demoReviewCommentSeed,
 ];
