@@ -239,11 +239,16 @@ export async function updateOwnProfile(me: CurrentUser, input: ProfileInput): Pr
   return { name: user.name, units: user.units };
 }
 
+/** A user of the admin's own organisation, or 404 (also for other organisations' users). */
+export async function requireOrgUser(admin: CurrentUser, userId: number) {
+  const user = await getModels().User.findOne({ where: { id: userId, organisationId: admin.organisationId } });
+  if (!user) throw notFound("No such user in your organisation.");
+  return user;
+}
+
 /** Changes another user's role or active state. An admin may not demote or deactivate themselves. */
 export async function updateUser(admin: CurrentUser, userId: number, input: UpdateUserInput): Promise<UserSummary> {
-  const { User } = getModels();
-  const user = await User.findOne({ where: { id: userId, organisationId: admin.organisationId } });
-  if (!user) throw notFound("No such user in your organisation.");
+  const user = await requireOrgUser(admin, userId);
   if (user.id === admin.id) {
     if (input.role !== undefined && input.role !== "admin") {
       throw badRequest("You cannot remove your own administrator role.", [

@@ -25,6 +25,12 @@ export interface ApiRouteAccess {
   rows?: Record<string, RowSource>;
   /** Body sent by the test for writes (default `{}`): it must not pass validation, so nothing changes. */
   probeBody?: unknown;
+  /**
+   * Methods that change state without a body (e.g. DELETE, cancel): the test calls them only as callers
+   * who must be refused (anonymous, roles without the permission, another organisation), never as an
+   * allowed caller of the row's own organisation.
+   */
+  refusalsOnly?: Method[];
   /** Not for the access test to call (explain why in a comment), e.g. the next-auth catch-all. */
   skipProbe?: boolean;
   /** Answers 404 on production instances (development tools). */
@@ -56,7 +62,11 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   "/api/admin/users": { methods: { GET: needs("users:manage"), POST: needs("users:manage") } },
   "/api/admin/users/[id]": { methods: { PATCH: needs("users:manage") }, rows: { id: "users" } },
   "/api/admin/users/[id]/invite": { methods: { POST: needs("users:manage") }, rows: { id: "users" } },
-  "/api/admin/mail": { methods: { GET: needs("devmail:read"), DELETE: needs("devmail:read") }, nonProduction: true },
+  "/api/admin/mail": {
+    methods: { GET: needs("devmail:read"), DELETE: needs("devmail:read") },
+    nonProduction: true,
+    refusalsOnly: ["DELETE"], // an allowed call would empty the mailbox other tests read
+  },
   // Runs. The probe bodies fail validation so the access test starts nothing; DELETE without ?version= is a 400.
   "/api/scenarios/[id]/runs": {
     methods: { GET: needs("run:read"), POST: needs("run:start") },
@@ -67,6 +77,60 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   "/api/runs/[id]/result": { methods: { GET: needs("run:read") }, rows: { id: "runs" } },
   "/api/runs/[id]/events": { methods: { GET: needs("run:read") }, rows: { id: "runs" } },
   "/api/runs/[id]/cancel": { methods: { POST: needs("run:cancel") }, rows: { id: "runs" } },
+  // Design data. Writes are probed with {} (fails validation: nothing changes); deletes only as refusals.
+  "/api/lifts": { methods: { GET: needs("design:read"), POST: needs("design:write") } },
+  "/api/lifts/[id]": {
+    methods: { GET: needs("design:read"), PATCH: needs("design:write"), DELETE: needs("design:write") },
+    rows: { id: "lifts" },
+    refusalsOnly: ["DELETE"],
+  },
+  "/api/lifts/[id]/revisions": { methods: { GET: needs("design:read") }, rows: { id: "lifts" } },
+  "/api/lifts/[id]/revisions/[number]": {
+    methods: { GET: needs("design:read") },
+    rows: {
+      id: "lifts",
+      // A revision number (not an id) of the same first lift: revision numbers start at 1.
+      number: {
+        sql: "SELECT MIN(r.number) AS id FROM lift_revisions r WHERE r.lift_id = (SELECT MIN(l.id) FROM lifts l WHERE l.organisation_id = ?)",
+      },
+    },
+  },
+  "/api/chain-specs": { methods: { GET: needs("design:read"), POST: needs("design:write") } },
+  "/api/chain-specs/[id]": {
+    methods: { GET: needs("design:read"), PATCH: needs("design:write"), DELETE: needs("design:write") },
+    rows: { id: "chain_specs" },
+    refusalsOnly: ["DELETE"],
+  },
+  "/api/trains": { methods: { GET: needs("design:read"), POST: needs("design:write") } },
+  "/api/trains/[id]": {
+    methods: { GET: needs("design:read"), PATCH: needs("design:write"), DELETE: needs("design:write") },
+    rows: { id: "trains" },
+    refusalsOnly: ["DELETE"],
+  },
+  "/api/scenarios": { methods: { GET: needs("design:read"), POST: needs("design:write") } },
+  "/api/scenarios/import": { methods: { POST: needs("design:write") } },
+  "/api/scenarios/[id]": {
+    methods: { GET: needs("design:read"), PATCH: needs("design:write"), DELETE: needs("design:write") },
+    rows: { id: "scenarios" },
+    refusalsOnly: ["DELETE"],
+  },
+  "/api/scenarios/[id]/export": { methods: { GET: needs("design:read") }, rows: { id: "scenarios" } },
+  "/api/scenarios/[id]/comments": {
+    methods: { GET: needs("design:read"), POST: needs("comment:write") },
+    rows: { id: "scenarios" },
+  },
+  "/api/scenarios/[id]/comments/[commentId]": {
+    methods: { PATCH: needs("comment:write"), DELETE: needs("comment:write") },
+    rows: {
+      id: "scenarios",
+      // The demo reviewer's comment on the park's first scenario (seeded by lib/comments/seed.ts).
+      commentId: {
+        sql: "SELECT MIN(c.id) AS id FROM comments c WHERE c.scenario_id = (SELECT MIN(s.id) FROM scenarios s WHERE s.organisation_id = ?)",
+      },
+    },
+    refusalsOnly: ["DELETE"],
+  },
+  "/api/audit": { methods: { GET: needs("audit:read") } },
 };
 
 export const PAGE_ROUTES: Record<string, PageAccess> = {
@@ -86,6 +150,14 @@ export const PAGE_ROUTES: Record<string, PageAccess> = {
   "/admin": { access: needs("users:manage") },
   "/admin/users": { access: needs("users:manage") },
   "/admin/mail": { access: needs("devmail:read"), nonProduction: true },
+  // Workspace screens: design forms, scenario run view, saved runs.
+  "/lifts/new": { access: needs("design:write") },
+  "/lifts/[id]": { access: needs("design:read"), rows: { id: "lifts" } },
+  "/trains/new": { access: needs("design:write") },
+  "/trains/[id]": { access: needs("design:read"), rows: { id: "trains" } },
+  "/scenarios/new": { access: needs("design:write") },
+  "/scenarios/[id]": { access: needs("design:read"), rows: { id: "scenarios" } },
+  "/runs/[id]": { access: needs("run:read"), rows: { id: "runs" } },
 };
 
 /** Turns a file under app/ into its URL pattern: drops route groups and the file name. */
