@@ -194,8 +194,8 @@ function main() {
   console.log(
     "  The chain is stiff and oscillatory (highest mode 2·√(k/m) per segment, contacts on top): an explicit\n" +
       "  extrapolation method has to follow it, so odex costs more per simulated second than velocity Verlet\n" +
-      "  run at a fraction of its stability limit (RK4 lies in between). The engine therefore defaults to velocity Verlet (symplectic,\n" +
-      "  one evaluation per step, step from the computed stability limit); odex stays selectable as\n" +
+      "  run at a fraction of its stability limit (RK4 lies in between). The engine therefore defaults to\n" +
+      "  velocity Verlet (symplectic, one evaluation per step, step from the computed stability limit); odex stays selectable as\n" +
       "  run.integrator = \"odex\" and is the reference the fixed-step path is validated against\n" +
       "  (tests/sim/integrators.test.ts). Wall-clock figures depend on the machine's load; CPU figures less so.",
   );
