@@ -69,22 +69,26 @@ export function demoScenarioFields(s: DemoScenario) {
   };
 }
 
-/** The full, validated `tautline-scenario/1` object of a demo scenario. */
-export function demoEngineScenario(s: DemoScenario): EngineScenario {
-  const rev = demoRevisionData(demoLift(s.lift), s.revision);
+/**
+ * The `tautline-scenario/1` object of a demo scenario with only the values park.ts gives (the engine's
+ * defaults are left out, so the public files stay valid and unchanged when a default changes).
+ */
+export function demoScenarioInput(s: DemoScenario): Record<string, unknown> {
+  const lift = demoLift(s.lift);
+  const r = lift.revisions[s.revision - 1];
+  if (!r) throw new Error(`Demo lift ${lift.key} has no revision ${s.revision}`);
   const input = engineScenarioInput(
-    demoScenarioFields(s),
-    {
-      geometry: rev.lift,
-      chain: rev.chain,
-      drive: rev.drive,
-      takeUp: rev.takeUp,
-      antiRollback: rev.antiRollback,
-      limits: rev.limits,
-    },
+    { ...demoScenarioFields(s), runSettings: s.runSettings },
+    { geometry: r.geometry, chain: r.chain, drive: r.drive, takeUp: r.takeUp, antiRollback: r.antiRollback, limits: r.limits ?? null },
     demoTrainData(s.train),
   );
-  const parsed = parseScenario(input);
+  if (!r.limits) delete input.limits;
+  return input;
+}
+
+/** The full, validated engine scenario of a demo scenario (defaults filled in): what its seeded run ran. */
+export function demoEngineScenario(s: DemoScenario): EngineScenario {
+  const parsed = parseScenario(demoScenarioInput(s));
   if (!parsed.ok) fail(`scenario ${s.key}`, parsed.issues);
   return parsed.scenario;
 }

@@ -1,7 +1,7 @@
 import type { DemoScenario } from "./park";
-import { demoEngineScenario } from "./build";
+import { demoScenarioInput } from "./build";
 
-/** The text of public/scenarios/<key>.json: the full scenario with the format's defaults filled in. */
+/** The text of public/scenarios/<key>.json: the scenario as park.ts gives it (engine defaults left out). */
 export function demoScenarioFile(s: DemoScenario): string {
-  return JSON.stringify(demoEngineScenario(s), null, 2) + "\n";
+  return JSON.stringify(demoScenarioInput(s), null, 2) + "\n";
 }

@@ -26,6 +26,8 @@ describe("the demo scenario files in public/scenarios", () => {
     const parsed = parseScenario(JSON.parse(text));
     expect(parsed.ok ? [] : parsed.issues).toEqual([]);
     expect(text).toBe(demoScenarioFile(def));
+    // With the engine's defaults filled in, the file is exactly the scenario the seed runs.
+    expect(parsed.ok && parsed.scenario).toEqual(demoEngineScenario(def));
   });
 });
 
