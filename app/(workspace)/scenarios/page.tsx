@@ -1,24 +1,25 @@
 import type { Metadata } from "next";
-import { Planned } from "@/components/shell/Planned";
+import { ScenarioTable } from "@/components/scenario/ScenarioTable";
+import { ButtonLink } from "@/components/ui/Button";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
+import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Scenarios" };
 
-export default async function ScenariosPage() {
-  await pageUser("/scenarios");
+export default async function ScenariosPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const user = await pageUser("/scenarios");
+  const sp = await searchParams;
+  const liftId = typeof sp.liftId === "string" && /^\d+$/.test(sp.liftId) ? Number(sp.liftId) : undefined;
   return (
     <>
-      <PageHeader eyebrow="Design" title="Scenarios" description="Load cases that put a train on a lift and run the chain." />
-      <Planned
-        audience="Ride engineers write them; operators and trainers start runs; reviewers comment."
-        items={[
-          "Pick-up of a train by the chain: snatch load in the chain and the dogs.",
-          "Stops on the lift: where the train settles back onto the ARD, and how hard.",
-          "Take-up movement and counterweight travel during start, run and stop.",
-          "Runs queued, running, done, failed or cancelled, with pass / caution / fail checks.",
-        ]}
+      <PageHeader
+        eyebrow="Design"
+        title="Scenarios"
+        description="Load cases that put a train on a lift: each pinned to a lift revision, with its loading, entry speed and run settings. Open one to run it and replay it."
+        actions={can(user.role, "design:write") ? <ButtonLink href="/scenarios/new" data-testid="new-scenario">New scenario</ButtonLink> : undefined}
       />
+      <ScenarioTable units={user.units} liftId={liftId} />
     </>
   );
 }

@@ -1,24 +1,23 @@
 import type { Metadata } from "next";
-import { Planned } from "@/components/shell/Planned";
+import { TrainTable } from "@/components/train/TrainTable";
+import { ButtonLink } from "@/components/ui/Button";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
+import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Trains" };
 
 export default async function TrainsPage() {
-  await pageUser("/trains");
+  const user = await pageUser("/trains");
   return (
     <>
-      <PageHeader eyebrow="Design" title="Trains" description="The trains that ride the lift, car by car." />
-      <Planned
-        audience="For ride engineers; everyone in the organisation can read."
-        items={[
-          "Cars with empty and loaded masses, coupling and wheelbase.",
-          "Chain dogs: which cars carry them and where they engage the chain.",
-          "Anti-rollback dogs and their spacing against the ARD rack.",
-          "Passenger loading cases from empty to full.",
-        ]}
+      <PageHeader
+        eyebrow="Design"
+        title="Trains"
+        description="The trains that ride the lift: cars, seats, rider mass and where the chain dog sits."
+        actions={can(user.role, "design:write") ? <ButtonLink href="/trains/new" data-testid="new-train">New train</ButtonLink> : undefined}
       />
+      <TrainTable units={user.units} />
     </>
   );
 }

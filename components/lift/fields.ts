@@ -1,0 +1,89 @@
+/** The lift form's fields, grouped as the revision stores them (SI inside, units per quantity). */
+import { LIMIT_SOURCES } from "@/sim/schema";
+import type { FieldDef } from "./form-model";
+
+export const GEOMETRY_FIELDS: FieldDef[] = [
+  { path: "lift.approachLength", label: "Approach length", q: "length", hint: "Level track before the sag" },
+  { path: "lift.sagRadius", label: "Sag radius", q: "length" },
+  { path: "lift.angle", label: "Lift angle", q: "angle" },
+  { path: "lift.inclineLength", label: "Incline length", q: "length", hint: "Straight part of the hill" },
+  { path: "lift.crestRadius", label: "Crest radius", q: "length" },
+  { path: "lift.exitLength", label: "Exit length", q: "length" },
+  { path: "lift.chainFrom", label: "Chain starts at", q: "length", hint: "Track position (bottom idler)" },
+  { path: "lift.chainTo", label: "Chain ends at", q: "length", hint: "Track position (top idler)" },
+  { path: "lift.dogRelease", label: "Dog release at", q: "length" },
+  { path: "lift.bottomRun", label: "Bottom run", q: "length", hint: "Drive → take-up → idler" },
+];
+
+/** Values the catalogue entry fills in (read-only while a catalogue chain is picked). */
+export const CHAIN_VALUE_FIELDS: FieldDef[] = [
+  { path: "chain.pitch", label: "Pitch", q: "smallLength" },
+  { path: "chain.massPerLength", label: "Mass per length", q: "massPerLength" },
+  { path: "chain.axialStiffness", label: "Axial stiffness E·A", q: "axialStiffness" },
+  { path: "chain.breakingStrength", label: "Breaking strength", q: "force" },
+];
+
+export const CHAIN_ROUTING_FIELDS: FieldDef[] = [
+  { path: "chain.catchSpacing", label: "Catch spacing", q: "length", hint: "Distance between catch points" },
+  { path: "chain.catchOffset", label: "First catch point at", q: "length", optional: true, hint: "Empty: where the chain starts" },
+  { path: "chain.guideFriction", label: "Guide friction", q: "ratio" },
+  { path: "chain.damping", label: "Internal damping", q: "damping" },
+];
+
+export const DRIVE_FIELDS: FieldDef[] = [
+  { path: "drive.speed", label: "Chain speed", q: "speed" },
+  { path: "drive.rampTime", label: "Ramp-up time", q: "time" },
+  { path: "drive.sprocketTeeth", label: "Sprocket teeth", q: "count", int: true },
+  { path: "drive.efficiency", label: "Drive efficiency", q: "ratio" },
+];
+
+export const TAKEUP_FIELDS: FieldDef[] = [
+  { path: "takeUp.mass", label: "Counterweight mass", q: "mass", hint: "2:1: each leg carries half its weight" },
+  { path: "takeUp.travel", label: "Guide travel", q: "length" },
+  { path: "takeUp.position", label: "Below top stop", q: "length", hint: "Starting position" },
+  { path: "takeUp.friction", label: "Guide friction force", q: "force" },
+];
+
+export const ARD_FIELDS: FieldDef[] = [
+  { path: "antiRollback.from", label: "Ratchet from", q: "length" },
+  { path: "antiRollback.to", label: "Ratchet to", q: "length" },
+  { path: "antiRollback.toothSpacing", label: "Tooth spacing", q: "smallLength" },
+];
+
+const src = (k: keyof typeof LIMIT_SOURCES) => LIMIT_SOURCES[k];
+
+export const LIMIT_FIELDS: FieldDef[] = [
+  { path: "limits.requiredSafetyFactor", label: "Required safety factor", q: "ratio", hint: src("requiredSafetyFactor") },
+  { path: "limits.maxSnatchFactor", label: "Largest snatch factor", q: "ratio", hint: src("maxSnatchFactor") },
+  { path: "limits.motorRating", label: "Motor rating", q: "power", optional: true, hint: src("motorRating") },
+  { path: "limits.maxRiderAccel", label: "Largest rider acceleration", q: "accelG", hint: src("maxRiderAccel") },
+  { path: "limits.maxPickupDelay", label: "Longest pick-up delay", q: "time", hint: src("maxPickupDelay") },
+  { path: "limits.wearAllowance", label: "Wear allowance", q: "percent", hint: src("wearAllowance") },
+  { path: "limits.thermalDeltaT", label: "Temperature swing", q: "tempDelta", hint: src("thermalDeltaT") },
+  { path: "limits.thermalExpansion", label: "Thermal expansion", q: "perKelvin", hint: src("thermalExpansion") },
+];
+
+export const ALL_NUMBER_FIELDS = [
+  ...GEOMETRY_FIELDS,
+  ...CHAIN_VALUE_FIELDS,
+  ...CHAIN_ROUTING_FIELDS,
+  ...DRIVE_FIELDS,
+  ...TAKEUP_FIELDS,
+  ...ARD_FIELDS,
+  ...LIMIT_FIELDS,
+];
+
+/** Human label of a dotted path (for the diff view and messages). */
+export function labelOf(path: string): string {
+  const f = ALL_NUMBER_FIELDS.find((d) => d.path === path);
+  if (f) return f.label;
+  const extra: Record<string, string> = {
+    name: "Name",
+    site: "Site",
+    notes: "Notes",
+    chainSpecId: "Catalogue chain",
+    "antiRollback.enabled": "ARD fitted",
+    "limits.allowRollback": "Settling back onto the ARD allowed",
+  };
+  return extra[path] ?? path;
+}

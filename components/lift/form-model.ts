@@ -1,0 +1,48 @@
+/** Small helpers shared by the design forms: dotted paths into nested drafts, field definitions. */
+import type { Quantity } from "@/lib/client/units";
+
+export type Draft = Record<string, unknown>;
+
+export function getPath(obj: unknown, path: string): unknown {
+  let cur: unknown = obj;
+  for (const k of path.split(".")) {
+    if (!cur || typeof cur !== "object") return undefined;
+    cur = (cur as Record<string, unknown>)[k];
+  }
+  return cur;
+}
+
+/** A copy of `obj` with `path` set (undefined removes the key). */
+export function setPath<T extends Draft>(obj: T, path: string, value: unknown): T {
+  const [head, ...rest] = path.split(".");
+  const copy: Draft = { ...obj };
+  if (rest.length === 0) {
+    if (value === undefined) delete copy[head];
+    else copy[head] = value;
+  } else {
+    const inner = (obj[head] && typeof obj[head] === "object" ? obj[head] : {}) as Draft;
+    copy[head] = setPath(inner, rest.join("."), value);
+  }
+  return copy as T;
+}
+
+export interface FieldDef {
+  path: string;
+  label: string;
+  q: Quantity;
+  hint?: string;
+  /** May be left empty (absent in the data). */
+  optional?: boolean;
+  /** Whole numbers only (teeth, cars, seats). */
+  int?: boolean;
+}
+
+/** Field path → message, from zod issues (dotted paths, as the API answers them). */
+export function zodErrors(issues: ReadonlyArray<{ path: ReadonlyArray<PropertyKey>; message: string }>): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const i of issues) {
+    const p = i.path.length ? i.path.map(String).join(".") : "(body)";
+    if (!(p in out)) out[p] = i.message;
+  }
+  return out;
+}

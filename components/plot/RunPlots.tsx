@@ -1,0 +1,227 @@
+"use client";
+/**
+ * The run's time series with uPlot (fast with tens of thousands of points): four panels on one time
+ * axis, drag to zoom (all panels follow), double-click to zoom out, a hover read-out, the cursor synced
+ * with the replay (click a plot to move the replay there), CSV and PNG export.
+ */
+import { useEffect, useMemo, useRef, useState } from "react";
+import uPlot from "uplot";
+import "uplot/dist/uPlot.min.css";
+import type { Series } from "@/sim";
+import { Button } from "@/components/ui/Button";
+import { unitOf, type UnitSystem } from "@/lib/client/units";
+import { useReplayStore } from "@/components/replay/store";
+import { PANELS, chainSpeedSeries, nearestSample, panelData, seriesCsv } from "./plotData";
+
+function download(name: string, href: string) {
+  const a = document.createElement("a");
+  a.href = href;
+  a.download = name;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+}
+
+export function RunPlots({
+  series,
+  units,
+  chainSpeed,
+  rampTime,
+  fileStem,
+}: {
+  series: Series;
+  units: UnitSystem;
+  chainSpeed: number;
+  rampTime: number;
+  fileStem: string;
+}) {
+  const holders = useRef<(HTMLDivElement | null)[]>([]);
+  const plots = useRef<uPlot[]>([]);
+  const box = useRef<HTMLDivElement>(null);
+  const [cursorIdx, setCursorIdx] = useState<number | null>(null);
+  const chain = useMemo(() => chainSpeedSeries(series.t, chainSpeed, rampTime), [series, chainSpeed, rampTime]);
+  const hovering = useRef(false);
+
+  useEffect(() => {
+    const width = Math.max(300, box.current?.clientWidth ?? 800);
+    const syncKey = `run-${Math.random().toString(36).slice(2)}`;
+    let syncing = false;
+    const made: uPlot[] = PANELS.map((p, pi) => {
+      const u = unitOf(p.q, units).label;
+      const opts: uPlot.Options = {
+        width,
+        height: 150,
+        legend: { show: true, live: true },
+        cursor: {
+          sync: { key: syncKey, setSeries: false },
+          drag: { x: true, y: false, setScale: true },
+          points: { size: 6 },
+        },
+        scales: { x: { time: false } },
+        axes: [
+          { stroke: "#5f7386", grid: { stroke: "#e3e8ec", width: 1 }, ticks: { stroke: "#e3e8ec" }, label: pi === PANELS.length - 1 ? "time (s)" : undefined, size: pi === PANELS.length - 1 ? 44 : 30, font: "11px ui-sans-serif, system-ui", labelFont: "11px ui-sans-serif, system-ui" },
+          { stroke: "#5f7386", grid: { stroke: "#e3e8ec", width: 1 }, ticks: { stroke: "#e3e8ec" }, label: u, size: 56, font: "11px ui-sans-serif, system-ui", labelFont: "11px ui-sans-serif, system-ui" },
+        ],
+        series: [
+          { label: "t (s)", value: (_u, v) => (v === null || v === undefined ? "—" : v.toFixed(2)) },
+          ...p.lines.map((l) => ({
+            label: `${l.label} (${u})`,
+            stroke: l.colour,
+            width: 1.5,
+            dash: l.dash,
+            value: (_u: uPlot, v: number | null) => (v === null || v === undefined ? "—" : v.toFixed(unitOf(p.q, units).digits)),
+          })),
+        ],
+        hooks: {
+          setScale: [
+            (self, key) => {
+              if (key !== "x" || syncing) return;
+              syncing = true;
+              const { min, max } = self.scales.x;
+              for (const o of plots.current) if (o !== self && min !== undefined && max !== undefined) o.setScale("x", { min, max });
+              syncing = false;
+            },
+          ],
+          setCursor: [
+            (self) => {
+              if (pi !== 0) return;
+              const idx = self.cursor.idx;
+              if (idx !== null && idx !== undefined) setCursorIdx(idx);
+            },
+          ],
+        },
+      };
+      const el = holders.current[pi]!;
+      const plot = new uPlot(opts, panelData(p, series, chain, units) as uPlot.AlignedData, el);
+      plot.over.addEventListener("mouseenter", () => (hovering.current = true));
+      plot.over.addEventListener("mouseleave", () => (hovering.current = false));
+      plot.over.addEventListener("click", () => {
+        const left = plot.cursor.left;
+        if (left === undefined || left < 0) return;
+        const s = useReplayStore.getState();
+        s.setPlaying(false);
+        s.setT(plot.posToVal(left, "x"));
+      });
+      plot.over.addEventListener("dblclick", () => {
+        for (const o of plots.current) o.setScale("x", { min: series.t[0], max: series.t[series.t.length - 1] });
+      });
+      return plot;
+    });
+    plots.current = made;
+
+    // The replay clock moves the cursor on every panel (unless the pointer is over a plot).
+    const place = (t: number) => {
+      if (hovering.current) return;
+      const idx = nearestSample(series.t, t);
+      for (const plot of made) {
+        const left = plot.valToPos(series.t[idx], "x");
+        if (Number.isFinite(left)) plot.setCursor({ left, top: 10 }, false);
+      }
+      setCursorIdx(idx);
+    };
+    place(useReplayStore.getState().t);
+    const unsub = useReplayStore.subscribe((s, prev) => {
+      if (s.t !== prev.t) place(s.t);
+    });
+    const ro = new ResizeObserver(() => {
+      const w = Math.max(300, box.current?.clientWidth ?? 800);
+      for (const plot of made) plot.setSize({ width: w, height: 150 });
+    });
+    if (box.current) ro.observe(box.current);
+    return () => {
+      unsub();
+      ro.disconnect();
+      for (const plot of made) plot.destroy();
+      plots.current = [];
+    };
+  }, [series, chain, units]);
+
+  const exportCsv = () => {
+    const blob = new Blob([seriesCsv(series, chain, units)], { type: "text/csv" });
+    const url = URL.createObjectURL(blob);
+    download(`${fileStem}.csv`, url);
+    setTimeout(() => URL.revokeObjectURL(url), 1000);
+  };
+  const exportPng = () => {
+    const canvases = plots.current.map((p) => p.ctx.canvas);
+    if (!canvases.length) return;
+    const titleH = 22;
+    const w = Math.max(...canvases.map((c) => c.width));
+    const h = canvases.reduce((s, c) => s + c.height + titleH, 0);
+    const out = document.createElement("canvas");
+    out.width = w;
+    out.height = h;
+    const ctx = out.getContext("2d")!;
+    ctx.fillStyle = "#ffffff";
+    ctx.fillRect(0, 0, w, h);
+    let y = 0;
+    canvases.forEach((c, i) => {
+      ctx.fillStyle = "#10202e";
+      ctx.font = "bold 14px sans-serif";
+      ctx.fillText(`${PANELS[i].title} (${unitOf(PANELS[i].q, units).label})`, 8, y + 16);
+      ctx.drawImage(c, 0, y + titleH);
+      y += c.height + titleH;
+    });
+    download(`${fileStem}.png`, out.toDataURL("image/png"));
+  };
+
+  const i = cursorIdx;
+  const val = (key: keyof Series, q: Parameters<typeof unitOf>[0]) => {
+    if (i === null) return "—";
+    const u = unitOf(q, units);
+    const v = (series[key] as number[])[i] * u.factor;
+    return `${v.toFixed(u.digits)} ${u.label}`;
+  };
+
+  return (
+    <section className="space-y-2" data-testid="run-plots">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <p className="text-[12px] text-steel-500">Drag across a plot to zoom all four; double-click to zoom out; click to move the replay there.</p>
+        <div className="flex gap-2">
+          <Button size="sm" variant="secondary" onClick={exportCsv} data-testid="export-csv">
+            Export CSV
+          </Button>
+          <Button size="sm" variant="secondary" onClick={exportPng} data-testid="export-png">
+            Export PNG
+          </Button>
+        </div>
+      </div>
+      <div className="flex flex-wrap gap-x-4 gap-y-1 rounded-md border border-steel-300/60 bg-white px-3 py-1.5 font-mono text-[12px] tabular-nums text-ink-900" data-testid="plot-readout">
+        <span>
+          cursor t = <b data-testid="cursor-time">{i === null ? "—" : series.t[i].toFixed(2)}</b> s
+        </span>
+        <span>
+          drive <b data-testid="cursor-drive-tension">{val("driveTension", "force")}</b>
+        </span>
+        <span>
+          highest <b data-testid="cursor-max-tension">{val("maxTension", "force")}</b>
+        </span>
+        <span>
+          dog <b>{val("dogForce", "force")}</b>
+        </span>
+        <span>
+          ARD <b>{val("ardForce", "force")}</b>
+        </span>
+        <span>
+          speed <b>{val("trainSpeed", "speed")}</b>
+        </span>
+        <span>
+          take-up <b>{val("takeUpPosition", "smallLength")}</b>
+        </span>
+      </div>
+      <div ref={box} className="space-y-1 rounded-md border border-steel-300/60 bg-white p-2">
+        {PANELS.map((p, pi) => (
+          <div key={p.id}>
+            <p className="px-1 text-[12px] font-semibold text-ink-800">{p.title}</p>
+            <div
+              ref={(el) => {
+                holders.current[pi] = el;
+              }}
+              data-testid={`plot-${p.id}`}
+            />
+          </div>
+        ))}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,98 @@
+"use client";
+/** A saved run: follows a queued or running run by its event stream, then opens the stored result. */
+import Link from "next/link";
+import { useEffect, useState } from "react";
+import { Alert } from "@/components/ui/Alert";
+import { Badge } from "@/components/ui/Badge";
+import { Button } from "@/components/ui/Button";
+import { ApiError, sendJson } from "@/lib/client/fetch";
+import type { UnitSystem } from "@/lib/client/units";
+import { ProgressBar } from "./ProgressBar";
+import { RunResults } from "./RunResults";
+import { loadServerRun, type RunJson } from "./serverRun";
+import type { RunData } from "./types";
+
+const TONE = { queued: "neutral", running: "lamp", done: "pass", failed: "fail", cancelled: "neutral" } as const;
+
+export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { runId: number; units: UnitSystem; canCancel: boolean; initialT?: number; fileStem: string }) {
+  const [run, setRun] = useState<RunJson | null>(null);
+  const [data, setData] = useState<RunData | null>(null);
+  const [progress, setProgress] = useState(0);
+  const [error, setError] = useState<string | null>(null);
+
+  useEffect(() => {
+    let live = true;
+    let es: EventSource | null = null;
+    const open = async () => {
+      try {
+        const r = await loadServerRun(runId);
+        if (!live) return;
+        setRun(r.run);
+        setProgress(r.run.progress);
+        if (r.data) return setData(r.data);
+        if (r.run.status === "queued" || r.run.status === "running") {
+          es = new EventSource(`/api/runs/${runId}/events`);
+          es.addEventListener("progress", (e) => {
+            const m = JSON.parse((e as MessageEvent).data) as { status: RunJson["status"]; progress: number };
+            setProgress(m.progress);
+            setRun((x) => (x ? { ...x, status: m.status, progress: m.progress } : x));
+          });
+          es.addEventListener("end", () => {
+            es?.close();
+            void open();
+          });
+        }
+      } catch (err) {
+        if (live) setError(err instanceof Error ? err.message : String(err));
+      }
+    };
+    void open();
+    return () => {
+      live = false;
+      es?.close();
+    };
+  }, [runId]);
+
+  const cancel = async () => {
+    try {
+      await sendJson(`/api/runs/${runId}/cancel`, "POST", {});
+    } catch (err) {
+      setError(err instanceof ApiError ? err.message : String(err));
+    }
+  };
+
+  return (
+    <div className="space-y-4" data-testid="saved-run">
+      {run && (
+        <div className="flex flex-wrap items-center gap-3 rounded-lg border border-steel-300/70 bg-white px-4 py-3 text-[13px]">
+          <Badge tone={TONE[run.status]}>
+            <span data-testid="saved-run-status">{run.status}</span>
+          </Badge>
+          <Link className="font-semibold text-ink-900 hover:underline" href={`/scenarios/${run.scenarioId}`}>
+            Open the scenario
+          </Link>
+          <span className="text-steel-500">queued {new Date(run.queuedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}</span>
+          {(run.status === "queued" || run.status === "running") && (
+            <>
+              <ProgressBar value={progress} label="Server run progress" />
+              {canCancel && (
+                <Button size="sm" variant="secondary" onClick={() => void cancel()} data-testid="cancel-server-run">
+                  Cancel
+                </Button>
+              )}
+            </>
+          )}
+        </div>
+      )}
+      {error && <Alert tone="error" title={error} testId="saved-run-error" />}
+      {run?.status === "failed" && (
+        <Alert tone="error" title="The run failed" testId="saved-run-failed">
+          {run.error}
+        </Alert>
+      )}
+      {run?.status === "cancelled" && <Alert tone="info" title="The run was cancelled before it finished." />}
+      {data && <RunResults data={data} units={units} initialT={initialT} fileStem={fileStem} />}
+      {!run && !error && <div className="h-40 animate-pulse rounded-lg bg-steel-100" />}
+    </div>
+  );
+}

@@ -1,0 +1,163 @@
+"use client";
+/**
+ * The run view of a scenario: opens the latest saved run at once, runs the scenario in this browser
+ * (Web Worker, progress, cancel), what-if sliders, and "save" = start the same scenario on the server.
+ */
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useEffect, useState } from "react";
+import type { Scenario } from "@/sim";
+import { Alert } from "@/components/ui/Alert";
+import { Badge } from "@/components/ui/Badge";
+import { Button } from "@/components/ui/Button";
+import { ApiError, sendJson } from "@/lib/client/fetch";
+import { useResource } from "@/lib/client/hooks";
+import type { UnitSystem } from "@/lib/client/units";
+import { ProgressBar } from "./ProgressBar";
+import { RunResults } from "./RunResults";
+import { loadServerRun, type RunJson } from "./serverRun";
+import { shownData, useRunStore } from "./store";
+import { useWorkerRun } from "./useWorkerRun";
+import { WhatIfPanel } from "./WhatIfPanel";
+
+const STATUS_TONE = { queued: "neutral", running: "lamp", done: "pass", failed: "fail", cancelled: "neutral" } as const;
+
+export function ScenarioRunView({
+  scenarioId,
+  scenario,
+  units,
+  canStart,
+  initialT,
+  fileStem,
+}: {
+  scenarioId: number;
+  scenario: Scenario | null;
+  units: UnitSystem;
+  canStart: boolean;
+  initialT?: number;
+  fileStem: string;
+}) {
+  const router = useRouter();
+  const { status, progress, error, whatIf } = useRunStore();
+  const data = useRunStore((s) => shownData(s));
+  const reset = useRunStore((s) => s.reset);
+  const set = useRunStore((s) => s.set);
+  const { runFull, cancel, runPreview } = useWorkerRun();
+  const runs = useResource<{ runs: RunJson[]; total: number }>(`/api/scenarios/${scenarioId}/runs?pageSize=8`);
+  const [openFailed, setOpenFailed] = useState(false);
+  const [saveMsg, setSaveMsg] = useState<{ tone: "error" | "info"; text: string } | null>(null);
+  const [saving, setSaving] = useState(false);
+
+  useEffect(() => {
+    reset();
+    return () => reset();
+  }, [reset, scenarioId]);
+
+  // A saved run opens at once from its stored result.
+  const latestDone = runs.data?.runs.find((r) => r.status === "done");
+  useEffect(() => {
+    if (!latestDone || useRunStore.getState().data) return;
+    let live = true;
+    loadServerRun(latestDone.id)
+      .then(({ data: d }) => {
+        if (live && d && !useRunStore.getState().data) set({ data: d, status: "idle" });
+      })
+      .catch(() => live && setOpenFailed(true));
+    return () => {
+      live = false;
+    };
+  }, [latestDone, set]);
+
+  async function saveOnServer() {
+    setSaving(true);
+    setSaveMsg(null);
+    try {
+      const res = await sendJson<{ run: RunJson }>(`/api/scenarios/${scenarioId}/runs`, "POST", {});
+      router.push(`/runs/${res.run.id}`);
+    } catch (err) {
+      setSaveMsg({ tone: "error", text: err instanceof ApiError ? err.message : String(err) });
+      setSaving(false);
+    }
+  }
+
+  if (!scenario)
+    return (
+      <Alert tone="error" title="This scenario cannot be run as it stands" testId="scenario-invalid">
+        Its lift revision or train no longer makes a valid engine scenario. Edit the scenario or pin another revision.
+      </Alert>
+    );
+
+  return (
+    <div className="space-y-4" data-testid="run-view">
+      <div className="flex flex-wrap items-center gap-3 rounded-lg border border-steel-300/70 bg-white px-4 py-3">
+        {canStart ? (
+          <>
+            <Button onClick={() => void runFull(whatIf ? { ...scenario, train: { ...scenario.train, entrySpeed: whatIf.entrySpeed }, drive: { ...scenario.drive, speed: whatIf.chainSpeed }, takeUp: { ...scenario.takeUp, mass: whatIf.takeUpMass } } : scenario)} disabled={status === "running"} data-testid="run-in-browser">
+              Run in this browser
+            </Button>
+            {status === "running" && (
+              <Button variant="secondary" onClick={cancel} data-testid="cancel-run">
+                Cancel
+              </Button>
+            )}
+            {status === "running" ? (
+              <ProgressBar value={progress} label="Browser run progress" />
+            ) : (
+              <span className="text-[12.5px] text-steel-500" data-testid="run-status">
+                {status === "done" ? "Browser run done." : status === "cancelled" ? "Cancelled." : status === "failed" ? "The run failed." : "Runs here stay in this browser until you save."}
+              </span>
+            )}
+            <div className="ml-auto flex items-center gap-2">
+              <Button variant="secondary" onClick={() => void saveOnServer()} busy={saving} disabled={!!whatIf} data-testid="save-run" title="Starts the same scenario on the server, which keeps the run and its result">
+                Save run on the server
+              </Button>
+            </div>
+          </>
+        ) : (
+          <span className="text-[12.5px] text-steel-500" data-testid="read-only-note">
+            Read only: your role may open saved runs but not start them.
+          </span>
+        )}
+      </div>
+      {canStart && (
+        <p className="-mt-2 text-[11.5px] text-steel-500">
+          Saving starts this scenario on the server (the server computes and keeps its own copy; the runs API does not take results from browsers) and opens it when it is done.
+          {whatIf ? " Reset the what-if sliders first: what-if values are not part of the scenario." : ""}
+        </p>
+      )}
+      {error && (
+        <Alert tone="error" title="The run stopped" testId="run-error">
+          {error}
+        </Alert>
+      )}
+      {saveMsg && <Alert tone={saveMsg.tone === "error" ? "error" : "info"} title={saveMsg.text} testId="save-run-message" />}
+
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_300px]">
+        <div className="min-w-0">{canStart && <WhatIfPanel base={scenario} units={units} runPreview={runPreview} runFull={runFull} />}</div>
+        <section className="rounded-lg border border-steel-300/70 bg-white" data-testid="saved-runs">
+          <h3 className="border-b border-steel-100 px-4 py-2 text-[13px] font-bold text-ink-900">Saved runs</h3>
+          <ul className="max-h-48 divide-y divide-steel-100 overflow-y-auto">
+            {runs.data?.runs.map((r) => (
+              <li key={r.id} className="flex items-center gap-2 px-4 py-1.5 text-[12.5px]">
+                <Link href={`/runs/${r.id}`} className="font-mono font-semibold text-ink-900 hover:text-lamp-600 hover:underline">
+                  Run {r.id}
+                </Link>
+                <Badge tone={STATUS_TONE[r.status]}>{r.status}</Badge>
+                <span className="ml-auto text-[11.5px] text-steel-500">{new Date(r.queuedAt).toLocaleString("en-GB", { dateStyle: "short", timeStyle: "short" })}</span>
+              </li>
+            ))}
+            {runs.data && runs.data.runs.length === 0 && <li className="px-4 py-2 text-[12.5px] text-steel-500">No saved runs yet.</li>}
+          </ul>
+        </section>
+      </div>
+
+      {data ? (
+        <RunResults data={data} units={units} initialT={initialT} fileStem={fileStem} />
+      ) : (
+        <div className="rounded-lg border border-dashed border-steel-300 px-6 py-12 text-center text-[13.5px] text-steel-500" data-testid="no-result">
+          {latestDone && !openFailed ? "Opening the latest saved run…" : canStart ? "No result yet: run the scenario in this browser, or save a run on the server." : "No saved run of this scenario yet."}
+        </div>
+      )}
+    </div>
+  );
+}

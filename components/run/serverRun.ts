@@ -1,0 +1,55 @@
+/** A saved server run as RunData: the run (with its input scenario) and its stored result. */
+import type { Frame, Layout, Scenario, Series, Summary } from "@/sim";
+import { getJson } from "@/lib/client/fetch";
+import { checksFor } from "./compute";
+import type { RunData } from "./types";
+
+export interface RunJson {
+  id: number;
+  scenarioId: number;
+  liftRevisionId: number;
+  status: "queued" | "running" | "done" | "failed" | "cancelled";
+  progress: number;
+  summary: Record<string, unknown> | null;
+  wallTimeMs: number | null;
+  error: string | null;
+  errorCode: string | null;
+  queuedAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  version: number;
+  solver: Record<string, unknown>;
+  inputs?: Record<string, unknown>;
+}
+
+interface ResultJson {
+  runId: number;
+  format: string;
+  summary: Record<string, unknown> | null;
+  result: { series: Series; frames: Frame[]; notes?: string[]; layout: Layout };
+}
+
+export function toRunData(run: RunJson, res: ResultJson): RunData {
+  const scenario = run.inputs as unknown as Scenario;
+  const summary = (res.summary ?? run.summary) as unknown as Summary;
+  const r = res.result;
+  return {
+    scenario,
+    summary,
+    series: r.series,
+    frames: r.frames.map((f) => ({ ...f, tensions: Array.from(f.tensions) })),
+    layout: { ...r.layout, stations: Array.from(r.layout.stations) },
+    notes: r.notes ?? [],
+    checks: checksFor(scenario, summary),
+    origin: "server",
+    runId: run.id,
+    wallTimeMs: run.wallTimeMs ?? 0,
+  };
+}
+
+export async function loadServerRun(runId: number): Promise<{ run: RunJson; data: RunData | null }> {
+  const run = await getJson<RunJson>(`/api/runs/${runId}`);
+  if (run.status !== "done") return { run, data: null };
+  const res = await getJson<ResultJson>(`/api/runs/${runId}/result`);
+  return { run, data: toRunData(run, res) };
+}

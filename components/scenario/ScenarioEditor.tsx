@@ -1,0 +1,190 @@
+"use client";
+/** Create or change a scenario: lift and pinned revision, train and loading, entry conditions, run settings. */
+import { useMemo, useState } from "react";
+import { useRouter } from "next/navigation";
+import { z } from "zod";
+import { Alert } from "@/components/ui/Alert";
+import { Button } from "@/components/ui/Button";
+import { Input, Select } from "@/components/ui/Field";
+import { NumberField, Section } from "@/components/lift/NumberField";
+import { getPath, setPath, zodErrors, type Draft, type FieldDef } from "@/components/lift/form-model";
+import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/types";
+import type { TrainJson } from "@/components/train/TrainEditor";
+import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
+import { useList } from "@/lib/client/hooks";
+import type { UnitSystem } from "@/lib/client/units";
+import { INTEGRATORS, runSettingsSchema, trainSchema } from "@/sim/schema";
+import { LOADING_LABELS, type ScenarioJson } from "./types";
+
+const LOADINGS = ["empty", "full", "riders"] as const;
+
+/** The browser's check of the scenario fields: the engine's own field rules (sim/schema.ts). */
+const scenarioFormSchema = z.object({
+  name: z.string({ error: "name must be text" }).trim().min(1, { error: "name must not be empty" }).max(200, { error: "name must be at most 200 characters" }),
+  liftId: z.number({ error: "choose a lift" }).int().positive({ error: "choose a lift" }),
+  trainId: z.number({ error: "choose a train" }).int().positive({ error: "choose a train" }),
+  loading: z.enum(LOADINGS),
+  riderCount: z.number().int().min(0).max(2000).nullish(),
+  entrySpeed: trainSchema.shape.entrySpeed,
+  startPosition: trainSchema.shape.startPosition,
+  runSettings: runSettingsSchema,
+});
+
+const FIELDS: FieldDef[] = [
+  { path: "entrySpeed", label: "Entry speed", q: "speed", hint: "Train speed as it rolls onto the chain" },
+  { path: "startPosition", label: "Start position (train front)", q: "length" },
+  { path: "runSettings.duration", label: "Simulated time", q: "time" },
+  { path: "runSettings.segments", label: "Chain segments", q: "count", int: true, hint: "More segments: finer waves, slower run" },
+];
+
+export function ScenarioEditor({ scenario, units, canWrite }: { scenario: ScenarioJson | null; units: UnitSystem; canWrite: boolean }) {
+  const router = useRouter();
+  const [draft, setDraft] = useState<Draft>(() =>
+    scenario
+      ? {
+          name: scenario.name,
+          notes: scenario.notes ?? "",
+          liftId: scenario.liftId,
+          liftRevisionId: scenario.liftRevisionId,
+          trainId: scenario.trainId,
+          loading: scenario.loading,
+          riderCount: scenario.riderCount,
+          entrySpeed: scenario.entrySpeed,
+          startPosition: scenario.startPosition,
+          runSettings: { duration: 40, segments: 60, ...scenario.runSettings },
+        }
+      : { name: "", notes: "", loading: "full", entrySpeed: 2, startPosition: 14, runSettings: { duration: 40, segments: 60 } },
+  );
+  const [version, setVersion] = useState(scenario?.version ?? 0);
+  const [touched, setTouched] = useState<Set<string>>(new Set());
+  const [showAll, setShowAll] = useState(false);
+  const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
+  const [banner, setBanner] = useState<{ tone: "success" | "error" | "caution"; title: string; text?: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const lifts = useList<LiftListItemJson>("/api/lifts", { pageSize: 100 });
+  const trains = useList<TrainJson>("/api/trains", { pageSize: 100 });
+  const liftId = draft.liftId as number | undefined;
+  const revisions = useList<RevisionListItemJson>(liftId ? `/api/lifts/${liftId}/revisions` : "/api/lifts/0/revisions", { pageSize: 50 }, { isPaused: () => !liftId });
+
+  const errors = useMemo(() => {
+    const r = scenarioFormSchema.safeParse(draft);
+    return r.success ? {} : zodErrors(r.error.issues);
+  }, [draft]);
+  const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
+  const set = (p: string, v: unknown) => {
+    setDraft((d) => setPath(d, p, v));
+    setTouched((t) => new Set(t).add(p));
+    setServerErrors((e) => (p in e ? Object.fromEntries(Object.entries(e).filter(([k]) => k !== p)) : e));
+  };
+  const disabled = !canWrite || busy;
+
+  async function save() {
+    setBanner(null);
+    if (Object.keys(errors).length) {
+      setShowAll(true);
+      setBanner({ tone: "error", title: "Some fields need attention", text: "Nothing was saved." });
+      return;
+    }
+    setBusy(true);
+    const body: Record<string, unknown> = { ...draft, notes: draft.notes || null };
+    if (body.loading !== "riders") delete body.riderCount;
+    if (!body.liftRevisionId) delete body.liftRevisionId;
+    try {
+      if (!scenario) {
+        const created = await sendJson<ScenarioJson>("/api/scenarios", "POST", body);
+        router.push(`/scenarios/${created.id}`);
+        return;
+      }
+      const saved = await sendJson<ScenarioJson>(`/api/scenarios/${scenario.id}`, "PATCH", { version, ...body });
+      setVersion(saved.version);
+      setTouched(new Set());
+      setBanner({ tone: "success", title: `Saved (version ${saved.version}).` });
+      router.refresh();
+    } catch (err) {
+      if (err instanceof ApiError && err.status === 409)
+        setBanner({ tone: "caution", title: "This scenario changed while you were editing", text: `${err.message} Nothing was saved.` });
+      else if (err instanceof ApiError && err.status === 400) {
+        setServerErrors(issueMap(err.issues));
+        setShowAll(true);
+        setBanner({ tone: "error", title: "The server did not accept the scenario", text: err.issues.map((i) => `${i.path}: ${i.message}`).join(" · ") || err.message });
+      } else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const selectErr = (p: string) => shown(p) && <p data-testid={`error-${p}`} className="mt-1 text-[12px] font-medium text-fail">{shown(p)}</p>;
+  return (
+    <form
+      className="space-y-4"
+      noValidate
+      data-testid="scenario-form"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void save();
+      }}
+    >
+      {banner && (
+        <Alert tone={banner.tone} testId="save-banner" title={banner.title}>
+          {banner.text}
+        </Alert>
+      )}
+      <div className="grid gap-3 rounded-lg border border-steel-300/70 bg-white px-4 py-3.5 sm:grid-cols-2 xl:grid-cols-3">
+        <div className="sm:col-span-2 xl:col-span-1">
+          <label htmlFor="f-name" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Name</label>
+          <Input id="f-name" className="h-9" value={String(draft.name ?? "")} disabled={disabled} invalid={!!shown("name")} onChange={(e) => set("name", e.target.value)} />
+          {selectErr("name")}
+        </div>
+        <div>
+          <label htmlFor="f-liftId" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Lift</label>
+          <Select id="f-liftId" className="h-9" value={liftId ? String(liftId) : ""} disabled={disabled} onChange={(e) => { set("liftId", e.target.value ? Number(e.target.value) : undefined); set("liftRevisionId", undefined); }}>
+            <option value="">Choose a lift</option>
+            {lifts.data?.items.map((l) => <option key={l.id} value={l.id}>{l.name}</option>)}
+          </Select>
+          {selectErr("liftId")}
+        </div>
+        <div>
+          <label htmlFor="f-liftRevisionId" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Pinned revision</label>
+          <Select id="f-liftRevisionId" className="h-9" value={draft.liftRevisionId ? String(draft.liftRevisionId) : ""} disabled={disabled || !liftId} onChange={(e) => set("liftRevisionId", e.target.value ? Number(e.target.value) : undefined)}>
+            <option value="">The current revision</option>
+            {revisions.data?.items.map((r) => <option key={r.id} value={r.id}>r{r.number}{r.current ? " (current)" : ""} · {r.changeSummary ?? "no note"}</option>)}
+          </Select>
+          {selectErr("liftRevisionId")}
+        </div>
+        <div>
+          <label htmlFor="f-trainId" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Train</label>
+          <Select id="f-trainId" className="h-9" value={draft.trainId ? String(draft.trainId) : ""} disabled={disabled} onChange={(e) => set("trainId", e.target.value ? Number(e.target.value) : undefined)}>
+            <option value="">Choose a train</option>
+            {trains.data?.items.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
+          </Select>
+          {selectErr("trainId")}
+        </div>
+        <div>
+          <label htmlFor="f-loading" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Loading</label>
+          <Select id="f-loading" className="h-9" value={String(draft.loading)} disabled={disabled} onChange={(e) => set("loading", e.target.value)}>
+            {LOADINGS.map((l) => <option key={l} value={l}>{LOADING_LABELS[l]}</option>)}
+          </Select>
+        </div>
+        {draft.loading === "riders" && (
+          <NumberField def={{ path: "riderCount", label: "Riders in the train", q: "count", int: true }} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
+        )}
+        <div>
+          <label htmlFor="f-integrator" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Integrator</label>
+          <Select id="f-integrator" className="h-9" value={String(getPath(draft, "runSettings.integrator") ?? "verlet")} disabled={disabled} onChange={(e) => set("runSettings.integrator", e.target.value)}>
+            {INTEGRATORS.map((i) => <option key={i} value={i}>{i === "verlet" ? "Verlet (fast, default)" : "odex (reference)"}</option>)}
+          </Select>
+        </div>
+      </div>
+      <Section title="Entry and run settings">
+        {FIELDS.map((f) => (
+          <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
+        ))}
+      </Section>
+      {canWrite && (
+        <Button type="submit" busy={busy} data-testid="save-scenario">
+          {scenario ? "Save scenario" : "Create scenario"}
+        </Button>
+      )}
+    </form>
+  );
+}

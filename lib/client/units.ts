@@ -1,0 +1,124 @@
+/**
+ * Display units at the edge: values are SI inside; the screen shows the user's system (SI or US customary).
+ * Each quantity kind of the forms and read-outs has one SI display unit and one US customary unit; the
+ * exact factors come from the engine's units module (sim/units.ts).
+ */
+import { FOOT as FT, HORSEPOWER as HP, INCH, POUND_FORCE as LBF, POUND_MASS as LB, type UnitSystem } from "@/sim/units";
+
+export type { UnitSystem };
+
+export type Quantity =
+  | "length"
+  | "smallLength"
+  | "mass"
+  | "force"
+  | "speed"
+  | "massPerLength"
+  | "axialStiffness"
+  | "stiffness"
+  | "power"
+  | "torque"
+  | "area"
+  | "damping"
+  | "time"
+  | "angle"
+  | "accelG"
+  | "ratio"
+  | "percent"
+  | "count"
+  | "rate"
+  | "tempDelta"
+  | "perKelvin";
+
+export interface DisplayUnit {
+  /** Unit label shown beside a field. */
+  label: string;
+  /** Multiply an SI value by this to get the display value. */
+  factor: number;
+  /** Significant decimals for read-outs. */
+  digits: number;
+}
+
+
+const SI: Record<Quantity, DisplayUnit> = {
+  length: { label: "m", factor: 1, digits: 2 },
+  smallLength: { label: "mm", factor: 1000, digits: 1 },
+  mass: { label: "kg", factor: 1, digits: 0 },
+  force: { label: "kN", factor: 1e-3, digits: 1 },
+  speed: { label: "m/s", factor: 1, digits: 2 },
+  massPerLength: { label: "kg/m", factor: 1, digits: 2 },
+  axialStiffness: { label: "MN", factor: 1e-6, digits: 2 },
+  stiffness: { label: "kN/m", factor: 1e-3, digits: 0 },
+  power: { label: "kW", factor: 1e-3, digits: 1 },
+  torque: { label: "kN·m", factor: 1e-3, digits: 2 },
+  area: { label: "m²", factor: 1, digits: 2 },
+  damping: { label: "N·s", factor: 1, digits: 0 },
+  time: { label: "s", factor: 1, digits: 2 },
+  angle: { label: "°", factor: 1, digits: 1 },
+  accelG: { label: "g", factor: 1, digits: 2 },
+  ratio: { label: "", factor: 1, digits: 3 },
+  percent: { label: "%", factor: 1, digits: 1 },
+  count: { label: "", factor: 1, digits: 0 },
+  rate: { label: "mm/s", factor: 1000, digits: 2 },
+  tempDelta: { label: "K", factor: 1, digits: 0 },
+  perKelvin: { label: "1/K", factor: 1, digits: 7 },
+};
+
+const US: Record<Quantity, DisplayUnit> = {
+  ...SI,
+  length: { label: "ft", factor: 1 / FT, digits: 2 },
+  smallLength: { label: "in", factor: 1 / INCH, digits: 2 },
+  mass: { label: "lb", factor: 1 / LB, digits: 0 },
+  force: { label: "kip", factor: 1 / (1000 * LBF), digits: 2 },
+  speed: { label: "ft/s", factor: 1 / FT, digits: 2 },
+  massPerLength: { label: "lb/ft", factor: FT / LB, digits: 2 },
+  axialStiffness: { label: "kip", factor: 1 / (1000 * LBF), digits: 0 },
+  stiffness: { label: "lbf/in", factor: INCH / LBF, digits: 0 },
+  power: { label: "hp", factor: 1 / HP, digits: 1 },
+  torque: { label: "lbf·ft", factor: 1 / (LBF * FT), digits: 0 },
+  area: { label: "ft²", factor: 1 / (FT * FT), digits: 2 },
+  damping: { label: "lbf·s", factor: 1 / LBF, digits: 0 },
+  rate: { label: "in/s", factor: 1 / INCH, digits: 3 },
+  tempDelta: { label: "°F", factor: 1.8, digits: 0 },
+  perKelvin: { label: "1/°F", factor: 1 / 1.8, digits: 7 },
+};
+
+export function unitOf(q: Quantity, system: UnitSystem): DisplayUnit {
+  return (system === "us" ? US : SI)[q];
+}
+
+/** SI → display value. */
+export function toDisplay(si: number, q: Quantity, system: UnitSystem): number {
+  return si * unitOf(q, system).factor;
+}
+
+/** Display value → SI. */
+export function fromDisplay(shown: number, q: Quantity, system: UnitSystem): number {
+  return shown / unitOf(q, system).factor;
+}
+
+/** A read-out with its unit, e.g. "161.3 kN" (null / non-finite → "—"). */
+export function formatQuantity(si: number | null | undefined, q: Quantity, system: UnitSystem, digits?: number): string {
+  if (si === null || si === undefined || !Number.isFinite(si)) return "—";
+  const u = unitOf(q, system);
+  const v = si * u.factor;
+  const text = v.toLocaleString("en-GB", {
+    minimumFractionDigits: digits ?? u.digits,
+    maximumFractionDigits: digits ?? u.digits,
+  });
+  return u.label ? `${text} ${u.label}` : text;
+}
+
+/** A number as typed into a field: up to 6 significant digits, no grouping. */
+export function editText(si: number | null | undefined, q: Quantity, system: UnitSystem): string {
+  if (si === null || si === undefined || !Number.isFinite(si)) return "";
+  const v = si * unitOf(q, system).factor;
+  return String(Number(v.toPrecision(6)));
+}
+
+/** Parses a typed number (accepts a leading/trailing space, rejects empty text and junk). */
+export function parseTyped(text: string): number | undefined {
+  const t = text.trim().replace(/,/g, "");
+  if (t === "" || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return undefined;
+  return Number(t);
+}
