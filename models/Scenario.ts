@@ -7,8 +7,9 @@ import {
   type Sequelize,
 } from "sequelize";
 
-export const LOADINGS = ["empty", "full", "riders"] as const;
-export type Loading = (typeof LOADINGS)[number];
+import { LOADINGS, type Loading } from "@/lib/scenarios/loading";
+
+export { LOADINGS, type Loading };
 
 /**
  * A case to run: a pinned lift revision + a train + a loading case + entry conditions + run settings.

@@ -1,11 +1,6 @@
-import { z } from "zod";
 import { HttpError } from "@/lib/http/errors";
 
-/** Every update carries the version it edits. */
-export const versionField = z
-  .number({ error: "version is required: send the version you are editing" })
-  .int({ error: "version must be a whole number" })
-  .min(1, { error: "version must be at least 1" });
+export { versionField } from "./version";
 
 /**
  * A stale update answers 409 and writes nothing. The answer names the current version (issue on path

@@ -9,7 +9,7 @@ import {
   takeUpSchema,
 } from "@/sim/schema";
 import { nameField, optionalText } from "@/lib/api/text";
-import { versionField } from "@/lib/api/concurrency";
+import { versionField } from "@/lib/api/version";
 
 /**
  * What one lift revision holds: the engine's sections (same schemas as `sim/`, so a revision always

@@ -1,4 +1,4 @@
-import type { Loading } from "@/models/Scenario";
+import type { Loading } from "@/lib/scenarios/loading";
 
 export interface TrainMassData {
   cars: number;
