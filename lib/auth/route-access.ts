@@ -115,6 +115,8 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
     refusalsOnly: ["DELETE"],
   },
   "/api/scenarios/[id]/export": { methods: { GET: needs("design:read") }, rows: { id: "scenarios" } },
+  // The probe's empty name fails validation, so the access test makes no copy.
+  "/api/scenarios/[id]/copy": { methods: { POST: needs("design:write") }, rows: { id: "scenarios" }, probeBody: { name: "" } },
   "/api/scenarios/[id]/comments": {
     methods: { GET: needs("design:read"), POST: needs("comment:write") },
     rows: { id: "scenarios" },

@@ -237,7 +237,7 @@ export async function createScenario(actor: Actor, input: unknown): Promise<Scen
 }
 
 function assertNotFrozen(s: Scenario): void {
-  if (s.frozenAt) throw conflict("This scenario is frozen (approved); it cannot be changed. Copy it to change it.");
+  if (s.frozenAt) throw conflict("This scenario is frozen (approved); it cannot be changed. Copy it (POST …/copy) to change it.");
 }
 
 /**
@@ -279,6 +279,34 @@ export async function updateScenario(actor: Actor, id: number, input: unknown): 
     await recordAudit({ transaction, actor, entity: "scenario", entityId: row.id, action: "update", before, after });
     return after;
   });
+}
+
+export const scenarioCopySchema = z
+  .object({ name: scenarioInputSchema.shape.name.optional() })
+  .strict();
+
+/**
+ * A new scenario with the same inputs, pinned to the same lift revision (e.g. to change a frozen,
+ * approved scenario without touching the record of what was approved). Runs and comments stay with the original.
+ */
+export async function copyScenario(actor: Actor, id: number, input: unknown = {}): Promise<ScenarioView> {
+  assertCan(actor, "design:write");
+  const { scenario } = await loadScenarioParts(actor, id);
+  const { name } = validate(scenarioCopySchema, input);
+  const raw: Record<string, unknown> = {
+    name: name ?? `${scenario.name.slice(0, 193)} (copy)`,
+    notes: scenario.notes,
+    liftId: scenario.liftId,
+    liftRevisionId: scenario.liftRevisionId,
+    trainId: scenario.trainId,
+    loading: scenario.loading,
+    ...(scenario.loading === "riders" ? { riderCount: scenario.riderCount } : {}),
+    entrySpeed: scenario.entrySpeed,
+    startPosition: scenario.startPosition,
+    runSettings: scenario.runSettings,
+  };
+  const resolved = await resolveInput(actor, raw, { liftId: scenario.liftId, trainId: scenario.trainId });
+  return getSequelize().transaction((transaction) => createScenarioIn(actor, resolved, "create", transaction));
 }
 
 async function countRuns(scenarioId: number, transaction: Transaction): Promise<number> {

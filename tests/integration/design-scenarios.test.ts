@@ -6,6 +6,7 @@ import { getModels } from "@/models";
 import { createLift, updateLift } from "@/lib/lifts/service";
 import { createTrain } from "@/lib/trains/service";
 import {
+  copyScenario,
   createScenario,
   deleteScenario,
   exportScenario,
@@ -106,13 +107,20 @@ describe("revision pinning", () => {
     expect(err.issues.map((i) => i.path)).toEqual(["liftRevisionId"]);
   });
 
-  it("a frozen scenario refuses edits and deletion with 409", async () => {
+  it("a frozen scenario refuses edits and deletion with 409; a copy can be changed", async () => {
     const eng = org.as.engineer;
     const s = await createScenario(eng, scenarioBody(liftId, trainId, { name: "Frozen scenario" }));
     await getModels().Scenario.update({ frozenAt: new Date() }, { where: { id: s.id } });
     await expectHttpError(() => updateScenario(eng, s.id, { version: 1, name: "Changed" }), 409);
     await expectHttpError(() => deleteScenario(eng, s.id), 409);
     expect((await getScenario(eng, s.id)).name).toBe("Frozen scenario");
+    // A copy is a new, unfrozen scenario on the same pinned revision.
+    const copy = await copyScenario(eng, s.id, {});
+    expect([copy.name, copy.liftRevisionId, copy.frozenAt, copy.version]).toEqual(["Frozen scenario (copy)", s.liftRevisionId, null, 1]);
+    expect((await updateScenario(eng, copy.id, { version: 1, entrySpeed: 2.0 })).entrySpeed).toBe(2.0);
+    await expectHttpError(() => copyScenario(org.as.viewer, s.id, {}), 403);
+    await expectHttpError(() => copyScenario(other.as.engineer, s.id, {}), 404);
+    await expectHttpError(() => copyScenario(eng, s.id, { name: "" }), 400);
   });
 });
 
