@@ -11,9 +11,11 @@ const LBF = 4.4482216152605; // N per lbf, exact
 const LB_PER_FT = 0.45359237 / 0.3048; // kg/m per lb/ft
 
 /**
- * E·A assumed as 30 × the minimum breaking strength: a chain at one fifth of its breaking strength then
- * stretches about 0.7 %, the order of a heavy lift chain of about 120 m stretching 450–600 mm at working
- * load (REFERENCES.md, common practice, no source). An assumption, not a published value.
+ * E·A assumed as 30 × the minimum breaking strength (the ratio of the scenario format's example chain,
+ * 1.5e7 N / 5e5 N). A chain at one fifth of its breaking strength then stretches 1/150 ≈ 0.67 %: 0.8 m
+ * over 120 m if the whole length carried that tension, the same order as the 450–600 mm quoted for a
+ * heavy lift chain of about 120 m at working load (REFERENCES.md, common practice, no source).
+ * An assumption, not a published value.
  */
 export const ASSUMED_STIFFNESS_PER_STRENGTH = 30;
 
