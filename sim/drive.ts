@@ -6,7 +6,8 @@ export interface DriveMotion {
 }
 
 export function driveMotion(speed: number, rampTime: number): DriveMotion {
-  if (rampTime <= 0) {
+  // A ramp shorter than a microsecond is a sudden start (its acceleration would be meaningless).
+  if (rampTime < 1e-6) {
     // A sudden start: full speed from t = 0 on (the chain stations keep their absolute rest at t = 0).
     return {
       displacement: (t) => (t > 0 ? speed * t : 0),

@@ -78,6 +78,7 @@ export class LiftSystem {
   drivePower = 0; // mechanical power into the chain, W
   dissipation = 0; // W
   evaluations = 0;
+  driveAccelInRhs = true;
 
   constructor(s: Scenario, opts: SystemOptions = {}) {
     this.s = s;
@@ -268,7 +269,10 @@ export class LiftSystem {
     // Prescribed drive station: the sprocket supplies whatever force keeps it on its motion.
     const d = loop.driveNode;
     const Fd = mass[d] * ad - aw[d];
-    for (let i = 0; i < n; i++) aw[i] = aw[i] * invM[i] - ad;
+    // Relative to transport, each station feels −a_d; the fixed-step path applies the drive's exact velocity
+    // change per half step instead (so a ramp shorter than a step is still right) and sets driveAccelInRhs off.
+    const adRel = this.driveAccelInRhs ? ad : 0;
+    for (let i = 0; i < n; i++) aw[i] = aw[i] * invM[i] - adRel;
     aw[d] = 0;
     this.driveForce = Fd;
     this.driveTension = T[d - 1];
@@ -341,42 +345,60 @@ export class LiftSystem {
   }
 
   /**
-   * Highest frequency bound (rad/s) and damping rate for the explicit step: Gershgorin bound on the
-   * stiffness per mass, 2·(k_left + k_right)/m per station, plus the contacts on their masses.
+   * Stable explicit step, from a Gershgorin bound per degree of freedom: stiffness rows
+   * 2·(k_left + k_right)/m (plus contacts and take-up coupling) and damping rows (chain damping, contact
+   * damping, and the smoothed friction laws, which act as dashpots of rate friction/(v_s·m) near rest).
+   * Each gives the damped central-difference limit 2(√(1+ζ²) − ζ)/ω; the step is their minimum.
    */
   stabilityLimit(): { omega: number; zeta: number; dt: number } {
     const loop = this.loop;
-    let w2 = 0;
-    let beta = 0;
     const n = this.n;
+    const vs = FRICTION_SMOOTHING_SPEED;
+    const g = this.g;
+    const mu = this.s.chain.massPerLength;
+    let omegaMax = 0;
+    let zetaAt = 0;
+    let dt = Infinity;
+    const consider = (w2: number, beta: number) => {
+      const w = Math.sqrt(Math.max(0, w2));
+      const d = w > 0 ? (2 * (Math.sqrt(1 + (beta / (2 * w)) ** 2) - beta / (2 * w))) / w : beta > 0 ? 2 / beta : Infinity;
+      if (w > omegaMax) omegaMax = w;
+      if (d < dt) {
+        dt = d;
+        zetaAt = w > 0 ? beta / (2 * w) : Infinity;
+      }
+    };
+    // A generous tension scale for the friction normal load on curves.
+    let zMax = 0;
+    for (let i = 0; i < n; i++) zMax = Math.max(zMax, loop.z[i] - loop.zBottom);
+    const tScale = 2 * (this.takeUp.mass * g * 0.5 + mu * g * zMax + this.train.mass * g);
+    const legK = new Float64Array(n);
+    for (const leg of loop.legs) legK[leg.seg] = this.EA * leg.weight * this.invL[leg.seg];
     for (let i = 0; i < n; i++) {
       if (i === loop.driveNode) continue;
       const p = i > 0 ? i - 1 : n - 1;
       const kk = this.EA * (this.invL[i] + this.invL[p]);
-      const cc = this.damping * (this.invL[i] + this.invL[p]);
+      const cc = this.damping * (this.invL[i] + this.invL[p]) + 0.5 * this.damping * (this.legY[i] * this.invL[i] + this.legY[p] * this.invL[p]);
       // The dog couples a strand station to the train too: its row holds the contact twice.
-      const contact = i <= loop.nsStrand ? 2 * this.dogStiffness : 0;
-      const cContact = i <= loop.nsStrand ? this.dogDamping : 0;
-      w2 = Math.max(w2, (2 * kk + contact) * this.invM[i]);
-      beta = Math.max(beta, (2 * cc + cContact) * this.invM[i]);
+      const onStrand = i <= loop.nsStrand;
+      const contact = onStrand ? 2 * this.dogStiffness : 0;
+      const cContact = onStrand ? 2 * this.dogDamping : 0;
+      const len = loop.mass[i] / mu;
+      const N = loop.guided[i] ? mu * g * loop.cosPhi[i] * len + tScale * Math.abs(loop.kappa[i]) * len : 0;
+      const cFriction = (this.frictionCoef * N) / vs;
+      consider((2 * kk + contact + legK[i] + legK[p]) * this.invM[i], (2 * cc + cContact + cFriction) * this.invM[i]);
     }
     const tu = this.takeUp;
     let kLegs = 0;
+    let cLegs = 0;
     for (const leg of loop.legs) {
-      const k = this.EA * leg.weight * this.invL[leg.seg];
-      kLegs += leg.weight * k;
-      // Stations at the ends of a leg also feel the take-up through it.
-      const a = leg.seg;
-      const b = (leg.seg + 1) % n;
-      w2 = Math.max(w2, (2 * this.EA * (this.invL[a] + this.invL[(a - 1 + n) % n]) + k) * this.invM[a] + this.dogStiffness * this.invM[a]);
-      w2 = Math.max(w2, (2 * this.EA * (this.invL[b] + this.invL[a]) + k) * this.invM[b]);
+      kLegs += leg.weight * legK[leg.seg];
+      cLegs += leg.weight * leg.weight * this.damping * this.invL[leg.seg];
     }
-    w2 = Math.max(w2, (2 * kLegs + tu.stopStiffness) / tu.mass);
-    w2 = Math.max(w2, (this.dogStiffness + this.ardStiffness) / this.train.mass);
-    const omega = Math.sqrt(w2);
-    const zeta = beta / (2 * omega);
-    // Damped central-difference limit: ω·Δt ≤ 2(√(1+ζ²) − ζ).
-    const dt = (2 * (Math.sqrt(1 + zeta * zeta) - zeta)) / omega;
-    return { omega, zeta, dt };
+    consider((2 * kLegs + tu.stopStiffness) / tu.mass, (2 * cLegs + tu.stopDamping + tu.friction / vs) / tu.mass);
+    const tr = this.train;
+    const rolling = (this.s.train.rollingResistance * tr.mass * g * 1.5) / vs; // 1.5: centripetal part on curves
+    consider((this.dogStiffness + this.ardStiffness) / tr.mass, (this.dogDamping + this.ardDamping + rolling) / tr.mass);
+    return { omega: omegaMax, zeta: zetaAt, dt };
   }
 }

@@ -35,35 +35,49 @@ export function integrateVerlet(
   const { w, vw } = st;
   const aw = new Float64Array(n);
   const hdt = 0.5 * dt;
+  const drive = sys.drive;
+  const dNode = sys.loop.driveNode;
+  sys.driveAccelInRhs = false;
   sys.accel(st.t, w, vw, st.x, st.vx, st.y, st.vy, aw);
   let steps = 0;
   const t0 = st.t;
-  for (let k = 1; k <= nSteps; k++) {
-    const p0 = sys.drivePower;
-    const d0 = sys.dissipation;
-    for (let i = 0; i < n; i++) {
-      const v = vw[i] + hdt * aw[i];
-      vw[i] = v;
-      w[i] += dt * v;
+  try {
+    for (let k = 1; k <= nSteps; k++) {
+      const p0 = sys.drivePower;
+      const d0 = sys.dissipation;
+      const tPrev = t0 + (k - 1) * dt;
+      // Drive velocity change over each half step, taken out of the relative velocities exactly.
+      const dv1 = drive.velocity(tPrev + hdt) - drive.velocity(tPrev);
+      const dv2 = drive.velocity(tPrev + dt) - drive.velocity(tPrev + hdt);
+      for (let i = 0; i < n; i++) {
+        const v = vw[i] + hdt * aw[i] - dv1;
+        vw[i] = v;
+        w[i] += dt * v;
+      }
+      vw[dNode] = 0;
+      w[dNode] = 0;
+      st.vx += hdt * sys.ax;
+      st.x += dt * st.vx;
+      st.vy += hdt * sys.ay;
+      st.y += dt * st.vy;
+      const t = t0 + k * dt;
+      st.t = t;
+      sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
+      st.work += hdt * (p0 + sys.drivePower);
+      st.dissipated += hdt * (d0 + sys.dissipation);
+      for (let i = 0; i < n; i++) vw[i] += hdt * aw[i] - dv2;
+      vw[dNode] = 0;
+      st.vx += hdt * sys.ax;
+      st.vy += hdt * sys.ay;
+      steps++;
+      const ev = sys.updateModes(t, w, st.x);
+      // A contact that just started or ended changes the forces: re-evaluate so the next kick uses them.
+      if (ev & (EVENT_ENGAGE | EVENT_RELEASE)) sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
+      if (!hooks.step(st, dt, ev, false)) return { final: st, steps, timeStep: dt, endedEarly: true };
+      if ((steps & 127) === 0) hooks.check(steps, t);
     }
-    st.vx += hdt * sys.ax;
-    st.x += dt * st.vx;
-    st.vy += hdt * sys.ay;
-    st.y += dt * st.vy;
-    const t = t0 + k * dt;
-    st.t = t;
-    sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
-    st.work += hdt * (p0 + sys.drivePower);
-    st.dissipated += hdt * (d0 + sys.dissipation);
-    for (let i = 0; i < n; i++) vw[i] += hdt * aw[i];
-    st.vx += hdt * sys.ax;
-    st.vy += hdt * sys.ay;
-    steps++;
-    const ev = sys.updateModes(t, w, st.x);
-    // A contact that just started or ended changes the forces: re-evaluate so the next kick uses them.
-    if (ev & (EVENT_ENGAGE | EVENT_RELEASE)) sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
-    if (!hooks.step(st, dt, ev, false)) return { final: st, steps, timeStep: dt, endedEarly: true };
-    if ((steps & 127) === 0) hooks.check(steps, t);
+  } finally {
+    sys.driveAccelInRhs = true;
   }
   return { final: st, steps, timeStep: dt, endedEarly: false };
 }
