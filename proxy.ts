@@ -20,7 +20,8 @@ function secretOrUndefined(): string | undefined {
   }
 }
 
-// Workspace pages only; API routes answer 401 themselves and public pages stay open.
+// Workspace pages only (one line per top-level folder of app/(workspace); the access test checks this);
+// API routes answer 401 themselves and public pages stay open.
 export const config = {
   matcher: [
     "/dashboard/:path*",
@@ -30,6 +31,7 @@ export const config = {
     "/studies/:path*",
     "/logbook/:path*",
     "/replays/:path*",
+    "/runs/:path*",
     "/settings/:path*",
     "/admin/:path*",
   ],

@@ -51,6 +51,15 @@ test.describe("route-access table", () => {
     expect(Object.keys(PAGE_ROUTES).filter((p) => !pageFiles.has(p)), "PAGE_ROUTES entries without a file").toEqual([]);
   });
 
+  test("sends visitors without a session to sign-in from every workspace folder (proxy.ts matcher)", () => {
+    const matcher = fs.readFileSync(path.join(process.cwd(), "proxy.ts"), "utf8");
+    const folders = fs
+      .readdirSync(path.join(APP, "(workspace)"), { withFileTypes: true })
+      .filter((d) => d.isDirectory())
+      .map((d) => d.name);
+    expect(folders.filter((f) => !matcher.includes(`"/${f}/:path*"`)), "folders missing from proxy.ts matcher").toEqual([]);
+  });
+
   test("lists exactly the methods each route handler exports", () => {
     for (const [pattern, file] of routeFiles) {
       const listed = Object.keys(API_ROUTES[pattern]?.methods ?? {}).sort();
