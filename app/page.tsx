@@ -2,7 +2,7 @@ import Link from "next/link";
 import { ButtonLink } from "@/components/ui/Button";
 import { Logo } from "@/components/ui/Logo";
 import { SafetyNote } from "@/components/ui/SafetyNote";
-import { getCurrentUser } from "@/lib/auth/session";
+import { getCurrentUserIfAvailable } from "@/lib/auth/session";
 
 export const dynamic = "force-dynamic";
 
@@ -53,7 +53,7 @@ function LiftSketch() {
 }
 
 export default async function LandingPage() {
-  const user = await getCurrentUser();
+  const user = await getCurrentUserIfAvailable();
   return (
     <div className="flex min-h-screen flex-col">
       <section className="bg-ink-950 text-steel-100">

@@ -41,6 +41,19 @@ export async function loadActiveUser(id: number, sessionVersion: number | undefi
   };
 }
 
+/**
+ * For public pages that only adapt to a session (landing, sign-in): a database outage there reads as
+ * "not signed in" instead of breaking the page. Protected code uses getCurrentUser/requireUser.
+ */
+export async function getCurrentUserIfAvailable(): Promise<CurrentUser | null> {
+  try {
+    return await getCurrentUser();
+  } catch (err) {
+    console.error("session check:", (err as Error).message);
+    return null;
+  }
+}
+
 /** The signed-in user, or an HttpError 401. */
 export async function requireUser(): Promise<CurrentUser> {
   const user = await getCurrentUser();

@@ -3,7 +3,7 @@ import { redirect } from "next/navigation";
 import { AuthCard } from "@/components/auth/AuthCard";
 import { SignInForm } from "@/components/auth/SignInForm";
 import { Alert } from "@/components/ui/Alert";
-import { getCurrentUser } from "@/lib/auth/session";
+import { getCurrentUserIfAvailable } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Sign in" };
 
@@ -15,7 +15,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Searc
   const q = await searchParams;
   const callbackUrl = one(q.callbackUrl);
   // Someone with a valid, active session has nothing to do here.
-  if (await getCurrentUser()) {
+  if (await getCurrentUserIfAvailable()) {
     redirect(callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/dashboard");
   }
   const notice = q.passwordChanged
