@@ -122,11 +122,12 @@ export async function getRun(user: Actor, runId: number): Promise<RunView> {
   return toRunView(await findOwnRun(user, runId), { inputs: true });
 }
 
+/** One page of runs, in the project's list shape (lib/api/list-query.ts). */
 export interface RunPage {
-  runs: RunView[];
+  items: RunView[];
+  total: number;
   page: number;
   pageSize: number;
-  total: number;
 }
 
 export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery): Promise<RunPage> {
@@ -141,7 +142,7 @@ export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  return { runs: rows.map((r) => toRunView(r)), page: q.page, pageSize: q.pageSize, total: count };
+  return { items: rows.map((r) => toRunView(r)), total: count, page: q.page, pageSize: q.pageSize };
 }
 
 /** Cancels a queued or running run; a finished one answers 409. */

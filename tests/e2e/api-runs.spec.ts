@@ -48,7 +48,7 @@ async function poll(ctx: APIRequestContext, id: number): Promise<RunBody> {
   for (let i = 0; i < 150; i++) {
     const res = await ctx.get(`/api/runs/${id}`);
     expect(res.status()).toBe(200);
-    const { run } = (await res.json()) as { run: RunBody };
+    const run = (await res.json()) as RunBody;
     if (["done", "failed", "cancelled"].includes(run.status)) return run;
     await new Promise((r) => setTimeout(r, 200));
   }
@@ -95,15 +95,15 @@ test("an operator starts a run, follows its progress to done and reads the resul
 
   const list = await viewer.get(`/api/scenarios/${scenarioId}/runs?pageSize=5`);
   expect(list.status()).toBe(200);
-  const page = (await list.json()) as { runs: RunBody[]; total: number };
-  expect(page.runs.map((r) => r.id)).toContain(run.id);
+  const page = (await list.json()) as { items: RunBody[]; total: number };
+  expect(page.items.map((r) => r.id)).toContain(run.id);
 });
 
 test("a viewer may read runs but not start, cancel or delete them", async () => {
   const res = await viewer.post(`/api/scenarios/${scenarioId}/runs`, { data: {} });
   expect(res.status()).toBe(403);
-  const list = (await (await viewer.get(`/api/scenarios/${scenarioId}/runs`)).json()) as { runs: RunBody[] };
-  const id = list.runs[0]?.id;
+  const list = (await (await viewer.get(`/api/scenarios/${scenarioId}/runs`)).json()) as { items: RunBody[] };
+  const id = list.items[0]?.id;
   expect(id).toBeDefined();
   expect((await viewer.post(`/api/runs/${id}/cancel`)).status()).toBe(403);
   expect((await viewer.delete(`/api/runs/${id}?version=1`)).status()).toBe(403);
@@ -113,8 +113,8 @@ test("a viewer may read runs but not start, cancel or delete them", async () => 
 test("anonymous callers get 401; another organisation gets 404", async () => {
   expect((await anon.post(`/api/scenarios/${scenarioId}/runs`, { data: {} })).status()).toBe(401);
   expect((await anon.get(`/api/scenarios/${scenarioId}/runs`)).status()).toBe(401);
-  const list = (await (await engineer.get(`/api/scenarios/${scenarioId}/runs`)).json()) as { runs: RunBody[] };
-  const id = list.runs[0]!.id;
+  const list = (await (await engineer.get(`/api/scenarios/${scenarioId}/runs`)).json()) as { items: RunBody[] };
+  const id = list.items[0]!.id;
   expect((await anon.get(`/api/runs/${id}`)).status()).toBe(401);
   expect((await outsider.post(`/api/scenarios/${scenarioId}/runs`, { data: {} })).status()).toBe(404);
   expect((await outsider.get(`/api/scenarios/${scenarioId}/runs`)).status()).toBe(404);
@@ -139,11 +139,11 @@ test("bad solver settings answer 400 with the field path; an engineer cancels an
   const { run } = (await started.json()) as { run: RunBody };
   const cancelled = await engineer.post(`/api/runs/${run.id}/cancel`);
   expect(cancelled.status()).toBe(200);
-  expect(((await cancelled.json()) as { run: RunBody }).run.status).toBe("cancelled");
+  expect(((await cancelled.json()) as RunBody).status).toBe("cancelled");
   expect((await engineer.post(`/api/runs/${run.id}/cancel`)).status()).toBe(409);
   expect((await engineer.get(`/api/runs/${run.id}/result`)).status()).toBe(409);
 
-  const current = ((await (await engineer.get(`/api/runs/${run.id}`)).json()) as { run: RunBody }).run;
+  const current = (await (await engineer.get(`/api/runs/${run.id}`)).json()) as RunBody;
   expect((await engineer.delete(`/api/runs/${run.id}`)).status()).toBe(400);
   expect((await engineer.delete(`/api/runs/${run.id}?version=${current.version + 3}`)).status()).toBe(409);
   expect((await engineer.delete(`/api/runs/${run.id}?version=${current.version}`)).status()).toBe(204);

@@ -68,7 +68,7 @@ describe("a run from queued to done", () => {
 
     const page = await listRuns(engineer, scenarioId, { page: 1, pageSize: 20, sort: "newest" });
     expect(page.total).toBe(1);
-    expect(page.runs[0]!.id).toBe(view.id);
+    expect(page.items[0]!.id).toBe(view.id);
   });
 
   it("applies solver overrides and stores them with the run", async () => {

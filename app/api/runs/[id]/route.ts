@@ -10,8 +10,7 @@ export const dynamic = "force-dynamic";
 /** Status, progress, summary and the stored inputs of one run (poll this, or follow /events). */
 export const GET = route<IdParams>(async (_req, ctx) => {
   const user = await requirePermission("run:read");
-  const run = await getRun(user, await idFrom(ctx, "No such run."));
-  return NextResponse.json({ run });
+  return NextResponse.json(await getRun(user, await idFrom(ctx, "No such run.")));
 });
 
 /** Deletes a run: DELETE /api/runs/{id}?version={the version you loaded} (409 when stale). */

@@ -10,6 +10,5 @@ export const dynamic = "force-dynamic";
 /** Cancels a queued or running run (409 when it has already finished). */
 export const POST = route<IdParams>(async (_req, ctx) => {
   const user = await requirePermission("run:cancel");
-  const run = await cancelRun(user, await idFrom(ctx, "No such run."));
-  return NextResponse.json({ run });
+  return NextResponse.json(await cancelRun(user, await idFrom(ctx, "No such run.")));
 });

@@ -17,7 +17,10 @@ export const GET = route<IdParams>(async (req, ctx) => {
   return NextResponse.json(await listRuns(user, scenarioId, query));
 });
 
-/** Starts a run off the request thread; answers 202 with the queued run (503 + Retry-After when the queue is full). */
+/**
+ * Starts a run off the request thread; answers 202 with `{ run }` (the queued run) and its Location
+ * (503 + Retry-After when the queue is full).
+ */
 export const POST = route<IdParams>(async (req, ctx) => {
   const user = await requirePermission("run:start");
   const scenarioId = await idFrom(ctx, "No such scenario.");
