@@ -127,15 +127,22 @@ export function rateLimiter(): RateLimiter {
 }
 
 /**
- * The client's address as the app sees it. Behind a reverse proxy, that proxy must set X-Forwarded-For;
- * the first entry is the client. Falls back to a fixed key so the per-IP limit still applies.
+ * The client's address for the per-IP limit. Next sets X-Forwarded-For to the socket's address only when
+ * the request has none, so the header can come from the client itself. The rightmost entry is the one
+ * added by the nearest proxy (or by Next), which is the hardest to forge: behind a reverse proxy that
+ * appends to X-Forwarded-For it is the real client. Served directly, a client can still forge it; the
+ * per-account limit holds regardless. Falls back to a fixed key so the per-IP limit always applies.
  */
 export function clientIp(headers: Headers | Record<string, string | string[] | undefined>): string {
   const get = (name: string): string | undefined => {
     if (headers instanceof Headers) return headers.get(name) ?? undefined;
     const v = headers[name];
-    return Array.isArray(v) ? v[0] : v;
+    return Array.isArray(v) ? v.join(",") : v;
   };
-  const forwarded = get("x-forwarded-for")?.split(",")[0]?.trim();
+  const forwarded = get("x-forwarded-for")
+    ?.split(",")
+    .map((p) => p.trim())
+    .filter(Boolean)
+    .pop();
   return forwarded || get("x-real-ip")?.trim() || "unknown";
 }

@@ -75,8 +75,10 @@ describe("RateLimiter", () => {
 });
 
 describe("clientIp", () => {
-  it("takes the first X-Forwarded-For entry, then X-Real-IP, then a fixed key", () => {
-    expect(clientIp(new Headers({ "x-forwarded-for": "203.0.113.7, 10.0.0.1" }))).toBe("203.0.113.7");
+  it("takes the X-Forwarded-For entry the nearest proxy appended, then X-Real-IP, then a fixed key", () => {
+    // A client-sent "203.0.113.7" followed by the address the proxy saw: the proxy's entry counts.
+    expect(clientIp(new Headers({ "x-forwarded-for": "203.0.113.7, 198.51.100.20" }))).toBe("198.51.100.20");
+    expect(clientIp({ "x-forwarded-for": "::ffff:127.0.0.1" })).toBe("::ffff:127.0.0.1");
     expect(clientIp({ "x-real-ip": "198.51.100.2" })).toBe("198.51.100.2");
     expect(clientIp({})).toBe("unknown");
   });
