@@ -12,10 +12,28 @@ import { initScenario, Scenario } from "./Scenario";
 import { initAuditEntry, AuditEntry } from "./AuditEntry";
 import { initComment, Comment } from "./Comment";
 import { initRun, Run } from "./Run";
+import { initStudy, Study } from "./Study";
+import { initStudyCase, StudyCase } from "./StudyCase";
+import { initReport, Report } from "./Report";
+import { initReportReview, ReportReview } from "./ReportReview";
+// Operations: logbook, uploads, alerts, recordings, training sessions.
+import { initLogbookEntry, LogbookEntry } from "./LogbookEntry";
+import { initLogbookSetting, LogbookSetting } from "./LogbookSetting";
+import { initUpload, Upload } from "./Upload";
+import { initAlert, Alert } from "./Alert";
+import { initRecording, Recording } from "./Recording";
+import { initRecordingSample, RecordingSample } from "./RecordingSample";
+import { initTrainingSession, TrainingSession } from "./TrainingSession";
+import { initTrainingItem, TrainingItem } from "./TrainingItem";
+import { initTrainingCaption, TrainingCaption } from "./TrainingCaption";
+import { initTrainingView, TrainingView } from "./TrainingView";
 
 export { Organisation, User, AuthToken, RateLimitHit };
 export { ChainSpec, Lift, LiftRevision, Train, Scenario, AuditEntry, Comment };
 export { Run };
+export { Study, StudyCase, Report, ReportReview };
+export { LogbookEntry, LogbookSetting, Upload, Alert, Recording, RecordingSample };
+export { TrainingSession, TrainingItem, TrainingCaption, TrainingView };
 
 /**
  * Every model, bound to one Sequelize instance. To add a model: import its class and init function,
@@ -34,6 +52,20 @@ export interface Models {
   AuditEntry: typeof AuditEntry;
   Comment: typeof Comment;
   Run: typeof Run;
+  Study: typeof Study;
+  StudyCase: typeof StudyCase;
+  Report: typeof Report;
+  ReportReview: typeof ReportReview;
+  LogbookEntry: typeof LogbookEntry;
+  LogbookSetting: typeof LogbookSetting;
+  Upload: typeof Upload;
+  Alert: typeof Alert;
+  Recording: typeof Recording;
+  RecordingSample: typeof RecordingSample;
+  TrainingSession: typeof TrainingSession;
+  TrainingItem: typeof TrainingItem;
+  TrainingCaption: typeof TrainingCaption;
+  TrainingView: typeof TrainingView;
 }
 
 const boundTo = new WeakMap<Sequelize, Models>();
@@ -59,6 +91,21 @@ function associate(m: Models): void {
   m.Run.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
   m.Run.belongsTo(m.LiftRevision, { foreignKey: "liftRevisionId", as: "liftRevision" });
   m.Run.belongsTo(m.User, { foreignKey: "startedBy", as: "starter" });
+  // Studies and reports.
+  m.Study.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
+  m.Study.hasMany(m.StudyCase, { foreignKey: "studyId", as: "cases" });
+  m.StudyCase.belongsTo(m.Study, { foreignKey: "studyId", as: "study" });
+  m.Report.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
+  m.Report.hasMany(m.ReportReview, { foreignKey: "reportId", as: "reviews" });
+  m.ReportReview.belongsTo(m.Report, { foreignKey: "reportId", as: "report" });
+  m.ReportReview.belongsTo(m.User, { foreignKey: "userId", as: "user" });
+  // Operations.
+  m.LogbookEntry.belongsTo(m.User, { foreignKey: "userId", as: "author" });
+  m.Recording.hasMany(m.RecordingSample, { foreignKey: "recordingId", as: "samples" });
+  m.TrainingSession.hasMany(m.TrainingItem, { foreignKey: "sessionId", as: "items" });
+  m.TrainingItem.hasMany(m.TrainingCaption, { foreignKey: "itemId", as: "captions" });
+  m.TrainingItem.belongsTo(m.Run, { foreignKey: "runId", as: "run" });
+  m.TrainingView.belongsTo(m.User, { foreignKey: "userId", as: "viewer" });
 }
 
 /** Inits all models on `sequelize` and sets their associations. Calling it again is a no-op. */
@@ -78,6 +125,20 @@ export function initModels(sequelize: Sequelize): Models {
     AuditEntry: initAuditEntry(sequelize),
     Comment: initComment(sequelize),
     Run: initRun(sequelize),
+    Study: initStudy(sequelize),
+    StudyCase: initStudyCase(sequelize),
+    Report: initReport(sequelize),
+    ReportReview: initReportReview(sequelize),
+    LogbookEntry: initLogbookEntry(sequelize),
+    LogbookSetting: initLogbookSetting(sequelize),
+    Upload: initUpload(sequelize),
+    Alert: initAlert(sequelize),
+    Recording: initRecording(sequelize),
+    RecordingSample: initRecordingSample(sequelize),
+    TrainingSession: initTrainingSession(sequelize),
+    TrainingItem: initTrainingItem(sequelize),
+    TrainingCaption: initTrainingCaption(sequelize),
+    TrainingView: initTrainingView(sequelize),
   };
   associate(m);
   boundTo.set(sequelize, m);

@@ -3,6 +3,7 @@
 import { Lifecycle } from "./lib/lifecycle";
 import { bringUpDatabase, bringUpMailFake, demoSignInHint, hasBuild, nextBin } from "./lib/stack";
 import { demoStack, repoRoot, stackEnv } from "./lib/settings";
+import { bringUpS3Fake } from "./lib/s3";
 import { errorMessage, say, warn } from "./lib/log";
 
 async function main(): Promise<number> {
@@ -14,6 +15,7 @@ async function main(): Promise<number> {
     await bringUpDatabase(stack, life);
     if (life.interrupted) return 130;
     await bringUpMailFake(stack, life);
+    await bringUpS3Fake(stack, life);
 
     const skip = process.env.TAUTLINE_SKIP_BUILD === "1";
     if (skip && hasBuild()) {

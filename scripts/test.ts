@@ -11,6 +11,7 @@ import { runSeeds } from "../lib/db/seed";
 import { CHROMIUM, ensureDebianPackages, MARIADB } from "./lib/debian";
 import { Lifecycle } from "./lib/lifecycle";
 import { startMailFakeIfPresent } from "./lib/mail";
+import { bringUpS3Fake } from "./lib/s3";
 import { destroyDatabase, instancePaths, portInUse, startDatabase } from "./lib/mariadb";
 import { hasBuild, nextBin } from "./lib/stack";
 import { repoRoot, stackEnv, testStack, type Stack } from "./lib/settings";
@@ -78,6 +79,7 @@ async function checkPorts(stack: Stack, parts: Set<Part>): Promise<void> {
     [stack.db.port, "TEST_DB_PORT"],
     [stack.smtpPort, "TEST_SMTP_PORT"],
     [stack.mailHttpPort, "TEST_MAIL_HTTP_PORT"],
+    [stack.s3Port, "TEST_S3_PORT"],
   ];
   if (parts.has("e2e")) needs.push([stack.appPort, "TEST_APP_PORT"]);
   for (const [port, name] of needs) {
@@ -134,6 +136,9 @@ async function main(): Promise<boolean> {
           fs.rmSync(stack.mailDir, { recursive: true, force: true });
           const fake = await startMailFakeIfPresent(stack);
           if (fake) life.onStop("mail fake", () => fake.close());
+          fs.rmSync(stack.s3Dir, { recursive: true, force: true });
+          life.onStop("S3 folder", async () => fs.rmSync(stack.s3Dir, { recursive: true, force: true }));
+          await bringUpS3Fake(stack, life);
           life.onStop("mail folder", async () => fs.rmSync(stack.mailDir, { recursive: true, force: true }));
           return { ok: true, detail: `MariaDB on ${stack.db.port}${fake ? `, mail fake on ${stack.smtpPort}/${stack.mailHttpPort}` : ""}` };
         });

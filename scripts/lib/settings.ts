@@ -22,6 +22,12 @@ export interface Stack {
   runMailFake: boolean;
   mailDir: string;
   nextauthSecret: string;
+  /** Object storage: the local S3 fake's port and folder, unless S3_ENDPOINT points elsewhere. */
+  s3Port: number;
+  s3Endpoint: string;
+  s3Bucket: string;
+  runS3Fake: boolean;
+  s3Dir: string;
 }
 
 function isLoopbackUrl(url: string): boolean {
@@ -55,6 +61,7 @@ export function demoStack(env: Env = process.env): Stack {
     runMailFake: env.MAIL_FAKE !== "0" && isLoopbackUrl(smtpUrl),
     mailDir: path.join(path.dirname(dataDir), `mail-${path.basename(dataDir)}`),
     nextauthSecret: env.NEXTAUTH_SECRET?.trim() || storedSecret(path.join(repoRoot, ".data", "nextauth-secret")),
+    ...s3Settings(env, parsePort(env.S3_PORT, "S3_PORT", 4568), path.join(path.dirname(dataDir), `s3-${path.basename(dataDir)}`)),
   };
 }
 
@@ -81,6 +88,19 @@ export function testStack(env: Env = process.env): Stack {
     mailDir: path.join(repoRoot, ".data", `test-mail-${dbPort}`),
     // A fresh secret per test run: nothing outlives it.
     nextauthSecret: crypto.randomBytes(32).toString("base64url"),
+    ...s3Settings({}, parsePort(env.TEST_S3_PORT, "TEST_S3_PORT", 4569), path.join(repoRoot, ".data", `test-s3-${dbPort}`)),
+  };
+}
+
+/** S3 settings: the local fake on loopback unless S3_ENDPOINT names another (then no fake is started). */
+function s3Settings(env: Env, port: number, dir: string): Pick<Stack, "s3Port" | "s3Endpoint" | "s3Bucket" | "runS3Fake" | "s3Dir"> {
+  const s3Endpoint = env.S3_ENDPOINT?.trim() || `http://127.0.0.1:${port}`;
+  return {
+    s3Port: port,
+    s3Endpoint,
+    s3Bucket: env.S3_BUCKET?.trim() || "tautline-files",
+    runS3Fake: env.S3_FAKE !== "0" && isLoopbackUrl(s3Endpoint),
+    s3Dir: dir,
   };
 }
 
@@ -115,12 +135,15 @@ export function stackEnv(s: Stack, base: Env = process.env): NodeJS.ProcessEnv {
     MAIL_FAKE_URL: s.mailFakeUrl,
     SMTP_PORT: String(s.smtpPort),
     MAIL_HTTP_PORT: String(s.mailHttpPort),
+    S3_ENDPOINT: s.s3Endpoint,
+    S3_BUCKET: s.s3Bucket,
     ...(s.kind === "test"
       ? {
           TEST_DB_PORT: String(s.db.port),
           TEST_APP_PORT: String(s.appPort),
           TEST_SMTP_PORT: String(s.smtpPort),
           TEST_MAIL_HTTP_PORT: String(s.mailHttpPort),
+          TEST_S3_PORT: String(s.s3Port),
           TAUTLINE_TEST: "1",
         }
       : {}),
