@@ -12,11 +12,3 @@ export function validate<T>(schema: ZodType<T>, data: unknown): T {
 export function throwIfIssues(issues: FieldIssue[], message = "The request has invalid fields."): void {
   if (issues.length) throw badRequest(message, issues);
 }
-
-/** Prefixes issue paths ("angle" → "lift.angle"), leaving already-qualified ones alone. */
-export function prefixIssues(issues: FieldIssue[], prefix: string): FieldIssue[] {
-  return issues.map((i) => ({
-    path: i.path === "(body)" ? prefix : i.path.startsWith(`${prefix}.`) ? i.path : `${prefix}.${i.path}`,
-    message: i.message,
-  }));
-}

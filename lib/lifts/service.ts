@@ -371,13 +371,3 @@ export async function getRevision(
   }
   return { revision: revisionView(rev), current: rev.id === lift.currentRevisionId, comparedWith: otherNumber, changes };
 }
-
-/** A revision of one of the actor's lifts, by id (used by scenarios to pin one). */
-export async function findOwnRevision(actor: Actor, revisionId: number, transaction?: Transaction): Promise<{ lift: Lift; revision: LiftRevision } | null> {
-  const { Lift, LiftRevision } = getModels();
-  const revision = await LiftRevision.findByPk(revisionId, { transaction });
-  if (!revision) return null;
-  const lift = await Lift.findByPk(revision.liftId, { transaction });
-  if (!lift || lift.organisationId !== actor.organisationId) return null;
-  return { lift, revision };
-}
