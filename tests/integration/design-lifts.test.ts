@@ -141,6 +141,22 @@ describe("lift validation", () => {
     expect((await getLift(eng, lift.id)).currentRevision.drive.speed).toBe(2.0);
   });
 
+  it("two saves of the same version at once: exactly one wins, the other gets 409, one revision is written", async () => {
+    const lift = await createLift(org.as.engineer, liftBody({ name: "Race lift" }));
+    const results = await Promise.allSettled([
+      updateLift(org.as.engineer, lift.id, { version: 1, drive: { speed: 2.1 } }),
+      updateLift(org.as.admin, lift.id, { version: 1, drive: { speed: 2.9 } }),
+    ]);
+    const ok = results.filter((r) => r.status === "fulfilled");
+    const refused = results.filter((r) => r.status === "rejected") as PromiseRejectedResult[];
+    expect(ok).toHaveLength(1);
+    expect(refused.map((r) => (r.reason as { status?: number }).status)).toEqual([409]);
+    const revs = await listRevisions(org.as.viewer, lift.id);
+    expect(revs.items.map((r) => r.number)).toEqual([2, 1]);
+    const winner = (ok[0] as PromiseFulfilledResult<Awaited<ReturnType<typeof updateLift>>>).value;
+    expect((await getLift(org.as.viewer, lift.id)).currentRevision.drive.speed).toBe(winner.currentRevision.drive.speed);
+  });
+
   it("rejects unknown top-level fields and a missing version", async () => {
     const e1 = await expectHttpError(() => createLift(org.as.engineer, { ...liftBody(), colour: "red" }), 400);
     expect(e1.issues.map((i) => i.path)).toContain("(body)");
