@@ -1,10 +1,12 @@
 import type { NextResponse } from "next/server";
+import { dbHttpError } from "@/lib/db/health";
 import { respondError } from "./errors";
 
 type Handler<C> = (req: Request, ctx: C) => Promise<Response | NextResponse>;
 
 /**
- * Wraps a route handler so that any thrown HttpError (or unexpected error) becomes a JSON answer.
+ * Wraps a route handler so that any thrown HttpError (or unexpected error) becomes a JSON answer, and a
+ * lost database connection becomes a 503 with Retry-After instead of a 500.
  * Route handlers stay thin: validate, authorise, call lib/, answer.
  */
 export function route<C = unknown>(handler: Handler<C>): Handler<C> {
@@ -12,7 +14,7 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
     try {
       return await handler(req, ctx);
     } catch (err) {
-      return respondError(err);
+      return respondError(dbHttpError(err));
     }
   };
 }
