@@ -10,3 +10,18 @@ export interface DeleteOutcome {
 export function assertNotArchived(row: { archivedAt: Date | null }, what: string): void {
   if (row.archivedAt) throw conflict(`This ${what} is archived; archived ${what}s are kept as they are.`);
 }
+
+/**
+ * `{ version, archived: false }` sent to an archived row brings it back: the one edit an archived row takes.
+ * (Archiving is what DELETE does to a row that others depend on.)
+ */
+export function isRestoreRequest(input: unknown): input is { version: number; archived: false } {
+  if (typeof input !== "object" || input === null || Array.isArray(input)) return false;
+  const o = input as Record<string, unknown>;
+  return (
+    Object.keys(o).sort().join(",") === "archived,version" &&
+    o.archived === false &&
+    typeof o.version === "number" &&
+    Number.isInteger(o.version)
+  );
+}

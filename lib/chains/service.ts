@@ -9,7 +9,7 @@ import { assertVersion, versionField } from "@/lib/api/concurrency";
 import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/api/list-query";
 import { validate } from "@/lib/api/validate";
 import { recordAudit } from "@/lib/audit/record";
-import { assertNotArchived, type DeleteOutcome } from "@/lib/api/outcome";
+import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/api/outcome";
 import { chainSpecInputSchema } from "./schema";
 
 export interface ChainSpecView {
@@ -117,6 +117,13 @@ export async function updateChainSpec(actor: Actor, id: number, input: unknown):
   return getSequelize().transaction(async (transaction) => {
     const row = ownOr404(await ChainSpec.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE }), actor, "Chain", true);
     if (row.organisationId === null) throw readOnlyStandard();
+    if (row.archivedAt && isRestoreRequest(input)) {
+      assertVersion(row.version, input.version, "chain");
+      const before = chainSpecView(row);
+      await row.update({ archivedAt: null, version: row.version + 1 }, { transaction });
+      await recordAudit({ transaction, actor, entity: "chain_spec", entityId: row.id, action: "update", before, after: chainSpecView(row) });
+      return chainSpecView(row);
+    }
     const { version, ...changes } = validate(chainSpecUpdateSchema, input);
     assertNotArchived(row, "chain");
     const current = {

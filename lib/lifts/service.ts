@@ -8,7 +8,7 @@ import { notFound } from "@/lib/http/errors";
 import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
 import { assertVersion } from "@/lib/api/concurrency";
 import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/api/list-query";
-import { assertNotArchived, type DeleteOutcome } from "@/lib/api/outcome";
+import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/api/outcome";
 import { validate } from "@/lib/api/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { buildRevisionData } from "./build";
@@ -227,6 +227,7 @@ export interface LiftUpdateResult extends LiftView {
 /**
  * Saves a lift: a new revision (number = last + 1) and version + 1 in one transaction. The body carries
  * the version it edits (stale → 409, nothing written). A save that changes nothing writes nothing.
+ * `{ version, archived: false }` restores an archived lift (no new revision).
  */
 export async function updateLift(actor: Actor, id: number, input: unknown): Promise<LiftUpdateResult> {
   assertCan(actor, "design:write");
@@ -234,6 +235,15 @@ export async function updateLift(actor: Actor, id: number, input: unknown): Prom
   return getSequelize().transaction(async (transaction) => {
     // Another organisation's lift is 404 whatever the body says, so the row comes first.
     const lift = await loadOwnLift(actor, id, transaction, true);
+    if (lift.archivedAt && isRestoreRequest(input)) {
+      assertVersion(lift.version, input.version, "lift");
+      const current = await currentRevisionOf(lift, transaction);
+      const before = liftView(lift, current);
+      await lift.update({ archivedAt: null, version: lift.version + 1 }, { transaction });
+      const after = liftView(lift, current);
+      await recordAudit({ transaction, actor, entity: "lift", entityId: lift.id, action: "update", before, after });
+      return { ...after, changes: [{ path: "archivedAt", before: before.archivedAt, after: null }] };
+    }
     const { version, changeSummary, ...changes } = validate(liftUpdateBodySchema, input);
     assertNotArchived(lift, "lift");
     const current = await currentRevisionOf(lift, transaction);

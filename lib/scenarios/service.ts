@@ -11,7 +11,7 @@ import { conflict, zodIssues, type FieldIssue } from "@/lib/http/errors";
 import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
 import { assertVersion } from "@/lib/api/concurrency";
 import { archivedFilter, likePattern, listQuerySchema, pageOptions, queryBoolean, queryId, toPage, type Page } from "@/lib/api/list-query";
-import { assertNotArchived, type DeleteOutcome } from "@/lib/api/outcome";
+import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/api/outcome";
 import { throwIfIssues, validate } from "@/lib/api/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { carMassFor, ridersFor } from "@/lib/trains/mass";
@@ -244,11 +244,21 @@ function assertNotFrozen(s: Scenario): void {
  * Partial update: given fields replace, `runSettings` merges field by field, the merged scenario must
  * pass every rule. Changing `liftId` without `liftRevisionId` pins the new lift's current revision;
  * send the lift's current revision id as `liftRevisionId` to re-pin the same lift to its latest save.
+ * `{ version, archived: false }` restores an archived scenario.
  */
 export async function updateScenario(actor: Actor, id: number, input: unknown): Promise<ScenarioView> {
   assertCan(actor, "design:write");
   return getSequelize().transaction(async (transaction) => {
     const row = await loadOwnScenario(actor, id, transaction, true);
+    if (row.archivedAt && isRestoreRequest(input)) {
+      assertVersion(row.version, input.version, "scenario");
+      const parts = await loadScenarioParts(actor, id, transaction);
+      const before = scenarioView(row, { lift: parts.lift, revision: parts.revision, train: parts.train });
+      await row.update({ archivedAt: null, version: row.version + 1 }, { transaction });
+      const after = scenarioView(row, { lift: parts.lift, revision: parts.revision, train: parts.train });
+      await recordAudit({ transaction, actor, entity: "scenario", entityId: row.id, action: "update", before, after });
+      return after;
+    }
     const { version, ...changes } = validate(scenarioUpdateSchema, input);
     assertNotFrozen(row);
     assertNotArchived(row, "scenario");

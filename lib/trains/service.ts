@@ -10,7 +10,7 @@ import { validate } from "@/lib/api/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { trainInputSchema, type TrainData } from "./schema";
 import { loadedCarMass } from "./mass";
-import { assertNotArchived, type DeleteOutcome } from "@/lib/api/outcome";
+import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/api/outcome";
 
 export interface TrainView extends TrainData {
   id: number;
@@ -95,12 +95,19 @@ export async function createTrain(actor: Actor, input: unknown): Promise<TrainVi
 
 export const trainUpdateSchema = z.object({ version: versionField }).loose();
 
-/** Partial update: given fields replace, the merged train must pass the full rules. */
+/** Partial update: given fields replace, the merged train must pass the full rules. `{ version, archived: false }` restores. */
 export async function updateTrain(actor: Actor, id: number, input: unknown): Promise<TrainView> {
   assertCan(actor, "design:write");
   const { Train } = getModels();
   return getSequelize().transaction(async (transaction) => {
     const row = ownOr404(await Train.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE }), actor, "Train");
+    if (row.archivedAt && isRestoreRequest(input)) {
+      assertVersion(row.version, input.version, "train");
+      const before = trainView(row);
+      await row.update({ archivedAt: null, version: row.version + 1 }, { transaction });
+      await recordAudit({ transaction, actor, entity: "train", entityId: row.id, action: "update", before, after: trainView(row) });
+      return trainView(row);
+    }
     const { version, ...changes } = validate(trainUpdateSchema, input);
     assertNotArchived(row, "train");
     const data = validate(trainInputSchema, { ...trainData(row), ...changes });

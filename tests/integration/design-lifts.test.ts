@@ -229,6 +229,13 @@ describe("archiving and access", () => {
     expect((await listLifts(eng, { q: "Used lift" })).total).toBe(0);
     expect((await listLifts(eng, { q: "Used lift", archived: "true" })).total).toBe(1);
     await expectHttpError(() => updateLift(eng, lift.id, { version: archived.version, name: "Renamed" }), 409);
+
+    // Restoring is the one edit an archived lift takes; it writes no revision.
+    await expectHttpError(() => updateLift(eng, lift.id, { version: archived.version - 1, archived: false }), 409);
+    const restored = await updateLift(eng, lift.id, { version: archived.version, archived: false });
+    expect([restored.archivedAt, restored.version, restored.currentRevision.number]).toEqual([null, archived.version + 1, 1]);
+    expect((await listLifts(eng, { q: "Used lift" })).total).toBe(1);
+    expect((await updateLift(eng, lift.id, { version: restored.version, name: "Used lift, renamed" })).currentRevision.number).toBe(2);
   });
 
   it("another organisation's lift is not found (404) for every role, never 403", async () => {

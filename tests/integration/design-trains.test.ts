@@ -49,13 +49,19 @@ describe("trains", () => {
     expect((await getTrain(eng, t.id)).cars).toBe(5);
   });
 
-  it("archives a train a scenario uses", async () => {
+  it("archives a train a scenario uses, and restores it on request", async () => {
     const eng = org.as.engineer;
     const t = await createTrain(eng, trainBody({ name: "Used train" }));
     const lift = await createLift(eng, liftBody());
     await createScenario(eng, scenarioBody(lift.id, t.id));
     expect(await deleteTrain(eng, t.id)).toEqual({ id: t.id, outcome: "archived" });
-    expect((await getTrain(eng, t.id)).archivedAt).not.toBeNull();
+    const archived = await getTrain(eng, t.id);
+    expect(archived.archivedAt).not.toBeNull();
+    await expectHttpError(() => updateTrain(eng, t.id, { version: archived.version, cars: 5 }), 409);
+    const restored = await updateTrain(eng, t.id, { version: archived.version, archived: false });
+    expect(restored.archivedAt).toBeNull();
+    expect((await updateTrain(eng, t.id, { version: restored.version, cars: 5 })).cars).toBe(5);
+    await expectHttpError(() => updateTrain(org.as.viewer, t.id, { version: 1, archived: false }), 403);
   });
 
   it("another organisation's train is 404; only engineers/admins write", async () => {
