@@ -66,8 +66,10 @@ export function buildLoop(s: Scenario, track: Track, segmentsOverride?: number):
   const N = Math.max(4, Math.round(segmentsOverride ?? s.run.segments));
   const h = Ltot / N;
   // The bottom run gets segments about as long as the rest (at least one); the strands share the others.
-  const nbt = Math.max(1, Math.round(B / h));
-  const ns = Math.max(2, Math.round((N - nbt) / 2));
+  // The total is N, or N + 1 when a single bottom-run segment leaves an odd number for the two strands.
+  let nbt = Math.max(1, Math.round(B / h));
+  if ((N - nbt) % 2 !== 0 && nbt > 1) nbt -= 1;
+  const ns = Math.max(2, Math.ceil((N - nbt) / 2));
   const n = 2 * ns + nbt;
   const q = new Float64Array(n);
   for (let j = 0; j < ns; j++) q[j] = (Lc * j) / ns;

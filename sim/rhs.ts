@@ -101,7 +101,9 @@ export class LiftSystem {
     this.lattice = catchLattice(catchOffsetOf(s) - s.lift.chainFrom, s.chain.catchSpacing, loop.length);
     const ar = s.antiRollback;
     this.ratchet = ratchet(ar.enabled, ar.from, ar.to, ar.toothSpacing);
-    const kc = s.run.contactStiffness ?? this.EA / 1; // as stiff as one metre of the chain
+    // As stiff as one metre of chain, but on coarse meshes no stiffer than four strand segments (stiff next
+    // to the loaded chain either way, without letting the contact alone set the stable step).
+    const kc = s.run.contactStiffness ?? this.EA / Math.max(1, loop.hStrand / 4);
     this.dogStiffness = kc;
     this.dogDamping = contactDampingCoefficient(s.run.contactDamping, kc, loop.mass[1]);
     this.ardStiffness = kc;
@@ -368,37 +370,62 @@ export class LiftSystem {
         zetaAt = w > 0 ? beta / (2 * w) : Infinity;
       }
     };
-    // A generous tension scale for the friction normal load on curves.
+    // Tension scale for the friction normal load on curves: the static tension. Friction matters for the
+    // step only near rest (start-up), before the train's load is on the chain; it is bounded, so a larger
+    // load later at speed cannot make it unstable.
     let zMax = 0;
     for (let i = 0; i < n; i++) zMax = Math.max(zMax, loop.z[i] - loop.zBottom);
-    const tScale = 2 * (this.takeUp.mass * g * 0.5 + mu * g * zMax + this.train.mass * g);
+    const tScale = this.takeUp.mass * g * 0.5 + mu * g * zMax;
+    // Gershgorin rows of the mass-symmetrised matrices M^-½·K·M^-½ and M^-½·C·M^-½ (same eigenvalues as
+    // M^-1·K): a light station coupled to the heavy train or take-up gets almost nothing from that coupling.
+    const m = loop.mass;
+    const Mt = this.train.mass;
+    const Mtu = this.takeUp.mass;
     const legK = new Float64Array(n);
-    for (const leg of loop.legs) legK[leg.seg] = this.EA * leg.weight * this.invL[leg.seg];
+    const legC = new Float64Array(n);
+    for (const leg of loop.legs) {
+      legK[leg.seg] = this.EA * leg.weight * this.invL[leg.seg];
+      legC[leg.seg] = this.damping * leg.weight * this.invL[leg.seg];
+    }
+    let minStrandMass = Infinity;
+    for (let i = 0; i <= loop.nsStrand; i++) minStrandMass = Math.min(minStrandMass, m[i]);
     for (let i = 0; i < n; i++) {
       if (i === loop.driveNode) continue;
       const p = i > 0 ? i - 1 : n - 1;
-      const kk = this.EA * (this.invL[i] + this.invL[p]);
-      const cc = this.damping * (this.invL[i] + this.invL[p]) + 0.5 * this.damping * (this.legY[i] * this.invL[i] + this.legY[p] * this.invL[p]);
-      // The dog couples a strand station to the train too: its row holds the contact twice.
-      const onStrand = i <= loop.nsStrand;
-      const contact = onStrand ? 2 * this.dogStiffness : 0;
-      const cContact = onStrand ? 2 * this.dogDamping : 0;
-      const len = loop.mass[i] / mu;
+      const q = i + 1 < n ? i + 1 : 0;
+      const ka = this.EA * this.invL[p];
+      const kb = this.EA * this.invL[i];
+      const ca = this.damping * this.invL[p];
+      const cb = this.damping * this.invL[i];
+      const mi = m[i];
+      let w2 = (ka + kb) / mi + ka / Math.sqrt(mi * m[p]) + kb / Math.sqrt(mi * m[q]);
+      let beta = (ca + cb) / mi + ca / Math.sqrt(mi * m[p]) + cb / Math.sqrt(mi * m[q]);
+      if (i <= loop.nsStrand) {
+        w2 += this.dogStiffness * (1 / mi + 1 / Math.sqrt(mi * Mt));
+        beta += this.dogDamping * (1 / mi + 1 / Math.sqrt(mi * Mt));
+      }
+      w2 += (legK[i] + legK[p]) / Math.sqrt(mi * Mtu);
+      beta += (legC[i] + legC[p]) / Math.sqrt(mi * Mtu);
+      const len = mi / mu;
       const N = loop.guided[i] ? mu * g * loop.cosPhi[i] * len + tScale * Math.abs(loop.kappa[i]) * len : 0;
-      const cFriction = (this.frictionCoef * N) / vs;
-      consider((2 * kk + contact + legK[i] + legK[p]) * this.invM[i], (2 * cc + cContact + cFriction) * this.invM[i]);
+      beta += (this.frictionCoef * N) / vs / mi;
+      consider(w2, beta);
     }
     const tu = this.takeUp;
-    let kLegs = 0;
-    let cLegs = 0;
+    let w2tu = tu.stopStiffness / Mtu;
+    let btu = (tu.stopDamping + tu.friction / vs) / Mtu;
     for (const leg of loop.legs) {
-      kLegs += leg.weight * legK[leg.seg];
-      cLegs += leg.weight * leg.weight * this.damping * this.invL[leg.seg];
+      const a = leg.seg;
+      const b = a + 1 < n ? a + 1 : 0;
+      w2tu += (leg.weight * legK[a]) / Mtu + legK[a] * (1 / Math.sqrt(Mtu * m[a]) + 1 / Math.sqrt(Mtu * m[b]));
+      btu += (leg.weight * legC[a]) / Mtu + legC[a] * (1 / Math.sqrt(Mtu * m[a]) + 1 / Math.sqrt(Mtu * m[b]));
     }
-    consider((2 * kLegs + tu.stopStiffness) / tu.mass, (2 * cLegs + tu.stopDamping + tu.friction / vs) / tu.mass);
-    const tr = this.train;
-    const rolling = (this.s.train.rollingResistance * tr.mass * g * 1.5) / vs; // 1.5: centripetal part on curves
-    consider((this.dogStiffness + this.ardStiffness) / tr.mass, (this.dogDamping + this.ardDamping + rolling) / tr.mass);
+    consider(w2tu, btu);
+    const rolling = (this.s.train.rollingResistance * Mt * g * 1.5) / vs; // 1.5: centripetal part on curves
+    consider(
+      (this.dogStiffness + this.ardStiffness) / Mt + this.dogStiffness / Math.sqrt(Mt * minStrandMass),
+      (this.dogDamping + this.ardDamping + rolling) / Mt + this.dogDamping / Math.sqrt(Mt * minStrandMass),
+    );
     return { omega: omegaMax, zeta: zetaAt, dt };
   }
 }

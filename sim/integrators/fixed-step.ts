@@ -60,7 +60,7 @@ export function integrateVerlet(
       st.x += dt * st.vx;
       st.vy += hdt * sys.ay;
       st.y += dt * st.vy;
-      const t = t0 + k * dt;
+      const t = k === nSteps ? t0 + duration : t0 + k * dt;
       st.t = t;
       sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
       st.work += hdt * (p0 + sys.drivePower);

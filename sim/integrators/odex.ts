@@ -5,7 +5,8 @@
  * the integration restarts at each located event and at the end of the drive ramp, so the right-hand
  * side is smooth within every solve.
  */
-import { Outcome, Solver } from "odex";
+// A namespace import cannot fail at link time in any bundler; availability is checked at run time below.
+import * as odexLib from "odex";
 import { SimulationError } from "../errors";
 import { EVENT_ENGAGE, EVENT_RELEASE, type LiftSystem } from "../rhs";
 import type { DynState, IntegratorResult, RunHooks } from "./types";
@@ -83,6 +84,13 @@ export function integrateOdex(
   atol[IW] = atol[ID] = 1e30;
   rtol[IW] = rtol[ID] = 1;
 
+  const { Solver, Outcome } = odexLib;
+  if (typeof Solver !== "function") {
+    throw new SimulationError(
+      "tolerance",
+      'The odex integrator is not available in this build (the "odex" package did not load); use run.integrator "verlet".',
+    );
+  }
   const solver = new Solver(N);
   solver.relativeTolerance = rtol;
   solver.absoluteTolerance = atol;

@@ -24,7 +24,7 @@ describe("a train standing on the lift is picked up", () => {
   const F = M * G * (Math.sin(th) + s.train.rollingResistance * Math.cos(th)); // load at the dog
   const Lc = s.lift.chainTo - s.lift.chainFrom;
   const v = s.drive.speed;
-  const kc = EA / 1; // default dog and pawl contact stiffness (documented: E·A / 1 m)
+  const kc = r.diagnostics.contactStiffness as number; // default dog and pawl contact (documented in sim/README.md)
 
   it("once the drive has wound in F·L/(E·A) of stretch on the loaded length", () => {
     // Source: axial deformation δ = F·L/(E·A) (Gere & Goodno, Mechanics of Materials) on the loaded length

@@ -22,7 +22,8 @@ describe("anti-rollback", () => {
     expect(r2.summary.ardCatches).toBeGreaterThanOrEqual(1);
     // Source: the pawl falls on the last tooth it passed, so the rollback is at most one tooth spacing
     // plus the compression of the pawl contact (the model's definition, issue 3).
-    const k = s.chain.axialStiffness / 1; // default contact stiffness E·A / 1 m
+    const k = r2.diagnostics.contactStiffness as number; // default: E·A / max(1 m, strand segment / 4)
+    expect(k).toBeCloseTo(s.chain.axialStiffness / Math.max(1, r2.layout.strandLength / ((r2.layout.stations.length - 1) / 2) / 4), -3);
     expect(r2.summary.peakArdCompression).toBeCloseTo(r2.summary.peakArdForce / k, 9);
     expect(r2.summary.rollbackDistance - r2.summary.peakArdCompression).toBeLessThanOrEqual(s.antiRollback.toothSpacing + 1e-6);
     expect(r2.notes.join(" ")).not.toMatch(/rolled back/);
