@@ -4,7 +4,11 @@ import { Lifecycle } from "./lib/lifecycle";
 import { bringUpDatabase, bringUpMailFake, demoSignInHint, hasBuild, nextBin } from "./lib/stack";
 import { demoStack, repoRoot, stackEnv } from "./lib/settings";
 import { bringUpS3Fake } from "./lib/s3";
+import { bringUpRedis } from "./lib/redis";
 import { errorMessage, say, warn } from "./lib/log";
+import path from "node:path";
+
+const tsxCli = path.join(repoRoot, "node_modules", "tsx", "dist", "cli.mjs");
 
 async function main(): Promise<number> {
   const life = new Lifecycle();
@@ -16,6 +20,11 @@ async function main(): Promise<number> {
     if (life.interrupted) return 130;
     await bringUpMailFake(stack, life);
     await bringUpS3Fake(stack, life);
+    if (stack.redisUrl) {
+      // Queue mode: Redis on loopback (unless REDIS_URL names another host) and one local worker process.
+      if (stack.runRedis) await bringUpRedis(stack.redisPort, stack.redisDir, life);
+      else say(`REDIS_URL points at ${stack.redisUrl}: not starting redis-server`);
+    }
 
     const skip = process.env.TAUTLINE_SKIP_BUILD === "1";
     if (skip && hasBuild()) {
@@ -32,6 +41,10 @@ async function main(): Promise<number> {
       cwd: repoRoot,
       env: { ...env, NODE_ENV: "production" },
     });
+    if (stack.redisUrl && process.env.JOB_LOCAL_WORKER !== "0") {
+      life.spawn(process.execPath, [tsxCli, path.join(repoRoot, "scripts", "worker.ts")], { cwd: repoRoot, env: { ...env, NODE_ENV: "production" } });
+      say("queue mode: runs go through BullMQ; one local worker started (start more with npm run worker)");
+    }
     say(`Tautline is starting at ${stack.appUrl}`);
     say(await demoSignInHint());
     say("Press Ctrl-C to stop (the database shuts down cleanly).");

@@ -12,6 +12,7 @@ import { CHROMIUM, ensureDebianPackages, MARIADB } from "./lib/debian";
 import { Lifecycle } from "./lib/lifecycle";
 import { startMailFakeIfPresent } from "./lib/mail";
 import { bringUpS3Fake } from "./lib/s3";
+import { bringUpRedis } from "./lib/redis";
 import { destroyDatabase, instancePaths, portInUse, startDatabase } from "./lib/mariadb";
 import { hasBuild, nextBin } from "./lib/stack";
 import { repoRoot, stackEnv, testStack, type Stack } from "./lib/settings";
@@ -80,6 +81,7 @@ async function checkPorts(stack: Stack, parts: Set<Part>): Promise<void> {
     [stack.smtpPort, "TEST_SMTP_PORT"],
     [stack.mailHttpPort, "TEST_MAIL_HTTP_PORT"],
     [stack.s3Port, "TEST_S3_PORT"],
+    [stack.redisPort, "TEST_REDIS_PORT"],
   ];
   if (parts.has("e2e")) needs.push([stack.appPort, "TEST_APP_PORT"]);
   for (const [port, name] of needs) {
@@ -139,6 +141,9 @@ async function main(): Promise<boolean> {
           fs.rmSync(stack.s3Dir, { recursive: true, force: true });
           life.onStop("S3 folder", async () => fs.rmSync(stack.s3Dir, { recursive: true, force: true }));
           await bringUpS3Fake(stack, life);
+          fs.rmSync(stack.redisDir, { recursive: true, force: true });
+          life.onStop("Redis folder", async () => fs.rmSync(stack.redisDir, { recursive: true, force: true }));
+          await bringUpRedis(stack.redisPort, stack.redisDir, life);
           life.onStop("mail folder", async () => fs.rmSync(stack.mailDir, { recursive: true, force: true }));
           return { ok: true, detail: `MariaDB on ${stack.db.port}${fake ? `, mail fake on ${stack.smtpPort}/${stack.mailHttpPort}` : ""}` };
         });

@@ -9,7 +9,9 @@ import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { runConfig } from "./config";
 import { decodeResult } from "./result-format";
-import { abortRun, dispatchRun, type SolverSettings } from "./runner";
+import { abortRun, type SolverSettings } from "./runner";
+import { dispatchJob } from "@/lib/jobs/dispatch";
+import { assertRunNotFrozen } from "@/lib/review/freeze";
 import { RUNNER_ID } from "./runner-id";
 import { recoverOnce } from "./recover";
 import { RUN_SECTION_OVERRIDES, type ListRunsQuery, type StartRunInput } from "./schema";
@@ -100,7 +102,8 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
     slot.release();
     throw err;
   }
-  void dispatchRun(run, solver, slot);
+  // Pool by default; BullMQ on Redis when REDIS_URL is set (lib/jobs/dispatch.ts).
+  void dispatchJob(run, solver, slot).catch((err) => console.error(`run ${run.id}: could not queue`, err));
   return toRunView(run);
 }
 
@@ -149,6 +152,7 @@ export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery
 export async function cancelRun(user: Actor, runId: number): Promise<RunView> {
   const { Run } = getModels();
   const run = await findOwnRun(user, runId);
+  await assertRunNotFrozen(run);
   if (isFinished(run.status)) throw conflict(`The run is already ${run.status}.`);
   const before = { status: run.status, progress: run.progress };
   const changed = await Run.sequelize!.transaction(async (transaction) => {
@@ -175,6 +179,7 @@ export async function cancelRun(user: Actor, runId: number): Promise<RunView> {
 export async function deleteRun(user: Actor, runId: number, version: string | null): Promise<void> {
   const { Run } = getModels();
   const run = await findOwnRun(user, runId);
+  await assertRunNotFrozen(run);
   if (version === null || !/^\d{1,10}$/.test(version)) {
     throw badRequest("Say which version of the run you are deleting.", [
       { path: "version", message: "version is required (the run's current version, a whole number)" },

@@ -28,6 +28,16 @@ export interface Stack {
   s3Bucket: string;
   runS3Fake: boolean;
   s3Dir: string;
+  /** Queue mode: Redis URL (null = the in-process worker pool), and whether we start redis-server on loopback. */
+  redisUrl: string | null;
+  redisPort: number;
+  runRedis: boolean;
+  redisDir: string;
+}
+
+/** The loopback port of a redis:// URL, or null for another host. */
+function loopbackPort(url: string): number | null {
+  return isLoopbackUrl(url) ? Number(new URL(url).port || 6379) : null;
 }
 
 function isLoopbackUrl(url: string): boolean {
@@ -62,6 +72,11 @@ export function demoStack(env: Env = process.env): Stack {
     mailDir: path.join(path.dirname(dataDir), `mail-${path.basename(dataDir)}`),
     nextauthSecret: env.NEXTAUTH_SECRET?.trim() || storedSecret(path.join(repoRoot, ".data", "nextauth-secret")),
     ...s3Settings(env, parsePort(env.S3_PORT, "S3_PORT", 4568), path.join(path.dirname(dataDir), `s3-${path.basename(dataDir)}`)),
+    // REDIS_URL switches runs and studies to BullMQ; a loopback URL gets Debian's redis-server started.
+    redisUrl: env.REDIS_URL?.trim() || null,
+    redisPort: env.REDIS_URL?.trim() ? (loopbackPort(env.REDIS_URL.trim()) ?? 6379) : 6379,
+    runRedis: !!env.REDIS_URL?.trim() && loopbackPort(env.REDIS_URL.trim()) !== null && env.REDIS_START !== "0",
+    redisDir: path.join(path.dirname(dataDir), `redis-${path.basename(dataDir)}`),
   };
 }
 
@@ -89,6 +104,12 @@ export function testStack(env: Env = process.env): Stack {
     // A fresh secret per test run: nothing outlives it.
     nextauthSecret: crypto.randomBytes(32).toString("base64url"),
     ...s3Settings({}, parsePort(env.TEST_S3_PORT, "TEST_S3_PORT", 4569), path.join(repoRoot, ".data", `test-s3-${dbPort}`)),
+    // Always started for tests: the study tests run one study through the pool and one through BullMQ.
+    // Handed over as TEST_REDIS_URL (not REDIS_URL), so every other test keeps the default pool mode.
+    redisUrl: `redis://127.0.0.1:${parsePort(env.TEST_REDIS_PORT, "TEST_REDIS_PORT", 6380)}`,
+    redisPort: parsePort(env.TEST_REDIS_PORT, "TEST_REDIS_PORT", 6380),
+    runRedis: true,
+    redisDir: path.join(repoRoot, ".data", `test-redis-${dbPort}`),
   };
 }
 
@@ -137,6 +158,8 @@ export function stackEnv(s: Stack, base: Env = process.env): NodeJS.ProcessEnv {
     MAIL_HTTP_PORT: String(s.mailHttpPort),
     S3_ENDPOINT: s.s3Endpoint,
     S3_BUCKET: s.s3Bucket,
+    ...(s.kind === "demo" && s.redisUrl ? { REDIS_URL: s.redisUrl } : {}),
+    ...(s.kind === "test" && s.redisUrl ? { TEST_REDIS_URL: s.redisUrl, TEST_REDIS_PORT: String(s.redisPort) } : {}),
     ...(s.kind === "test"
       ? {
           TEST_DB_PORT: String(s.db.port),

@@ -1,0 +1,177 @@
+/**
+ * The BullMQ execution mode: one Redis queue of run jobs; workers (`npm run worker`, or the test's own)
+ * take a job, run the engine in their local worker-thread pool, and write the outcome to the database
+ * exactly as the in-process pool does (lib/runs/runner.ts). Per-organisation concurrency is a Redis
+ * sorted set of the organisation's running jobs (stale entries expire), checked atomically.
+ */
+import { Queue, Worker, DelayedError, type Job } from "bullmq";
+import IORedis, { type Redis } from "ioredis";
+import { Op } from "sequelize";
+import { getModels } from "@/models";
+import { dispatchRun, abortRun, type SolverSettings } from "@/lib/runs/runner";
+import { RUNNER_ID, runnerMayBeAlive } from "@/lib/runs/runner-id";
+import { getJobPool, QueueFullError } from "./pool";
+import { orgConcurrency, QUEUE_RUNNER } from "./dispatch";
+
+export const QUEUE_NAME = "tautline-runs";
+
+export interface RunJobData {
+  runId: number;
+  organisationId: number;
+  solver: SolverSettings;
+  studyCaseId?: number;
+}
+
+/** A job that finished (any outcome): studies use it to copy the run's figures into the case. */
+export type RunFinishedHook = (data: RunJobData) => Promise<void>;
+
+function redisUrl(): string {
+  const url = process.env.REDIS_URL;
+  if (!url) throw new Error("REDIS_URL is not set: the queue mode needs a Redis server.");
+  return url;
+}
+
+export function redisConnection(url = redisUrl()): Redis {
+  // BullMQ workers block on Redis: they need maxRetriesPerRequest null.
+  return new IORedis(url, { maxRetriesPerRequest: null });
+}
+
+const state = globalThis as unknown as { tautlineRunQueue?: { url: string; queue: Queue } };
+
+export function getRunQueue(): Queue {
+  const url = redisUrl();
+  if (state.tautlineRunQueue?.url !== url) {
+    state.tautlineRunQueue = { url, queue: new Queue(QUEUE_NAME, { connection: redisConnection(url) }) };
+  }
+  return state.tautlineRunQueue.queue;
+}
+
+export async function closeRunQueue(): Promise<void> {
+  const q = state.tautlineRunQueue;
+  state.tautlineRunQueue = undefined;
+  if (q) await q.queue.close();
+}
+
+export async function enqueueRun(data: RunJobData): Promise<void> {
+  await getRunQueue().add("run", data, { jobId: `run-${data.runId}`, removeOnComplete: true, removeOnFail: 1000 });
+}
+
+/** Removes a waiting job (a cancelled run); a job already taken notices the cancel itself. */
+export async function removeQueuedRun(runId: number): Promise<void> {
+  try {
+    await getRunQueue().remove(`run-${runId}`);
+  } catch {
+    // Locked by a worker that is running it: that worker sees the cancelled row and stops.
+  }
+}
+
+// Atomic "take a place for this organisation": drop entries older than the stale age, then add the job
+// if there is room. Entries are refreshed while the job runs, so a crashed worker's place expires.
+const ACQUIRE = `
+redis.call('ZREMRANGEBYSCORE', KEYS[1], '-inf', tonumber(ARGV[1]) - tonumber(ARGV[3]))
+if redis.call('ZSCORE', KEYS[1], ARGV[2]) then
+  redis.call('ZADD', KEYS[1], ARGV[1], ARGV[2])
+  return 1
+end
+if redis.call('ZCARD', KEYS[1]) < tonumber(ARGV[4]) then
+  redis.call('ZADD', KEYS[1], ARGV[1], ARGV[2])
+  return 1
+end
+return 0`;
+
+const STALE_MS = 30_000;
+const HEARTBEAT_MS = 5_000;
+const RETRY_DELAY_MS = 300;
+const CANCEL_POLL_MS = 400;
+
+const orgKey = (organisationId: number) => `tautline:org-running:${organisationId}`;
+
+export interface QueueWorkerOptions {
+  /** Jobs run at once by this worker (default JOB_WORKERS). */
+  concurrency?: number;
+  onFinished?: RunFinishedHook;
+}
+
+export interface QueueWorker {
+  worker: Worker;
+  close(): Promise<void>;
+}
+
+/** Starts a BullMQ worker for run jobs in this process. */
+export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
+  const url = redisUrl();
+  const redis = redisConnection(url);
+  const concurrency = opts.concurrency ?? getJobPool().config.workers;
+  const limit = orgConcurrency();
+
+  const processor = async (job: Job<RunJobData>, token?: string) => {
+    const data = job.data;
+    const member = `run-${data.runId}`;
+    const got = await redis.eval(ACQUIRE, 1, orgKey(data.organisationId), Date.now(), member, STALE_MS, limit);
+    if (got !== 1) {
+      // The organisation already runs its share: try again shortly, letting other organisations' jobs by.
+      await job.moveToDelayed(Date.now() + RETRY_DELAY_MS, token);
+      throw new DelayedError();
+    }
+    const heartbeat = setInterval(() => {
+      void redis.zadd(orgKey(data.organisationId), Date.now(), member).catch(() => undefined);
+    }, HEARTBEAT_MS);
+    try {
+      await runOne(data);
+    } finally {
+      clearInterval(heartbeat);
+      await redis.zrem(orgKey(data.organisationId), member);
+    }
+    if (opts.onFinished) await opts.onFinished(data);
+  };
+
+  const worker = new Worker<RunJobData>(QUEUE_NAME, processor, { connection: redisConnection(url), concurrency });
+  worker.on("error", (err) => console.error("run queue worker:", err.message));
+  return {
+    worker,
+    close: async () => {
+      await worker.close();
+      redis.disconnect();
+    },
+  };
+}
+
+/** Takes the run (if it still waits), runs it in the local pool, and stops it when its row is cancelled. */
+async function runOne(data: RunJobData): Promise<void> {
+  const { Run } = getModels();
+  // A job whose run was cancelled or finished meanwhile is dropped; a run whose worker died is taken over.
+  const before = await Run.findByPk(data.runId, { attributes: ["id", "status", "runner"] });
+  if (!before) return;
+  const takeOver = before.status === "running" && before.runner !== QUEUE_RUNNER && !runnerMayBeAlive(before.runner);
+  if (before.status !== "queued" && !takeOver) return;
+  const [taken] = await Run.update(
+    { runner: RUNNER_ID },
+    { where: { id: data.runId, status: before.status, runner: before.runner ?? { [Op.is]: null } } },
+  );
+  if (!taken) return;
+  const run = await Run.findByPk(data.runId);
+  if (!run) return;
+  let slot;
+  for (;;) {
+    try {
+      slot = getJobPool().reserve();
+      break;
+    } catch (err) {
+      if (!(err instanceof QueueFullError)) throw err;
+      await new Promise((r) => setTimeout(r, RETRY_DELAY_MS));
+    }
+  }
+  const done = dispatchRun(run, data.solver, slot);
+  const poll = setInterval(() => {
+    void Run.findByPk(data.runId, { attributes: ["id", "status"] }).then((r) => {
+      if (!r || r.status === "cancelled") void abortRun(data.runId);
+    });
+  }, CANCEL_POLL_MS);
+  try {
+    await done;
+  } finally {
+    clearInterval(poll);
+  }
+}
+
+export { QUEUE_RUNNER };

@@ -1,0 +1,55 @@
+/**
+ * One study case's engine scenario: the study's base scenario with the case's parameter values put in.
+ * Pure (no database): the chain catalogue rows and the train's masses are handed in.
+ */
+import { parseScenario, type Scenario as EngineScenario, type FieldIssue } from "@/sim/schema";
+import { LOADING_FRACTION, type StudyLoading } from "./schema";
+
+export interface ChainValues {
+  id: number;
+  designation: string;
+  pitch: number;
+  massPerLength: number;
+  axialStiffness: number;
+  breakingStrength: number;
+}
+
+export interface TrainMasses {
+  carMassEmpty: number;
+  seatsPerCar: number;
+  riderMass: number;
+}
+
+export interface CaseContext {
+  chains: Map<number, ChainValues>;
+  train: TrainMasses;
+}
+
+export type CaseValues = Record<string, number | string>;
+
+/** The base scenario with `values` applied, validated by the engine; issues name the case's parameter. */
+export function caseScenario(
+  base: EngineScenario,
+  values: CaseValues,
+  ctx: CaseContext,
+): { ok: true; scenario: EngineScenario } | { ok: false; issues: FieldIssue[] } {
+  const s = structuredClone(base) as EngineScenario;
+  for (const [key, v] of Object.entries(values)) {
+    if (key === "entrySpeed") s.train.entrySpeed = Number(v);
+    else if (key === "chainSpeed") s.drive.speed = Number(v);
+    else if (key === "takeUpMass") s.takeUp.mass = Number(v);
+    else if (key === "loading") {
+      const t = ctx.train;
+      s.train.carMass = t.carMassEmpty + t.seatsPerCar * t.riderMass * LOADING_FRACTION[v as StudyLoading];
+    } else if (key === "chainSpec") {
+      const c = ctx.chains.get(Number(v));
+      if (!c) return { ok: false, issues: [{ path: "chainSpec", message: `chain ${v} is not in the catalogue` } as FieldIssue] };
+      s.chain.pitch = c.pitch;
+      s.chain.massPerLength = c.massPerLength;
+      s.chain.axialStiffness = c.axialStiffness;
+      s.chain.breakingStrength = c.breakingStrength;
+    }
+  }
+  const parsed = parseScenario(s);
+  return parsed.ok ? { ok: true, scenario: parsed.scenario } : { ok: false, issues: parsed.issues };
+}

@@ -1,0 +1,200 @@
+/**
+ * Runs a study's cases. Pool mode: this process feeds the cases to the worker-thread pool a few at a time
+ * (at most JOB_ORG_CONCURRENCY of one organisation at once, so other users' runs get in between).
+ * Queue mode: every case's run is created and queued in Redis at once; the workers limit each
+ * organisation. Either way the case's run row is the same, and so are its figures.
+ */
+import { Op } from "sequelize";
+import { getModels } from "@/models";
+import type { Run } from "@/models/Run";
+import type { Study } from "@/models/Study";
+import type { StudyCase } from "@/models/StudyCase";
+import type { Scenario as EngineScenario } from "@/sim/schema";
+import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
+import { dispatchJob, jobMode, orgConcurrency, QUEUE_RUNNER } from "@/lib/jobs/dispatch";
+import type { SolverSettings } from "@/lib/runs/runner";
+import { RUNNER_ID } from "@/lib/runs/runner-id";
+import { caseScenario, type ChainValues, type TrainMasses } from "./cases";
+import { settleCase, refreshStudy } from "./progress";
+
+/** What a study stores beside its definition so every case can be rebuilt exactly (pinned like a run). */
+export interface StoredStudySettings {
+  requireNoArdCatch: boolean;
+  solver: SolverSettings;
+  /** The validated engine scenario every case starts from (scenario + pinned revision + train + overrides). */
+  base: EngineScenario;
+  chains: ChainValues[];
+  train: TrainMasses;
+}
+
+export function storedSettings(study: Pick<Study, "settings">): StoredStudySettings {
+  return study.settings as unknown as StoredStudySettings;
+}
+
+/** Creates the run row of one case (queued) and links it; a case whose inputs no longer validate fails. */
+export async function createCaseRun(study: Study, c: StudyCase, runner: string): Promise<Run | null> {
+  const { Run, StudyCase } = getModels();
+  const st = storedSettings(study);
+  const built = caseScenario(st.base, c.values, { chains: new Map(st.chains.map((x) => [x.id, x])), train: st.train });
+  if (!built.ok) {
+    await StudyCase.update(
+      { status: "failed", error: built.issues.map((i) => `${i.path}: ${i.message}`).join("; "), finishedAt: new Date() },
+      { where: { id: c.id } },
+    );
+    return null;
+  }
+  return Run.sequelize!.transaction(async (transaction) => {
+    const run = await Run.create(
+      {
+        organisationId: study.organisationId,
+        scenarioId: study.scenarioId,
+        liftRevisionId: study.liftRevisionId,
+        startedBy: study.createdBy,
+        inputs: built.scenario as unknown as Record<string, unknown>,
+        solver: { ...st.solver, run: built.scenario.run, studyId: study.id, studyCaseId: c.id },
+        runner,
+        queuedAt: new Date(),
+      },
+      { transaction },
+    );
+    const [n] = await StudyCase.update(
+      { runId: run.id, status: "queued", error: null },
+      { where: { id: c.id, status: "queued", runId: null }, transaction },
+    );
+    if (!n) throw new Error(`case ${c.id} was taken by another driver`);
+    return run;
+  });
+}
+
+// ---- per-organisation limit inside this process (pool mode) ----
+
+const limiterState = globalThis as unknown as { tautlineOrgLimiter?: Map<number, { active: number; waiting: (() => void)[] }> };
+
+async function acquireOrg(organisationId: number): Promise<() => void> {
+  if (!limiterState.tautlineOrgLimiter) limiterState.tautlineOrgLimiter = new Map();
+  const map = limiterState.tautlineOrgLimiter;
+  let e = map.get(organisationId);
+  if (!e) map.set(organisationId, (e = { active: 0, waiting: [] }));
+  const entry = e;
+  if (entry.active >= orgConcurrency()) await new Promise<void>((resolve) => entry.waiting.push(resolve));
+  else entry.active += 1;
+  let released = false;
+  return () => {
+    if (released) return;
+    released = true;
+    const next = entry.waiting.shift();
+    if (next) next(); // hand the place straight on
+    else entry.active -= 1;
+  };
+}
+
+async function reserveWithWait(): Promise<Slot> {
+  for (;;) {
+    try {
+      return getJobPool().reserve();
+    } catch (err) {
+      if (!(err instanceof QueueFullError)) throw err;
+      await new Promise((r) => setTimeout(r, 250));
+    }
+  }
+}
+
+const driverState = globalThis as unknown as { tautlineStudyDrivers?: Map<number, Promise<void>> };
+function drivers(): Map<number, Promise<void>> {
+  if (!driverState.tautlineStudyDrivers) driverState.tautlineStudyDrivers = new Map();
+  return driverState.tautlineStudyDrivers;
+}
+
+async function stillRunning(studyId: number): Promise<boolean> {
+  const s = await getModels().Study.findByPk(studyId, { attributes: ["id", "status"] });
+  return !!s && (s.status === "queued" || s.status === "running");
+}
+
+async function drivePool(studyId: number): Promise<void> {
+  const { Study, StudyCase } = getModels();
+  const inflight = new Set<Promise<void>>();
+  for (;;) {
+    if (!(await stillRunning(studyId))) break;
+    const study = await Study.findByPk(studyId);
+    if (!study) break;
+    const next = await StudyCase.findOne({ where: { studyId, status: "queued", runId: null }, order: [["idx", "ASC"]] });
+    if (!next) break;
+    const release = await acquireOrg(study.organisationId);
+    if (!(await stillRunning(studyId))) {
+      release();
+      break;
+    }
+    let run: Run | null;
+    try {
+      run = await createCaseRun(study, next, RUNNER_ID);
+    } catch (err) {
+      release();
+      throw err;
+    }
+    if (!run) {
+      release();
+      continue;
+    }
+    await StudyCase.update({ status: "running" }, { where: { id: next.id, status: "queued" } });
+    const slot = await reserveWithWait();
+    const caseId = next.id;
+    const p: Promise<void> = dispatchJob(run, storedSettings(study).solver, slot)
+      .then(() => settleCase(caseId).then(() => undefined))
+      .catch((err) => console.error(`study ${studyId} case ${caseId}:`, err))
+      .finally(() => {
+        release();
+        inflight.delete(p);
+      });
+    inflight.add(p);
+  }
+  await Promise.all([...inflight]);
+  await refreshStudy(studyId);
+}
+
+async function driveQueue(studyId: number): Promise<void> {
+  const { Study, StudyCase } = getModels();
+  const study = await Study.findByPk(studyId);
+  if (!study) return;
+  const open = await StudyCase.findAll({ where: { studyId, status: "queued", runId: null }, order: [["idx", "ASC"]] });
+  const st = storedSettings(study);
+  for (const c of open) {
+    const run = await createCaseRun(study, c, QUEUE_RUNNER);
+    if (!run) continue;
+    // Queue mode: the slot is not used (released by dispatchJob); a dummy keeps the call shape.
+    await dispatchJob(run, st.solver, { release() {} }, { studyCaseId: c.id });
+  }
+  await refreshStudy(studyId);
+}
+
+/**
+ * Starts (or joins) the driver of a study in this process. Marks the study running, owned by this
+ * process in pool mode. Resolves when every case has been handed out and (pool mode) has finished.
+ */
+export function driveStudy(studyId: number): Promise<void> {
+  const map = drivers();
+  const existing = map.get(studyId);
+  if (existing) return existing;
+  const mode = jobMode();
+  const p = (async () => {
+    const { Study } = getModels();
+    await Study.update(
+      { status: "running", mode, driver: mode === "pool" ? RUNNER_ID : null, startedAt: new Date(), finishedAt: null },
+      { where: { id: studyId, status: { [Op.in]: ["queued", "running"] } } },
+    );
+    if (mode === "pool") await drivePool(studyId);
+    else await driveQueue(studyId);
+  })()
+    .catch((err) => console.error(`study ${studyId}: driver stopped`, err))
+    .finally(() => map.delete(studyId));
+  map.set(studyId, p);
+  return p;
+}
+
+/** Resolves when this process's driver of the study (if any) has stopped. For tests and the bench. */
+export async function waitForStudyDriver(studyId: number): Promise<void> {
+  await drivers().get(studyId);
+}
+
+export function hasStudyDriver(studyId: number): boolean {
+  return drivers().has(studyId);
+}
