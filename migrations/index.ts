@@ -13,8 +13,6 @@ import * as m0016 from "./0016_widen_scenario_names";
 import * as m0020 from "./0020_runs";
 import * as m0030 from "./0030_studies";
 import * as m0031 from "./0031_reports";
-import * as m0030 from "./0030_studies";
-import * as m0031 from "./0031_reports";
 import * as m0040 from "./0040_logbook";
 import * as m0041 from "./0041_recordings";
 import * as m0042 from "./0042_training";
@@ -40,8 +38,6 @@ export const migrations: Migration[] = [
   { name: "0015_create_comments", ...m0015 },
   { name: "0016_widen_scenario_names", ...m0016 },
   { name: "0020_runs", ...m0020 },
-  { name: "0030_studies", ...m0030 },
-  { name: "0031_reports", ...m0031 },
   { name: "0030_studies", ...m0030 },
   { name: "0031_reports", ...m0031 },
   { name: "0040_logbook", ...m0040 },

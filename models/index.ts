@@ -16,10 +16,6 @@ import { initStudy, Study } from "./Study";
 import { initStudyCase, StudyCase } from "./StudyCase";
 import { initReport, Report } from "./Report";
 import { initReportReview, ReportReview } from "./ReportReview";
-import { initStudy, Study } from "./Study";
-import { initStudyCase, StudyCase } from "./StudyCase";
-import { initReport, Report } from "./Report";
-import { initReportReview, ReportReview } from "./ReportReview";
 // Operations: logbook, uploads, alerts, recordings, training sessions.
 import { initLogbookEntry, LogbookEntry } from "./LogbookEntry";
 import { initLogbookSetting, LogbookSetting } from "./LogbookSetting";
@@ -35,7 +31,6 @@ import { initTrainingView, TrainingView } from "./TrainingView";
 export { Organisation, User, AuthToken, RateLimitHit };
 export { ChainSpec, Lift, LiftRevision, Train, Scenario, AuditEntry, Comment };
 export { Run };
-export { Study, StudyCase, Report, ReportReview };
 export { Study, StudyCase, Report, ReportReview };
 export { LogbookEntry, LogbookSetting, Upload, Alert, Recording, RecordingSample };
 export { TrainingSession, TrainingItem, TrainingCaption, TrainingView };
@@ -57,10 +52,6 @@ export interface Models {
   AuditEntry: typeof AuditEntry;
   Comment: typeof Comment;
   Run: typeof Run;
-  Study: typeof Study;
-  StudyCase: typeof StudyCase;
-  Report: typeof Report;
-  ReportReview: typeof ReportReview;
   Study: typeof Study;
   StudyCase: typeof StudyCase;
   Report: typeof Report;
@@ -108,14 +99,6 @@ function associate(m: Models): void {
   m.Report.hasMany(m.ReportReview, { foreignKey: "reportId", as: "reviews" });
   m.ReportReview.belongsTo(m.Report, { foreignKey: "reportId", as: "report" });
   m.ReportReview.belongsTo(m.User, { foreignKey: "userId", as: "user" });
-  // Studies and reports.
-  m.Study.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
-  m.Study.hasMany(m.StudyCase, { foreignKey: "studyId", as: "cases" });
-  m.StudyCase.belongsTo(m.Study, { foreignKey: "studyId", as: "study" });
-  m.Report.belongsTo(m.Scenario, { foreignKey: "scenarioId", as: "scenario" });
-  m.Report.hasMany(m.ReportReview, { foreignKey: "reportId", as: "reviews" });
-  m.ReportReview.belongsTo(m.Report, { foreignKey: "reportId", as: "report" });
-  m.ReportReview.belongsTo(m.User, { foreignKey: "userId", as: "user" });
   // Operations.
   m.LogbookEntry.belongsTo(m.User, { foreignKey: "userId", as: "author" });
   m.Recording.hasMany(m.RecordingSample, { foreignKey: "recordingId", as: "samples" });
@@ -142,10 +125,6 @@ export function initModels(sequelize: Sequelize): Models {
     AuditEntry: initAuditEntry(sequelize),
     Comment: initComment(sequelize),
     Run: initRun(sequelize),
-    Study: initStudy(sequelize),
-    StudyCase: initStudyCase(sequelize),
-    Report: initReport(sequelize),
-    ReportReview: initReportReview(sequelize),
     Study: initStudy(sequelize),
     StudyCase: initStudyCase(sequelize),
     Report: initReport(sequelize),

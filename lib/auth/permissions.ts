@@ -24,12 +24,6 @@ export const PERMISSIONS = {
   "devmail:read": ["admin"],
   // Own profile: password, display units.
   "profile:self": ["admin", "engineer", "reviewer", "operator", "trainer", "viewer"],
-  // Design studies (many runs of one scenario) and design-check reports with sign-off.
-  "study:read": ["admin", "engineer", "reviewer", "operator", "trainer", "viewer"],
-  "study:run": ["admin", "engineer"],
-  "report:read": ["admin", "engineer", "reviewer"],
-  "report:write": ["admin", "engineer"],
-  "report:review": ["reviewer"],
   // Operations logbook, logger recordings, calibration, alerts.
   "logbook:read": ["admin", "engineer", "reviewer", "operator", "trainer", "viewer"],
   "logbook:write": ["admin", "engineer", "operator"],
