@@ -215,7 +215,7 @@ export function LiftEditor({
 
   const errorCount = Object.keys(errors).length;
   return (
-    <div className="grid gap-5 xl:grid-cols-[minmax(0,1fr)_420px]">
+    <div className="grid gap-5 xl:grid-cols-[minmax(0,1fr)_400px]">
       <form
         className="space-y-4"
         noValidate
@@ -272,7 +272,7 @@ export function LiftEditor({
         </Section>
 
         <Section title="Chain" description="Pick a catalogue chain, or type the chain's own values.">
-          <div className="col-span-2 sm:col-span-3 xl:col-span-4">
+          <div className="col-span-2 sm:col-span-3">
             <label htmlFor="f-chainSpecId" className="mb-1 block text-[12.5px] font-semibold text-ink-800">
               Chain size
             </label>

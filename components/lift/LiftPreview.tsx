@@ -75,11 +75,11 @@ export function LiftPreview({ input, units, stale }: { input: PreviewInput | nul
 
   return (
     <figure className="rounded-lg border border-steel-300/70 bg-white" data-testid="lift-preview">
-      <figcaption className="flex items-center justify-between border-b border-steel-100 px-4 py-2 text-[12.5px]">
-        <span className="font-semibold text-ink-900">Side elevation, to scale</span>
+      <figcaption className="flex items-center justify-between gap-3 border-b border-steel-100 px-4 py-2 text-[12.5px]">
+        <span className="shrink-0 font-semibold text-ink-900">Side elevation</span>
         {drawing && (
           <span className="font-mono text-steel-500" data-testid="preview-figures">
-            track {formatQuantity(drawing.length, "length", units, 1)} · lift height {formatQuantity(drawing.height, "length", units, 1)}
+            track {formatQuantity(drawing.length, "length", units, 1)} · height {formatQuantity(drawing.height, "length", units, 1)}
           </span>
         )}
       </figcaption>

@@ -117,7 +117,7 @@ export function Section({ title, children, description }: { title: string; descr
         <h3 className="text-[13.5px] font-bold text-ink-900">{title}</h3>
         {description && <p className="text-[12px] text-steel-500">{description}</p>}
       </div>
-      <div className="grid grid-cols-2 gap-x-4 gap-y-3 px-4 py-3.5 sm:grid-cols-3 xl:grid-cols-4">{children}</div>
+      <div className="grid grid-cols-2 gap-x-4 gap-y-3 px-4 py-3.5 sm:grid-cols-3">{children}</div>
     </fieldset>
   );
 }

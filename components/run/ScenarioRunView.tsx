@@ -15,7 +15,7 @@ import { useResource } from "@/lib/client/hooks";
 import type { UnitSystem } from "@/lib/client/units";
 import { ProgressBar } from "./ProgressBar";
 import { RunResults } from "./RunResults";
-import { loadServerRun, type RunJson } from "./serverRun";
+import { loadServerRun, runItems, type RunJson } from "./serverRun";
 import { shownData, useRunStore } from "./store";
 import { useWorkerRun } from "./useWorkerRun";
 import { WhatIfPanel } from "./WhatIfPanel";
@@ -38,12 +38,12 @@ export function ScenarioRunView({
   fileStem: string;
 }) {
   const router = useRouter();
-  const { status, progress, error, whatIf } = useRunStore();
+  const { status, progress, error, whatIf, progressEvents } = useRunStore();
   const data = useRunStore((s) => shownData(s));
   const reset = useRunStore((s) => s.reset);
   const set = useRunStore((s) => s.set);
   const { runFull, cancel, runPreview } = useWorkerRun();
-  const runs = useResource<{ runs: RunJson[]; total: number }>(`/api/scenarios/${scenarioId}/runs?pageSize=8`);
+  const runs = useResource<{ items?: RunJson[]; runs?: RunJson[]; total: number }>(`/api/scenarios/${scenarioId}/runs?pageSize=8`);
   const [openFailed, setOpenFailed] = useState(false);
   const [saveMsg, setSaveMsg] = useState<{ tone: "error" | "info"; text: string } | null>(null);
   const [saving, setSaving] = useState(false);
@@ -54,7 +54,8 @@ export function ScenarioRunView({
   }, [reset, scenarioId]);
 
   // A saved run opens at once from its stored result.
-  const latestDone = runs.data?.runs.find((r) => r.status === "done");
+  const runList = runItems(runs.data);
+  const latestDone = runList?.find((r) => r.status === "done");
   useEffect(() => {
     if (!latestDone || useRunStore.getState().data) return;
     let live = true;
@@ -88,7 +89,7 @@ export function ScenarioRunView({
     );
 
   return (
-    <div className="space-y-4" data-testid="run-view">
+    <div className="space-y-4" data-testid="run-view" data-status={status} data-progress-events={progressEvents}>
       <div className="flex flex-wrap items-center gap-3 rounded-lg border border-steel-300/70 bg-white px-4 py-3">
         {canStart ? (
           <>
@@ -104,7 +105,7 @@ export function ScenarioRunView({
               <ProgressBar value={progress} label="Browser run progress" />
             ) : (
               <span className="text-[12.5px] text-steel-500" data-testid="run-status">
-                {status === "done" ? "Browser run done." : status === "cancelled" ? "Cancelled." : status === "failed" ? "The run failed." : "Runs here stay in this browser until you save."}
+                {status === "done" ? `Browser run done (${data && data.origin === "browser" ? (data.wallTimeMs / 1000).toFixed(2) : "—"} s).` : status === "cancelled" ? "Cancelled." : status === "failed" ? "The run failed." : "Runs here stay in this browser until you save."}
               </span>
             )}
             <div className="ml-auto flex items-center gap-2">
@@ -137,7 +138,7 @@ export function ScenarioRunView({
         <section className="rounded-lg border border-steel-300/70 bg-white" data-testid="saved-runs">
           <h3 className="border-b border-steel-100 px-4 py-2 text-[13px] font-bold text-ink-900">Saved runs</h3>
           <ul className="max-h-48 divide-y divide-steel-100 overflow-y-auto">
-            {runs.data?.runs.map((r) => (
+            {runList?.map((r) => (
               <li key={r.id} className="flex items-center gap-2 px-4 py-1.5 text-[12.5px]">
                 <Link href={`/runs/${r.id}`} className="font-mono font-semibold text-ink-900 hover:text-lamp-600 hover:underline">
                   Run {r.id}
@@ -146,7 +147,7 @@ export function ScenarioRunView({
                 <span className="ml-auto text-[11.5px] text-steel-500">{new Date(r.queuedAt).toLocaleString("en-GB", { dateStyle: "short", timeStyle: "short" })}</span>
               </li>
             ))}
-            {runs.data && runs.data.runs.length === 0 && <li className="px-4 py-2 text-[12.5px] text-steel-500">No saved runs yet.</li>}
+            {runList && runList.length === 0 && <li className="px-4 py-2 text-[12.5px] text-steel-500">No saved runs yet.</li>}
           </ul>
         </section>
       </div>

@@ -48,8 +48,15 @@ export function toRunData(run: RunJson, res: ResultJson): RunData {
 }
 
 export async function loadServerRun(runId: number): Promise<{ run: RunJson; data: RunData | null }> {
-  const run = await getJson<RunJson>(`/api/runs/${runId}`);
+  const got = await getJson<RunJson | { run: RunJson }>(`/api/runs/${runId}`);
+  // GET /api/runs/[id] answers { run }; accept a bare run as well.
+  const run = "run" in got ? got.run : got;
   if (run.status !== "done") return { run, data: null };
   const res = await getJson<ResultJson>(`/api/runs/${runId}/result`);
   return { run, data: toRunData(run, res) };
+}
+
+/** The runs of a scenario from GET /api/scenarios/[id]/runs (list shape `items`; older answers said `runs`). */
+export function runItems(page: { items?: RunJson[]; runs?: RunJson[] } | undefined): RunJson[] | undefined {
+  return page ? (page.items ?? page.runs ?? []) : undefined;
 }

@@ -19,6 +19,8 @@ interface RunState {
   /** Milliseconds the last what-if preview took from slider move to figures. */
   previewLatencyMs: number | null;
   previewBusy: boolean;
+  /** Progress messages received from the worker during the last browser run. */
+  progressEvents: number;
   set(p: Partial<Omit<RunState, "set" | "reset">>): void;
   reset(p?: Partial<Omit<RunState, "set" | "reset">>): void;
 }
@@ -32,6 +34,7 @@ const initial = {
   whatIf: null,
   previewLatencyMs: null,
   previewBusy: false,
+  progressEvents: 0,
 };
 
 export const useRunStore = create<RunState>((set) => ({

@@ -34,12 +34,13 @@ export function useWorkerRun() {
       const w = newWorker();
       full.current = w;
       const id = ++seq.current;
-      set({ status: "running", progress: 0, error: null });
+      set({ status: "running", progress: 0, error: null, progressEvents: 0 });
+      let events = 0;
       return new Promise((resolve) => {
         w.onmessage = (e: MessageEvent<WorkerMessage>) => {
           const m = e.data;
           if (m.id !== id) return;
-          if (m.type === "progress") set({ progress: m.fraction });
+          if (m.type === "progress") set({ progress: m.fraction, progressEvents: ++events });
           else if (m.type === "done") {
             const data: RunData = { ...m.data, origin: "browser" };
             set({ status: "done", progress: 1, data, preview: null });
