@@ -133,6 +133,34 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
     refusalsOnly: ["DELETE"],
   },
   "/api/audit": { methods: { GET: needs("audit:read") } },
+  // Operations logbook, uploads, recordings and calibration. Probe bodies fail validation: nothing is stored.
+  "/api/logbook/entries": { methods: { GET: needs("logbook:read"), POST: needs("logbook:write") } },
+  "/api/logbook/alerts": { methods: { GET: needs("logbook:read") } },
+  "/api/logbook/lifts/[id]": { methods: { GET: needs("logbook:read") }, rows: { id: "lifts" } },
+  "/api/logbook/lifts/[id]/settings": { methods: { PUT: needs("logbook:settings") }, rows: { id: "lifts" } },
+  "/api/uploads": { methods: { POST: needs("logbook:write") } },
+  "/api/uploads/[id]": { methods: { GET: needs("logbook:read") }, rows: { id: "uploads" } },
+  "/api/recordings": { methods: { GET: needs("logbook:read"), POST: needs("recording:upload") } },
+  "/api/recordings/[id]": { methods: { GET: needs("logbook:read") }, rows: { id: "recordings" } },
+  "/api/recordings/[id]/overlay": { methods: { GET: needs("logbook:read") }, rows: { id: "recordings" } },
+  "/api/recordings/[id]/calibrate": { methods: { POST: needs("run:start") }, rows: { id: "recordings" } },
+  "/api/recordings/[id]/calibration": { methods: { POST: needs("calibration:save") }, rows: { id: "recordings" } },
+  // Trainers' replay sessions. The demo park's seeded session is shared, so viewers may open it.
+  "/api/training/sessions": { methods: { GET: needs("training:watch"), POST: needs("training:manage") } },
+  "/api/training/sessions/[id]": {
+    methods: { GET: needs("training:watch"), PATCH: needs("training:manage"), DELETE: needs("training:manage") },
+    rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
+    refusalsOnly: ["DELETE"],
+  },
+  "/api/training/sessions/[id]/share": {
+    methods: { POST: needs("training:manage") },
+    rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
+    probeBody: { invite: "not a list" }, // a valid body would e-mail the park's viewers
+  },
+  "/api/training/sessions/[id]/views": {
+    methods: { GET: needs("training:manage"), POST: needs("training:watch") },
+    rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
+  },
 };
 
 export const PAGE_ROUTES: Record<string, PageAccess> = {
@@ -160,6 +188,17 @@ export const PAGE_ROUTES: Record<string, PageAccess> = {
   "/scenarios/new": { access: needs("design:write") },
   "/scenarios/[id]": { access: needs("design:read"), rows: { id: "scenarios" } },
   "/runs/[id]": { access: needs("run:read"), rows: { id: "runs" } },
+  // Operations: logger upload, a recording with overlay and calibration; replay sessions.
+  "/logbook/upload": { access: needs("recording:upload") },
+  "/logbook/recordings/[id]": { access: needs("logbook:read"), rows: { id: "recordings" } },
+  "/replays/[id]": {
+    access: needs("training:watch"),
+    rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
+  },
+  "/replays/[id]/edit": {
+    access: needs("training:manage"),
+    rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
+  },
 };
 
 /** Turns a file under app/ into its URL pattern: drops route groups and the file name. */

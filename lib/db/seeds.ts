@@ -3,6 +3,8 @@ import { demoAccountsSeed } from "@/lib/auth/seed";
 import { demoParkChainSeed, standardChainsSeed } from "@/lib/chains/seed";
 import { demoReviewCommentSeed } from "@/lib/comments/seed";
 import { demoDesignSeed, demoRunsSeed, interruptedRunsSeed } from "@/lib/demo/seed";
+import { demoLogbookSeed } from "@/lib/logbook/seed";
+import { demoTrainingSeed } from "@/lib/training/seed";
 
 /** One idempotent seed step: running it twice leaves the same rows as running it once. */
 export interface SeedStep {
@@ -19,4 +21,6 @@ export const seedSteps: SeedStep[] = [
   interruptedRunsSeed,
   demoParkChainSeed,
   demoReviewCommentSeed,
+  demoLogbookSeed,
+  demoTrainingSeed,
 ];

@@ -1,0 +1,13 @@
+import { NextResponse } from "next/server";
+import { requirePermission } from "@/lib/auth/session";
+import { route } from "@/lib/http/route";
+import { parseId } from "@/lib/api/ids";
+import type { RouteContext } from "@/lib/api/params";
+import { getRecording } from "@/lib/recordings/service";
+
+export const runtime = "nodejs";
+
+export const GET = route(async (_req, ctx: RouteContext) => {
+  const actor = await requirePermission("logbook:read");
+  return NextResponse.json(await getRecording(actor, parseId((await ctx.params).id, "Recording not found.")));
+});

@@ -1,0 +1,118 @@
+/**
+ * Logger CSV → SI samples, listing every problem (row and column) before anything is stored. Pure
+ * (papaparse), so the browser shows the same report the server enforces. Row numbers are the file's
+ * line numbers (the header is line 1).
+ */
+import Papa from "papaparse";
+import type { FieldIssue } from "@/lib/http/errors";
+import { CHANNELS, FACTORS, RECORDING_MAX_ROWS, type Channel, type Units } from "./schema";
+
+export interface ParsedSample {
+  t: number;
+  takeUpPosition: number | null;
+  chainTension: number | null;
+  driveCurrent: number | null;
+  trainPosition: number | null;
+  trainSpeed: number | null;
+}
+
+export interface ParseReport {
+  headers: string[];
+  rowCount: number;
+  samples: ParsedSample[];
+  issues: FieldIssue[];
+  channels: Channel[];
+}
+
+const MAX_LISTED = 1000;
+
+export function readHeaders(csv: string): string[] {
+  const r = Papa.parse<string[]>(csv, { preview: 1, skipEmptyLines: true });
+  return (r.data[0] ?? []).map((h) => String(h).trim());
+}
+
+function factorFor(c: Channel, u: Units): number {
+  if (c === "takeUpPosition" || c === "trainPosition") return FACTORS.length[u.length];
+  if (c === "chainTension") return FACTORS.force[u.force];
+  if (c === "trainSpeed") return FACTORS.speed[u.speed];
+  return 1; // drive current, A
+}
+
+export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel | "time", string>>, units: Units): ParseReport {
+  const issues: FieldIssue[] = [];
+  let more = 0;
+  const add = (i: FieldIssue) => (issues.length < MAX_LISTED ? issues.push(i) : more++);
+  const r = Papa.parse<string[]>(csv, { skipEmptyLines: "greedy" });
+  const rows = r.data;
+  const headers = (rows[0] ?? []).map((h) => String(h).trim());
+  const index: Partial<Record<Channel | "time", number>> = {};
+  for (const key of ["time", ...CHANNELS] as const) {
+    const name = mapping[key];
+    if (!name) continue;
+    const i = headers.indexOf(name);
+    if (i < 0) add({ path: `mapping.${key}`, message: `the file has no column "${name}"` });
+    else index[key] = i;
+  }
+  const channels = CHANNELS.filter((c) => index[c] !== undefined);
+  const body = rows.slice(1);
+  if (body.length === 0) add({ path: "csv", message: "the file has a header but no data rows" });
+  if (body.length > RECORDING_MAX_ROWS) add({ path: "csv", message: `the file has ${body.length} data rows; at most ${RECORDING_MAX_ROWS}` });
+  const samples: ParsedSample[] = [];
+  if (issues.length === 0) {
+    const tf = FACTORS.time[units.time];
+    const sign = units.takeUpDirection === "down" ? 1 : -1;
+    let lastT = Number.NEGATIVE_INFINITY;
+    let takeUp0: number | null = null;
+    body.forEach((cells, k) => {
+      const line = k + 2;
+      if (cells.length !== headers.length) {
+        add({ path: `rows.${line}`, message: `line ${line} has ${cells.length} fields; the header has ${headers.length}` });
+        return;
+      }
+      const num = (key: Channel | "time"): number | null | undefined => {
+        const i = index[key];
+        if (i === undefined) return null;
+        const raw = String(cells[i]).trim();
+        if (raw === "" && key !== "time") return null; // an empty reading is a gap, not an error
+        const v = Number(raw);
+        if (raw === "" || !Number.isFinite(v)) {
+          add({ path: `rows.${line}.${key}`, message: `line ${line}, column "${headers[i]}": "${raw.slice(0, 40)}" is not a number` });
+          return undefined;
+        }
+        return v;
+      };
+      const t = num("time");
+      const values = Object.fromEntries(channels.map((c) => [c, num(c)])) as Record<Channel, number | null | undefined>;
+      if (t === undefined || t === null || channels.some((c) => values[c] === undefined)) return;
+      const ts = t * tf;
+      if (ts <= lastT) add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} does not increase (previous ${lastT / tf})` });
+      lastT = Math.max(lastT, ts);
+      const sample: ParsedSample = { t: ts, takeUpPosition: null, chainTension: null, driveCurrent: null, trainPosition: null, trainSpeed: null };
+      for (const c of channels) {
+        const v = values[c];
+        if (v === null || v === undefined) continue;
+        const si = v * factorFor(c, units);
+        if (c === "takeUpPosition") {
+          // Kept as the drop from the first reading, positive down: the engine's convention.
+          if (takeUp0 === null) takeUp0 = si;
+          sample.takeUpPosition = sign * (si - takeUp0);
+        } else sample[c] = si;
+      }
+      samples.push(sample);
+    });
+  }
+  if (more) issues.push({ path: "rows", message: `and ${more} more problems` });
+  return { headers, rowCount: body.length, samples: issues.length ? [] : samples, issues, channels };
+}
+
+/**
+ * Engagement from a train-speed trace: the first moment the speed differs from its first reading by
+ * more than 0.25 m/s (the dog taking the train to chain speed). Null without a speed channel.
+ */
+export function detectEngagement(samples: ParsedSample[]): number | null {
+  const s = samples.filter((x) => x.trainSpeed !== null);
+  if (s.length < 3) return null;
+  const v0 = s[0].trainSpeed!;
+  const hit = s.find((x) => Math.abs(x.trainSpeed! - v0) > 0.25);
+  return hit ? hit.t : null;
+}

@@ -1,0 +1,61 @@
+/** The logger-upload request: the CSV text, which column is which, and the units they are in. */
+import { z } from "zod";
+
+export const CHANNELS = ["takeUpPosition", "chainTension", "driveCurrent", "trainPosition", "trainSpeed"] as const;
+export type Channel = (typeof CHANNELS)[number];
+
+export const CHANNEL_LABELS: Record<Channel | "time", string> = {
+  time: "Time",
+  takeUpPosition: "Take-up position",
+  chainTension: "Chain tension",
+  driveCurrent: "Drive current",
+  trainPosition: "Train position",
+  trainSpeed: "Train speed",
+};
+
+const column = z.string().trim().min(1).max(120);
+
+export const mappingSchema = z
+  .object({
+    time: column,
+    takeUpPosition: column.optional(),
+    chainTension: column.optional(),
+    driveCurrent: column.optional(),
+    trainPosition: column.optional(),
+    trainSpeed: column.optional(),
+  })
+  .refine((m) => CHANNELS.some((c) => m[c]), { message: "map at least one of take-up position, chain tension, drive current, train position or speed", path: ["takeUpPosition"] });
+
+export const unitsSchema = z.object({
+  time: z.enum(["s", "ms"]).default("s"),
+  length: z.enum(["m", "mm", "in", "ft"]).default("m"),
+  force: z.enum(["N", "kN", "lbf"]).default("N"),
+  speed: z.enum(["m/s", "km/h", "ft/s", "mph"]).default("m/s"),
+  /** Which way the logger's take-up reading grows: "down" = the counterweight dropping (our convention). */
+  takeUpDirection: z.enum(["down", "up"]).default("down"),
+});
+export type Units = z.infer<typeof unitsSchema>;
+
+export const recordingInputSchema = z.object({
+  liftId: z.number().int().positive(),
+  name: z.string().trim().min(1).max(200),
+  fileName: z.string().trim().max(200).optional(),
+  csv: z.string().min(1, "the file is empty"),
+  mapping: mappingSchema,
+  units: unitsSchema.default({ time: "s", length: "m", force: "N", speed: "m/s", takeUpDirection: "down" }),
+  /** Engagement (dog picks up the train) in recording time, s; detected from the train speed when left out. */
+  engagementTime: z.number().finite().min(0).optional(),
+  dryRun: z.boolean().optional(),
+});
+export type RecordingInput = z.infer<typeof recordingInputSchema>;
+
+export const RECORDING_MAX_BYTES = Number(process.env.RECORDING_MAX_BYTES ?? 2 * 1024 * 1024);
+export const RECORDING_MAX_ROWS = 50_000;
+
+// Exact definitions: inch 0.0254 m, foot 0.3048 m, pound-force 4.4482216152605 N, mile 1609.344 m.
+export const FACTORS = {
+  time: { s: 1, ms: 1e-3 },
+  length: { m: 1, mm: 1e-3, in: 0.0254, ft: 0.3048 },
+  force: { N: 1, kN: 1e3, lbf: 4.4482216152605 },
+  speed: { "m/s": 1, "km/h": 1 / 3.6, "ft/s": 0.3048, mph: 1609.344 / 3600 },
+} as const;

@@ -1,0 +1,222 @@
+/**
+ * Logger recordings: a dry run reports every problem; a store writes the file as received to object
+ * storage and the parsed rows to MariaDB, attached to the lift's current revision. Also the overlay on a
+ * run, the calibration against the recording's take-up trace, and saving fitted values as a new revision.
+ */
+import type { Scenario as EngineScenario } from "@/sim";
+import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
+import { validate } from "@/lib/api/validate";
+import { recordAudit } from "@/lib/audit/record";
+import { getSequelize } from "@/lib/db/sequelize";
+import { badRequest, HttpError } from "@/lib/http/errors";
+import { storeRecordingFile } from "@/lib/logbook/uploads";
+import { updateLift } from "@/lib/lifts/service";
+import { findOwnRun, getRunResult } from "@/lib/runs/service";
+import { calibrate, type CalibrationResult } from "@/lib/calibration/fit";
+import { resolveEngineScenario } from "@/lib/scenarios/engine";
+import { getModels, type Recording } from "@/models";
+import { alignAtEngagement, type OverlaySeries } from "./align";
+import { detectEngagement, parseRecordingCsv, type ParseReport } from "./parse";
+import { RECORDING_MAX_BYTES, recordingInputSchema, type Channel } from "./schema";
+import { z } from "zod";
+
+export interface RecordingView {
+  id: number;
+  liftId: number;
+  liftRevisionId: number;
+  name: string;
+  channels: Channel[];
+  sampleCount: number;
+  duration: number;
+  engagementTime: number | null;
+  mapping: Record<string, unknown>;
+  fileUrl: string | null;
+  createdAt: string;
+}
+
+function view(r: Recording): RecordingView {
+  return {
+    id: r.id,
+    liftId: r.liftId,
+    liftRevisionId: r.liftRevisionId,
+    name: r.name,
+    channels: r.channels as Channel[],
+    sampleCount: r.sampleCount,
+    duration: r.duration,
+    engagementTime: r.engagementTime,
+    mapping: r.mapping,
+    fileUrl: r.uploadId ? `/api/uploads/${r.uploadId}` : null,
+    createdAt: r.createdAt.toISOString(),
+  };
+}
+
+export interface PreviewAnswer {
+  ok: boolean;
+  headers: string[];
+  rowCount: number;
+  channels: Channel[];
+  engagementTime: number | null;
+  preview: ParseReport["samples"];
+}
+
+/**
+ * Checks (dry run) or stores a recording. Any problem → 400 listing every one (`issues`), nothing stored.
+ */
+export async function createRecording(actor: Actor, input: unknown): Promise<{ recording: RecordingView } | PreviewAnswer> {
+  assertCan(actor, "recording:upload");
+  const { Lift, Recording: RecordingModel, RecordingSample } = getModels();
+  const liftId = (input as { liftId?: unknown } | null)?.liftId;
+  const lift = typeof liftId === "number" && Number.isInteger(liftId) && liftId > 0 ? ownOr404(await Lift.findByPk(liftId), actor, "Lift") : null;
+  const body = validate(recordingInputSchema, input);
+  if (!lift) throw new Error("unreachable: liftId validated");
+  const bytes = Buffer.byteLength(body.csv, "utf8");
+  if (bytes > RECORDING_MAX_BYTES)
+    throw new HttpError(413, `The file is ${bytes} bytes; at most ${RECORDING_MAX_BYTES}.`, [{ path: "csv", message: `at most ${RECORDING_MAX_BYTES} bytes` }]);
+  const report = parseRecordingCsv(body.csv, body.mapping, body.units);
+  if (report.issues.length) throw badRequest(`The file has ${report.issues.length} problem(s); nothing was stored.`, report.issues);
+  const engagementTime = body.engagementTime ?? detectEngagement(report.samples);
+  if (body.dryRun)
+    return { ok: true, headers: report.headers, rowCount: report.rowCount, channels: report.channels, engagementTime, preview: report.samples.slice(0, 20) };
+  const revisionId = lift.currentRevisionId;
+  if (!revisionId) throw new Error(`Lift ${lift.id} has no current revision.`);
+  const upload = await storeRecordingFile(actor, lift.id, body.fileName ?? `${body.name}.csv`, Buffer.from(body.csv, "utf8"));
+  const s = report.samples;
+  const rec = await getSequelize().transaction(async (transaction) => {
+    const r = await RecordingModel.create(
+      {
+        organisationId: actor.organisationId,
+        liftId: lift.id,
+        liftRevisionId: revisionId,
+        uploadId: upload.id,
+        name: body.name,
+        mapping: { columns: body.mapping, units: body.units },
+        channels: report.channels,
+        sampleCount: s.length,
+        duration: s[s.length - 1].t - s[0].t,
+        engagementTime,
+        createdBy: actor.id,
+      },
+      { transaction },
+    );
+    for (let i = 0; i < s.length; i += 2000)
+      await RecordingSample.bulkCreate(s.slice(i, i + 2000).map((x, k) => ({ recordingId: r.id, idx: i + k, ...x })), { transaction });
+    await recordAudit({ transaction, actor, entity: "recording", entityId: r.id, action: "create", after: { name: r.name, liftId: r.liftId, samples: s.length } });
+    return r;
+  });
+  return { recording: view(rec) };
+}
+
+export async function listRecordings(actor: Actor, liftId: number): Promise<RecordingView[]> {
+  assertCan(actor, "logbook:read");
+  const { Lift, Recording: RecordingModel } = getModels();
+  ownOr404(await Lift.findByPk(liftId), actor, "Lift");
+  return (await RecordingModel.findAll({ where: { liftId }, order: [["id", "DESC"]] })).map(view);
+}
+
+async function ownRecording(actor: Actor, id: number): Promise<Recording> {
+  assertCan(actor, "logbook:read");
+  return ownOr404(await getModels().Recording.findByPk(id), actor, "Recording");
+}
+
+export interface RecordingSeries {
+  t: number[];
+  takeUpPosition: (number | null)[];
+  chainTension: (number | null)[];
+  driveCurrent: (number | null)[];
+  trainPosition: (number | null)[];
+  trainSpeed: (number | null)[];
+}
+
+async function seriesOf(id: number): Promise<RecordingSeries> {
+  const rows = await getModels().RecordingSample.findAll({ where: { recordingId: id }, order: [["idx", "ASC"]], raw: true });
+  return {
+    t: rows.map((r) => r.t),
+    takeUpPosition: rows.map((r) => r.takeUpPosition),
+    chainTension: rows.map((r) => r.chainTension),
+    driveCurrent: rows.map((r) => r.driveCurrent),
+    trainPosition: rows.map((r) => r.trainPosition),
+    trainSpeed: rows.map((r) => r.trainSpeed),
+  };
+}
+
+export async function getRecording(actor: Actor, id: number): Promise<{ recording: RecordingView; series: RecordingSeries }> {
+  const r = await ownRecording(actor, id);
+  return { recording: view(r), series: await seriesOf(r.id) };
+}
+
+/** A done run of the same lift (any revision), of the actor's organisation. */
+async function runOfLift(actor: Actor, runId: number, liftId: number) {
+  const run = await findOwnRun(actor, runId);
+  const rev = await getModels().LiftRevision.findByPk(run.liftRevisionId, { attributes: ["liftId"] });
+  if (rev?.liftId !== liftId) throw badRequest("The run is of another lift.", [{ path: "runId", message: "choose a run of this recording's lift" }]);
+  return run;
+}
+
+export async function overlay(actor: Actor, id: number, runIdText: unknown): Promise<OverlaySeries & { runId: number }> {
+  const r = await ownRecording(actor, id);
+  const runId = Number(runIdText);
+  if (!Number.isInteger(runId) || runId <= 0) throw badRequest("Name the run to overlay.", [{ path: "runId", message: "a run id is required" }]);
+  await runOfLift(actor, runId, r.liftId);
+  const res = await getRunResult(actor, runId);
+  const series = (res.result as { series: Record<string, number[]> }).series;
+  const eng = (res.summary as { engagementTime?: number | null } | null)?.engagementTime ?? null;
+  const s = await seriesOf(r.id);
+  return { runId, ...alignAtEngagement({ t: s.t, takeUp: s.takeUpPosition, engagementTime: r.engagementTime }, { t: series.t, takeUp: series.takeUpPosition, engagementTime: eng }) };
+}
+
+export const calibrateInputSchema = z.object({
+  scenarioId: z.number().int().positive(),
+  fitFriction: z.boolean().optional(),
+});
+
+/**
+ * Fits E·A and damping (and optionally guide friction) to the recording's take-up trace, with the
+ * scenario's train and entry conditions on the recording's lift revision. Runs the engine in this
+ * request (about 50–60 coarse runs; a few seconds).
+ */
+export async function calibrateRecording(actor: Actor, id: number, input: unknown): Promise<CalibrationResult & { scenario: string }> {
+  const r = await ownRecording(actor, id);
+  assertCan(actor, "run:start");
+  const body = validate(calibrateInputSchema, input);
+  const { Scenario, Train, LiftRevision } = getModels();
+  const scenario = ownOr404(await Scenario.findByPk(body.scenarioId), actor, "Scenario");
+  if (scenario.liftId !== r.liftId) throw badRequest("The scenario is of another lift.", [{ path: "scenarioId", message: "choose a scenario of this recording's lift" }]);
+  const train = await Train.findByPk(scenario.trainId);
+  const revision = await LiftRevision.findByPk(r.liftRevisionId);
+  if (!train || !revision) throw new HttpError(409, "The scenario's train or the recording's revision is missing.");
+  const resolved = resolveEngineScenario(scenario, revision, train);
+  if (!resolved.ok) throw badRequest("The scenario does not make a valid engine scenario with the recording's revision.", resolved.issues);
+  const s = await seriesOf(r.id);
+  const t: number[] = [];
+  const y: number[] = [];
+  s.t.forEach((x, i) => {
+    const v = s.takeUpPosition[i];
+    if (v !== null) {
+      t.push(x - s.t[0]);
+      y.push(v);
+    }
+  });
+  if (t.length < 10) throw badRequest("The recording has no take-up trace to fit.", [{ path: "recording", message: "map a take-up position column" }]);
+  if (r.engagementTime === null) throw badRequest("The recording has no engagement time to align on.", [{ path: "engagementTime", message: "give the engagement time or a train speed column" }]);
+  const result = calibrate(resolved.scenario as EngineScenario, { t, takeUp: y, engagementTime: r.engagementTime - s.t[0] }, { fitFriction: body.fitFriction });
+  return { ...result, scenario: scenario.name };
+}
+
+export const saveCalibrationSchema = z.object({
+  version: z.number().int().min(0),
+  axialStiffness: z.number().finite().min(1e5).max(1e10),
+  damping: z.number().finite().min(0).max(1e9),
+  guideFriction: z.number().finite().min(0).max(0.5).optional(),
+});
+
+/** Saves fitted values as a new revision of the recording's lift (lib/lifts' revision function). */
+export async function saveCalibration(actor: Actor, id: number, input: unknown) {
+  assertCan(actor, "calibration:save");
+  const r = await ownRecording(actor, id);
+  const body = validate(saveCalibrationSchema, input);
+  return updateLift(actor, r.liftId, {
+    version: body.version,
+    chain: { axialStiffness: body.axialStiffness, damping: body.damping, ...(body.guideFriction !== undefined ? { guideFriction: body.guideFriction } : {}) },
+    changeSummary: `Calibrated against recording "${r.name}" (#${r.id})`,
+  });
+}

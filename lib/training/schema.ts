@@ -1,0 +1,37 @@
+import { z } from "zod";
+
+export const captionSchema = z.object({
+  at: z.number({ error: "a time in seconds" }).finite().min(0).max(600),
+  text: z.string().trim().min(1, "write the caption").max(500),
+});
+
+export const itemSchema = z.object({
+  runId: z.number().int().positive(),
+  title: z.string().trim().max(200).optional().nullable(),
+  captions: z.array(captionSchema).max(50).default([]),
+});
+
+export const sessionCreateSchema = z.object({
+  title: z.string().trim().min(1, "give the session a title").max(200),
+  description: z.string().trim().max(4000).optional().nullable(),
+  items: z.array(itemSchema).max(30).optional(),
+});
+
+export const sessionUpdateSchema = z.object({
+  version: z.number().int().min(0),
+  title: z.string().trim().min(1).max(200).optional(),
+  description: z.string().trim().max(4000).optional().nullable(),
+  /** The whole ordered list (replaces the previous one). */
+  items: z.array(itemSchema).max(30).optional(),
+});
+
+export const shareSchema = z.object({
+  /** Extra people of the organisation to invite by e-mail (viewers are always told). */
+  invite: z.array(z.email()).max(50).optional(),
+});
+
+export const viewSchema = z.object({
+  itemId: z.number().int().positive(),
+  watchedTo: z.number().finite().min(0).max(600),
+  completed: z.boolean().optional(),
+});
