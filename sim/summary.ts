@@ -105,7 +105,7 @@ export class SummaryRecorder {
 
   constructor(sys: LiftSystem) {
     this.sys = sys;
-    this.xMax = sys.s.train.startPosition;
+    this.xMax = NaN; // set by the first step (the train may start settled back on the ARD)
     this.rearLimit = sys.track.inclineStart;
     this.frontLimit = sys.track.crestStart;
     this.vSteady = 0.95 * sys.s.drive.speed;
@@ -132,7 +132,7 @@ export class SummaryRecorder {
       if (dogF >= sys.train.resistingLoad(v.x, v.vx)) this.pickupDelay = t - this.engagementTime;
     }
     if (dogF > this.peakDogForce) this.peakDogForce = dogF;
-    if (v.x > this.xMax) this.xMax = v.x;
+    if (v.x > this.xMax || this.xMax !== this.xMax) this.xMax = v.x;
     if (this.xMax - v.x > this.rollback) this.rollback = this.xMax - v.x;
     // An ARD catch: the pawl comes back onto a tooth after the train had pulled at least
     // ARD_LIFT_OFF clear of where it now lands (light re-touches of a resting pawl do not count).
