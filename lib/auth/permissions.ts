@@ -38,7 +38,7 @@ export const PERMISSIONS = {
   "study:run": ["admin", "engineer"],
   "report:read": ["admin", "engineer", "reviewer"],
   "report:write": ["admin", "engineer"],
-  "report:review": ["reviewer"],
+  "report:review": ["admin", "reviewer"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

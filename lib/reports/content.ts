@@ -1,0 +1,181 @@
+/**
+ * Everything a design-check report shows, gathered from the database into one plain object. The PDF
+ * is drawn from it, and its hash (sha256 of canonical JSON) is what approval stamps: the same content
+ * always gives the same hash, whenever the PDF is drawn.
+ */
+import crypto from "node:crypto";
+import { Op } from "sequelize";
+import { getModels } from "@/models";
+import type { Report } from "@/models/Report";
+import { designStatics } from "@/sim/statics";
+import { evaluateChecks, type Check } from "@/sim/checks";
+import { LIMIT_SOURCES, limitsSchema, type Scenario as EngineScenario } from "@/sim/schema";
+import type { Summary } from "@/sim/summary";
+import { decodeResult } from "@/lib/runs/result-format";
+import { operatingWindow } from "@/lib/studies/window";
+import { studyNamer } from "@/lib/studies/service";
+import type { StudyParameter } from "@/lib/studies/schema";
+
+export const REPORT_CAUTIONS = [
+  "Results support, and never replace, review by a qualified engineer.",
+  "The governing standards of the jurisdiction, the ride's manufacturer data and licensed practice govern.",
+  "The model is a spring-segment chain with a weighted 2:1 gravity take-up; its assumptions are listed in this report.",
+];
+
+export interface ReportSeries {
+  t: number[];
+  maxTension: number[];
+  driveTension: number[];
+  trainSpeed: number[];
+  takeUpPosition: number[];
+}
+
+export interface ReportContent {
+  title: string;
+  units: "si" | "us";
+  organisation: string;
+  scenario: { id: number; name: string; loading: string; entrySpeed: number; notes: string | null };
+  lift: { name: string; site: string | null; revision: number; revisionId: number; changeSummary: string | null };
+  train: { name: string; cars: number; carMassEmpty: number; seatsPerCar: number; riderMass: number };
+  inputs: EngineScenario;
+  assumptions: { key: string; value: string; source: string }[];
+  statics: {
+    steadyTension: number;
+    takeUpTension: number;
+    loadedStretch: number;
+    takeUp: { required: number; travel: number; margin: number; elasticExcursion: number; wearAllowance: number; thermal: number };
+    motorPower: number;
+    drivePull: number;
+    torque: number;
+    chordalSpeedVariation: number;
+    safetyFactor: number;
+    waveSpeed: number;
+  };
+  run: { id: number; finishedAt: string | null; summary: Record<string, number | boolean | string | null> } | null;
+  series: ReportSeries | null;
+  checks: Check[];
+  study: { id: number; name: string; cases: number; done: number; window: string } | null;
+  revisions: { number: number; changeSummary: string | null; createdAt: string }[];
+  cautions: string[];
+}
+
+function pick(series: Record<string, ArrayLike<number>>, key: string, every: number): number[] {
+  const a = series[key];
+  if (!a) return [];
+  const out: number[] = [];
+  for (let i = 0; i < a.length; i += every) out.push(Number(a[i]));
+  return out;
+}
+
+function fmtLimit(v: unknown): string {
+  return typeof v === "number" ? String(v) : typeof v === "boolean" ? (v ? "yes" : "no") : v === undefined ? "not given" : String(v);
+}
+
+export async function buildReportContent(report: Report): Promise<ReportContent> {
+  const { Scenario, LiftRevision, Lift, Train, Run, Organisation, Study, StudyCase } = getModels();
+  const scenario = (await Scenario.findByPk(report.scenarioId))!;
+  const revision = (await LiftRevision.findByPk(report.liftRevisionId))!;
+  const lift = (await Lift.findByPk(revision.liftId))!;
+  const train = (await Train.findByPk(scenario.trainId))!;
+  const org = await Organisation.findByPk(report.organisationId);
+  const run = report.runId ? await Run.scope("withResult").findByPk(report.runId) : null;
+  if (!run || run.status !== "done" || !run.summary) throw new Error("A report needs a finished run of its scenario.");
+  const inputs = run.inputs as unknown as EngineScenario;
+  const limits = limitsSchema.parse(inputs.limits ?? {});
+  const statics = designStatics(inputs, { limits });
+  const summary = run.summary as Record<string, unknown>;
+  const checks = evaluateChecks(summary as unknown as Summary, statics, limits);
+
+  let series: ReportSeries | null = null;
+  if (run.result) {
+    const decoded = decodeResult(run.result, { arrays: "plain" }) as { series?: Record<string, number[]> };
+    const s = decoded.series;
+    if (s?.t?.length) {
+      const every = Math.max(1, Math.ceil(s.t.length / 400)); // enough points for a printed plot
+      series = {
+        t: pick(s, "t", every),
+        maxTension: pick(s, "maxTension", every),
+        driveTension: pick(s, "driveTension", every),
+        trainSpeed: pick(s, "trainSpeed", every),
+        takeUpPosition: pick(s, "takeUpPosition", every),
+      };
+    }
+  }
+
+  let study: ReportContent["study"] = null;
+  if (report.studyId) {
+    const st = await Study.findByPk(report.studyId);
+    if (st) {
+      const cases = await StudyCase.findAll({ where: { studyId: st.id }, order: [["idx", "ASC"]] });
+      const w = operatingWindow(st.parameters as StudyParameter[], cases, { units: report.units, name: studyNamer(st) });
+      study = { id: st.id, name: st.name, cases: st.casesTotal, done: st.casesDone, window: w.text };
+    }
+  }
+
+  const revisions = await LiftRevision.findAll({
+    where: { liftId: lift.id, number: { [Op.lte]: revision.number } },
+    order: [["number", "ASC"]],
+    attributes: ["number", "changeSummary", "createdAt"],
+  });
+
+  const round = (v: unknown) => (typeof v === "number" ? Number(v.toPrecision(6)) : v === undefined ? null : (v as boolean | string | null));
+  const summaryOut: Record<string, number | boolean | string | null> = {};
+  for (const [k, v] of Object.entries(summary)) if (k !== "wallTimeMs" && k !== "steps" && k !== "rhsEvaluations") summaryOut[k] = round(v);
+
+  return {
+    title: report.title,
+    units: report.units,
+    organisation: org?.name ?? "",
+    scenario: { id: scenario.id, name: scenario.name, loading: scenario.loading, entrySpeed: inputs.train.entrySpeed, notes: scenario.notes },
+    lift: { name: lift.name, site: lift.site, revision: revision.number, revisionId: revision.id, changeSummary: revision.changeSummary },
+    train: { name: train.name, cars: train.cars, carMassEmpty: train.carMassEmpty, seatsPerCar: train.seatsPerCar, riderMass: train.riderMass },
+    inputs,
+    assumptions: [
+      ...(Object.keys(LIMIT_SOURCES) as (keyof typeof LIMIT_SOURCES)[]).map((k) => ({
+        key: k as string,
+        value: fmtLimit(limits[k]),
+        source: LIMIT_SOURCES[k],
+      })),
+      { key: "riderMass", value: `${train.riderMass} kg`, source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." },
+      { key: "model", value: `${inputs.run.segments} segments, ${inputs.run.integrator}`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
+    ],
+    statics: {
+      steadyTension: statics.worst.driveTension ?? 0,
+      takeUpTension: statics.takeUpTension,
+      loadedStretch: statics.loadedStretch,
+      takeUp: {
+        required: statics.takeUp.required,
+        travel: statics.takeUp.travel,
+        margin: statics.takeUp.margin,
+        elasticExcursion: statics.takeUp.elasticExcursion,
+        wearAllowance: statics.takeUp.wearAllowance,
+        thermal: statics.takeUp.thermal,
+      },
+      motorPower: statics.motorPower,
+      drivePull: statics.drivePull,
+      torque: statics.torque,
+      chordalSpeedVariation: statics.chordalSpeedVariation,
+      safetyFactor: statics.safetyFactor,
+      waveSpeed: statics.waveSpeed,
+    },
+    run: { id: run.id, finishedAt: run.finishedAt?.toISOString() ?? null, summary: summaryOut },
+    series,
+    checks,
+    study,
+    revisions: revisions.map((r) => ({ number: r.number, changeSummary: r.changeSummary, createdAt: r.createdAt.toISOString() })),
+    cautions: REPORT_CAUTIONS,
+  };
+}
+
+function canonical(v: unknown): unknown {
+  if (Array.isArray(v)) return v.map(canonical);
+  if (v && typeof v === "object") {
+    return Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, canonical((v as Record<string, unknown>)[k])]));
+  }
+  return v;
+}
+
+/** sha256 (hex) of the content as canonical JSON (keys sorted). */
+export function contentHash(content: ReportContent): string {
+  return crypto.createHash("sha256").update(JSON.stringify(canonical(content))).digest("hex");
+}

@@ -1,0 +1,20 @@
+/** Numbers as the report prints them, in the reader's unit system (SI inside, converted only here). */
+import { display, type Quantity, type UnitSystem } from "@/sim/units";
+
+export function fmtQ(si: number | null | undefined, quantity: Quantity, units: UnitSystem, digits = 2): string {
+  if (si === null || si === undefined || !Number.isFinite(si)) return "—";
+  const d = display(si, quantity, units);
+  return `${d.value.toFixed(digits)} ${d.unit}`;
+}
+
+export function fmtN(v: number | null | undefined, digits = 2): string {
+  return v === null || v === undefined || !Number.isFinite(v) ? "—" : v.toFixed(digits);
+}
+
+/** The margin of a check: how far the value is from its limit, as a share of the limit. */
+export function checkMargin(check: { key: string; value: number | boolean | null; limit: number | boolean | null }): string {
+  if (typeof check.value !== "number" || typeof check.limit !== "number" || check.limit === 0) return "—";
+  // Safety factor must stay above its limit; the rest must stay below.
+  const m = check.key === "safetyFactor" ? (check.value - check.limit) / check.limit : (check.limit - check.value) / check.limit;
+  return `${(m * 100).toFixed(0)} %`;
+}

@@ -1,0 +1,271 @@
+/**
+ * Draws a design-check report as a PDF with pdfkit: a title block of Tautline's own design, the inputs,
+ * assumptions with sources, statics, dynamic results with plots drawn as vectors, the checks with
+ * margins, the study's window, the revision history, the review stamp and the cautions; page numbers.
+ */
+import PDFDocument from "pdfkit";
+import type { Check } from "@/sim/checks";
+import type { ReportContent } from "./content";
+import { checkMargin, fmtN, fmtQ } from "./format";
+
+export interface ReportStamp {
+  status: string;
+  reportId: number;
+  author: string | null;
+  reviewer: string | null;
+  approvedAt: string | null;
+  contentHash: string;
+}
+
+const INK = "#10202e";
+const MUTED = "#5f7386";
+const ACCENT = "#e08a00";
+const MARGIN = 50;
+const STATE_COLOUR: Record<string, string> = { pass: "#1f7a3a", caution: "#a36500", fail: "#b3261e" };
+
+type Doc = PDFKit.PDFDocument;
+
+function heading(doc: Doc, text: string) {
+  if (doc.y > doc.page.height - 140) doc.addPage();
+  doc.moveDown(0.6).font("Helvetica-Bold").fontSize(12).fillColor(INK).text(text, MARGIN);
+  const y = doc.y + 1;
+  doc.moveTo(MARGIN, y).lineTo(doc.page.width - MARGIN, y).lineWidth(0.6).strokeColor(ACCENT).stroke();
+  doc.moveDown(0.4).font("Helvetica").fontSize(9).fillColor(INK);
+}
+
+/** Two-column rows: label, value. */
+function rows(doc: Doc, items: [string, string][]) {
+  const x2 = MARGIN + 210;
+  for (const [k, v] of items) {
+    if (doc.y > doc.page.height - 80) doc.addPage();
+    const y = doc.y;
+    doc.font("Helvetica").fillColor(MUTED).text(k, MARGIN, y, { width: 200 });
+    const h1 = doc.y - y;
+    doc.font("Helvetica").fillColor(INK).text(v, x2, y, { width: doc.page.width - MARGIN - x2 });
+    doc.y = Math.max(doc.y, y + h1);
+  }
+}
+
+function titleBlock(doc: Doc, c: ReportContent, stamp: ReportStamp) {
+  const w = doc.page.width - 2 * MARGIN;
+  const top = MARGIN;
+  // Band with the mark, then a grid of fields: our own layout.
+  doc.rect(MARGIN, top, w, 34).fill(INK);
+  doc.fillColor("#f5c16c").font("Helvetica-Bold").fontSize(14).text("TAUTLINE", MARGIN + 12, top + 10);
+  doc.fillColor("#ffffff").font("Helvetica").fontSize(10).text("Design check of a chain lift", MARGIN + 110, top + 12);
+  doc.fillColor(ACCENT).font("Helvetica-Bold").fontSize(10).text(stamp.status.toUpperCase(), MARGIN, top + 12, { width: w - 12, align: "right" });
+  const cells: [string, string][] = [
+    ["Report", `${c.title} (no. ${stamp.reportId})`],
+    ["Organisation", c.organisation],
+    ["Lift", `${c.lift.name}${c.lift.site ? `, ${c.lift.site}` : ""}: revision ${c.lift.revision}`],
+    ["Scenario", `${c.scenario.name} (no. ${c.scenario.id})`],
+    ["Run", c.run ? `no. ${c.run.id}, finished ${c.run.finishedAt?.slice(0, 19).replace("T", " ") ?? "—"} UTC` : "—"],
+    ["Units", c.units === "si" ? "SI" : "US customary"],
+    ["Author", stamp.author ?? "—"],
+    ["Reviewer", stamp.reviewer ? `${stamp.reviewer}, approved ${stamp.approvedAt?.slice(0, 10) ?? ""}` : "not yet approved"],
+  ];
+  const colW = w / 2;
+  const rowH = 26;
+  let y = top + 34;
+  doc.lineWidth(0.6).strokeColor(INK);
+  for (let i = 0; i < cells.length; i += 2) {
+    for (let j = 0; j < 2; j++) {
+      const cell = cells[i + j];
+      if (!cell) continue;
+      const x = MARGIN + j * colW;
+      doc.rect(x, y, colW, rowH).stroke();
+      doc.font("Helvetica").fontSize(7).fillColor(MUTED).text(cell[0].toUpperCase(), x + 5, y + 3, { width: colW - 10 });
+      doc.font("Helvetica").fontSize(9).fillColor(INK).text(cell[1], x + 5, y + 12, { width: colW - 10, height: 12, ellipsis: true });
+    }
+    y += rowH;
+  }
+  doc.rect(MARGIN, y, w, 18).stroke();
+  doc.font("Courier").fontSize(7.5).fillColor(INK).text(`Content hash (sha256): ${stamp.contentHash}`, MARGIN + 5, y + 5, { width: w - 10 });
+  doc.y = y + 26;
+  doc.x = MARGIN;
+}
+
+function linePlot(doc: Doc, title: string, t: number[], ys: number[], yLabel: (v: number) => string) {
+  const w = doc.page.width - 2 * MARGIN;
+  const h = 130;
+  if (doc.y > doc.page.height - h - 90) doc.addPage();
+  doc.font("Helvetica-Bold").fontSize(9).fillColor(INK).text(title, MARGIN);
+  const x0 = MARGIN + 55;
+  const y0 = doc.y + 4;
+  const pw = w - 65;
+  const ph = h - 30;
+  const tMax = t[t.length - 1] || 1;
+  let lo = Math.min(...ys);
+  let hi = Math.max(...ys);
+  if (!(hi > lo)) {
+    hi = lo + 1;
+    lo -= 1;
+  }
+  doc.lineWidth(0.5).strokeColor(MUTED).rect(x0, y0, pw, ph).stroke();
+  doc.font("Helvetica").fontSize(7).fillColor(MUTED);
+  for (let i = 0; i <= 4; i++) {
+    const v = lo + ((hi - lo) * i) / 4;
+    const y = y0 + ph - (ph * i) / 4;
+    doc.text(yLabel(v), MARGIN, y - 3, { width: 52, align: "right" });
+    if (i > 0 && i < 4) doc.moveTo(x0, y).lineTo(x0 + pw, y).lineWidth(0.2).strokeColor("#d0d7de").stroke();
+  }
+  for (let i = 0; i <= 5; i++) {
+    const tv = (tMax * i) / 5;
+    doc.fillColor(MUTED).text(`${tv.toFixed(1)} s`, x0 + (pw * i) / 5 - 15, y0 + ph + 3, { width: 30, align: "center" });
+  }
+  doc.lineWidth(0.9).strokeColor(ACCENT);
+  ys.forEach((v, i) => {
+    const x = x0 + (pw * t[i]) / tMax;
+    const y = y0 + ph - (ph * (v - lo)) / (hi - lo);
+    if (i === 0) doc.moveTo(x, y);
+    else doc.lineTo(x, y);
+  });
+  doc.stroke();
+  doc.y = y0 + ph + 16;
+  doc.x = MARGIN;
+}
+
+function checksTable(doc: Doc, checks: Check[]) {
+  const cols = [
+    { h: "Check", w: 140 },
+    { h: "State", w: 50 },
+    { h: "Value", w: 60 },
+    { h: "Limit", w: 55 },
+    { h: "Margin", w: 45 },
+    { h: "Reason", w: 145 },
+  ];
+  let y = doc.y;
+  let x = MARGIN;
+  doc.font("Helvetica-Bold").fontSize(8).fillColor(INK);
+  for (const c of cols) {
+    doc.text(c.h, x, y, { width: c.w - 4 });
+    x += c.w;
+  }
+  y = doc.y + 3;
+  for (const ch of checks) {
+    if (y > doc.page.height - 100) {
+      doc.addPage();
+      y = MARGIN;
+    }
+    const cells = [
+      ch.label,
+      ch.state,
+      typeof ch.value === "number" ? fmtN(ch.value, ch.unit === "m" ? 3 : 2) + (ch.unit && ch.unit !== "fraction of room" ? ` ${ch.unit}` : "") : ch.value === null ? "—" : String(ch.value),
+      typeof ch.limit === "number" ? fmtN(ch.limit, ch.unit === "m" ? 3 : 2) : ch.limit === null ? "—" : String(ch.limit),
+      checkMargin(ch),
+      ch.reason,
+    ];
+    let rowBottom = y;
+    x = MARGIN;
+    cells.forEach((text, i) => {
+      doc.font(i === 1 ? "Helvetica-Bold" : "Helvetica").fontSize(i === 5 ? 7 : 8).fillColor(i === 1 ? STATE_COLOUR[ch.state] ?? INK : INK);
+      doc.text(text, x, y, { width: cols[i].w - 4 });
+      rowBottom = Math.max(rowBottom, doc.y);
+      x += cols[i].w;
+    });
+    y = rowBottom + 4;
+    doc.moveTo(MARGIN, y - 2).lineTo(doc.page.width - MARGIN, y - 2).lineWidth(0.2).strokeColor("#d0d7de").stroke();
+  }
+  doc.y = y;
+  doc.x = MARGIN;
+}
+
+export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buffer> {
+  const doc = new PDFDocument({
+    size: "A4",
+    margins: { top: MARGIN, bottom: MARGIN, left: MARGIN, right: MARGIN },
+    bufferPages: true,
+    info: { Title: c.title, Author: stamp.author ?? "", Subject: "Tautline design check", Creator: "Tautline" },
+  });
+  const chunks: Buffer[] = [];
+  doc.on("data", (b: Buffer) => chunks.push(b));
+  const finished = new Promise<Buffer>((resolve, reject) => {
+    doc.on("end", () => resolve(Buffer.concat(chunks)));
+    doc.on("error", reject);
+  });
+  const u = c.units;
+  const s = c.inputs;
+
+  titleBlock(doc, c, stamp);
+  doc.font("Helvetica-Oblique").fontSize(8.5).fillColor(ACCENT).text(c.cautions.slice(0, 2).join(" "), MARGIN);
+
+  heading(doc, "1. Inputs");
+  rows(doc, [
+    ["Lift revision", `${c.lift.name}, revision ${c.lift.revision}${c.lift.changeSummary ? ` (${c.lift.changeSummary})` : ""}`],
+    ["Lift geometry", `angle ${s.lift.angle}°, incline ${fmtQ(s.lift.inclineLength, "length", u)}, chain from ${fmtQ(s.lift.chainFrom, "length", u)} to ${fmtQ(s.lift.chainTo, "length", u)}`],
+    ["Chain", `pitch ${fmtQ(s.chain.pitch, "shortLength", u, 1)}, ${fmtQ(s.chain.massPerLength, "massPerLength", u)}, breaking strength ${fmtQ(s.chain.breakingStrength, "force", u, 1)}, E·A ${fmtQ(s.chain.axialStiffness, "stiffness", u, 0)}`],
+    ["Drive", `chain speed ${fmtQ(s.drive.speed, "speed", u)}, ${s.drive.sprocketTeeth}-tooth sprocket, efficiency ${s.drive.efficiency}`],
+    ["Take-up", `mass ${fmtQ(s.takeUp.mass, "mass", u, 0)}, travel ${fmtQ(s.takeUp.travel, "length", u)}`],
+    ["Train", `${c.train.name}: ${s.train.cars} cars of ${fmtQ(s.train.carMass, "mass", u, 0)} (empty ${fmtQ(c.train.carMassEmpty, "mass", u, 0)}, ${c.train.seatsPerCar} seats)`],
+    ["Loading", c.scenario.loading],
+    ["Entry speed", fmtQ(s.train.entrySpeed, "speed", u)],
+    ["Run settings", `${s.run.duration} s, ${s.run.segments} segments, ${s.run.integrator}`],
+  ]);
+
+  heading(doc, "2. Assumptions and their sources");
+  rows(doc, c.assumptions.map((a) => [`${a.key} = ${a.value}`, a.source]));
+
+  heading(doc, "3. Statics");
+  const st = c.statics;
+  rows(doc, [
+    ["Steady tension (worst position, drive)", fmtQ(st.steadyTension, "force", u)],
+    ["Take-up tension", fmtQ(st.takeUpTension, "force", u)],
+    ["Static stretch of the loaded chain", fmtQ(st.loadedStretch, "shortLength", u, 1)],
+    ["Take-up travel budget", `${fmtQ(st.takeUp.required, "length", u)} required of ${fmtQ(st.takeUp.travel, "length", u)} (margin ${fmtQ(st.takeUp.margin, "length", u)}): elastic ${fmtQ(st.takeUp.elasticExcursion, "length", u)}, wear ${fmtQ(st.takeUp.wearAllowance, "length", u)}, thermal ${fmtQ(st.takeUp.thermal, "length", u)}`],
+    ["Motor power (steady)", fmtQ(st.motorPower, "power", u, 1)],
+    ["Drive pull / sprocket torque", `${fmtQ(st.drivePull, "force", u)} / ${fmtQ(st.torque, "torque", u, 0)}`],
+    ["Chordal speed variation", `${(st.chordalSpeedVariation * 100).toFixed(2)} %`],
+    ["Static safety factor", fmtN(st.safetyFactor)],
+  ]);
+
+  heading(doc, "4. Dynamic results");
+  const r = (c.run?.summary ?? {}) as Record<string, number | null>;
+  rows(doc, [
+    ["Peak tension", fmtQ(r.peakTension, "force", u)],
+    ["Snatch factor", fmtN(r.snatchFactor)],
+    ["Lowest safety factor", fmtN(r.minSafetyFactor)],
+    ["Pick-up delay", r.pickupDelay === null ? "—" : `${fmtN(r.pickupDelay)} s`],
+    ["Rollback distance", fmtQ(r.rollbackDistance, "shortLength", u, 1)],
+    ["ARD catches", String(r.ardCatches ?? 0)],
+    ["Take-up excursion", `${fmtQ(r.takeUpMaxDrop, "shortLength", u, 0)} down, ${fmtQ(r.takeUpMaxRise, "shortLength", u, 0)} up`],
+    ["Peak drive power", fmtQ(r.peakDrivePower, "power", u, 1)],
+    ["Peak rider acceleration", `${fmtN(r.peakRiderAccel)} g`],
+  ]);
+  if (c.series && c.series.t.length > 1) {
+    const sr = c.series;
+    linePlot(doc, "Highest chain tension against time", sr.t, sr.maxTension, (v) => fmtQ(v, "force", u, 1));
+    linePlot(doc, "Train speed against time", sr.t, sr.trainSpeed, (v) => fmtQ(v, "speed", u, 2));
+    linePlot(doc, "Take-up position against time", sr.t, sr.takeUpPosition, (v) => fmtQ(v, "length", u, 3));
+  }
+
+  heading(doc, "5. Checks");
+  checksTable(doc, c.checks);
+
+  if (c.study) {
+    heading(doc, "6. Study and operating window");
+    rows(doc, [
+      ["Study", `${c.study.name} (no. ${c.study.id}): ${c.study.done} of ${c.study.cases} cases done`],
+      ["Recommended operating window", c.study.window],
+    ]);
+  }
+
+  heading(doc, `${c.study ? 7 : 6}. Revision history`);
+  rows(doc, c.revisions.map((rv) => [`Revision ${rv.number} (${rv.createdAt.slice(0, 10)})`, rv.changeSummary ?? "—"]));
+  rows(doc, [["Review", stamp.reviewer ? `Approved by ${stamp.reviewer} on ${stamp.approvedAt?.slice(0, 10)}` : `Status: ${stamp.status}`]]);
+
+  heading(doc, "Cautions");
+  for (const line of c.cautions) doc.font("Helvetica").fontSize(9).fillColor(INK).text(`• ${line}`, MARGIN);
+
+  // Footer on every page: page numbers and the report number.
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    const y = doc.page.height - 35;
+    doc.page.margins.bottom = 0;
+    doc.font("Helvetica").fontSize(7.5).fillColor(MUTED);
+    doc.text(`Tautline design check no. ${stamp.reportId} · ${stamp.status}`, MARGIN, y, { width: 300, lineBreak: false });
+    doc.text(`Page ${i + 1} of ${range.count}`, doc.page.width - MARGIN - 100, y, { width: 100, align: "right", lineBreak: false });
+  }
+  doc.end();
+  return finished;
+}

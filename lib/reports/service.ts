@@ -1,0 +1,177 @@
+/**
+ * Reports: create a draft of a scenario (with one of its finished runs, optionally a study), list,
+ * read, and draw the PDF. Approved reports keep the stamped PDF drawn at approval.
+ */
+import { getModels } from "@/models";
+import type { Report } from "@/models/Report";
+import { z } from "zod";
+import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
+import { recordAudit } from "@/lib/audit/record";
+import { badRequest, conflict, fromZod } from "@/lib/http/errors";
+import { buildReportContent, contentHash } from "./content";
+import { drawReportPdf, type ReportStamp } from "./pdf";
+
+export const createReportSchema = z
+  .object({
+    scenarioId: z.number({ error: "scenarioId must be a whole number" }).int().positive(),
+    runId: z.number({ error: "runId must be a whole number" }).int().positive(),
+    studyId: z.number({ error: "studyId must be a whole number" }).int().positive().optional(),
+    title: z.string({ error: "title must be text" }).trim().min(1, { error: "title must not be empty" }).max(200).optional(),
+    units: z.enum(["si", "us"], { error: "units must be si or us" }).optional(),
+  })
+  .strict();
+
+export interface ReportView {
+  id: number;
+  scenarioId: number;
+  liftRevisionId: number;
+  runId: number | null;
+  studyId: number | null;
+  title: string;
+  units: "si" | "us";
+  status: string;
+  authorId: number | null;
+  reviewerId: number | null;
+  submittedAt: string | null;
+  approvedAt: string | null;
+  contentHash: string | null;
+  version: number;
+  createdAt: string;
+  reviews?: { id: number; action: string; userId: number | null; userName: string | null; comment: string | null; contentHash: string | null; at: string }[];
+  links: { pdf: string };
+}
+
+export function toReportView(r: Report): ReportView {
+  return {
+    id: r.id,
+    scenarioId: r.scenarioId,
+    liftRevisionId: r.liftRevisionId,
+    runId: r.runId,
+    studyId: r.studyId,
+    title: r.title,
+    units: r.units,
+    status: r.status,
+    authorId: r.authorId,
+    reviewerId: r.reviewerId,
+    submittedAt: r.submittedAt?.toISOString() ?? null,
+    approvedAt: r.approvedAt?.toISOString() ?? null,
+    contentHash: r.contentHash,
+    version: r.version,
+    createdAt: r.createdAt.toISOString(),
+    links: { pdf: `/api/reports/${r.id}/pdf` },
+  };
+}
+
+export async function findOwnReport(actor: Actor, id: number, withPdf = false): Promise<Report> {
+  const { Report } = getModels();
+  return ownOr404(await (withPdf ? Report.scope("withPdf") : Report).findByPk(id), actor, "Report");
+}
+
+export async function createReport(actor: Actor, raw: unknown): Promise<ReportView> {
+  assertCan(actor, "report:write");
+  const parsed = createReportSchema.safeParse(raw);
+  if (!parsed.success) throw fromZod(parsed.error, "The report has invalid fields.");
+  const body = parsed.data;
+  const { Scenario, Run, Study, Report, User } = getModels();
+  const scenario = ownOr404(await Scenario.findByPk(body.scenarioId), actor, "Scenario");
+  const run = await Run.findByPk(body.runId);
+  if (!run || run.organisationId !== actor.organisationId || run.scenarioId !== scenario.id) {
+    throw badRequest("The run must be a run of this scenario.", [{ path: "runId", message: "not a run of this scenario" }]);
+  }
+  if (run.status !== "done") throw badRequest("The run has not finished.", [{ path: "runId", message: `the run is ${run.status}` }]);
+  if (body.studyId) {
+    const st = await Study.findByPk(body.studyId);
+    if (!st || st.organisationId !== actor.organisationId || st.scenarioId !== scenario.id) {
+      throw badRequest("The study must be a study of this scenario.", [{ path: "studyId", message: "not a study of this scenario" }]);
+    }
+  }
+  const author = await User.findByPk(actor.id);
+  const report = await Report.sequelize!.transaction(async (transaction) => {
+    const r = await Report.create(
+      {
+        organisationId: actor.organisationId,
+        scenarioId: scenario.id,
+        liftRevisionId: run.liftRevisionId,
+        runId: run.id,
+        studyId: body.studyId ?? null,
+        title: body.title ?? `Design check: ${scenario.name}`,
+        units: body.units ?? author?.units ?? "si",
+        authorId: actor.id,
+        reviewerId: null,
+        submittedAt: null,
+        approvedAt: null,
+        contentHash: null,
+        pdf: null,
+        pdfBytes: null,
+      },
+      { transaction },
+    );
+    await recordAudit({ transaction, actor, entity: "report", entityId: r.id, action: "create", before: null, after: toReportView(r) });
+    return r;
+  });
+  return toReportView(report);
+}
+
+export async function listReports(actor: Actor, q: { scenarioId?: number; status?: string }) {
+  assertCan(actor, "report:read");
+  const { Report } = getModels();
+  const rows = await Report.findAll({
+    where: { organisationId: actor.organisationId, ...(q.scenarioId ? { scenarioId: q.scenarioId } : {}), ...(q.status ? { status: q.status } : {}) },
+    order: [["id", "DESC"]],
+    limit: 200,
+  });
+  return { items: rows.map(toReportView) };
+}
+
+export async function getReport(actor: Actor, id: number): Promise<ReportView> {
+  assertCan(actor, "report:read");
+  const { ReportReview, User } = getModels();
+  const r = await findOwnReport(actor, id);
+  const reviews = await ReportReview.findAll({ where: { reportId: r.id }, order: [["id", "ASC"]] });
+  const users = new Map((await User.findAll({ where: { organisationId: actor.organisationId }, attributes: ["id", "name"] })).map((u) => [u.id, u.name]));
+  return {
+    ...toReportView(r),
+    reviews: reviews.map((v) => ({
+      id: v.id,
+      action: v.action,
+      userId: v.userId,
+      userName: v.userId ? users.get(v.userId) ?? null : null,
+      comment: v.comment,
+      contentHash: v.contentHash,
+      at: v.at.toISOString(),
+    })),
+  };
+}
+
+async function userName(id: number | null): Promise<string | null> {
+  if (!id) return null;
+  const u = await getModels().User.findByPk(id, { attributes: ["id", "name"] });
+  return u?.name ?? null;
+}
+
+/** Draws the report as it stands now (content hash of the current content). */
+export async function renderReport(report: Report): Promise<{ pdf: Buffer; hash: string }> {
+  const content = await buildReportContent(report);
+  const hash = contentHash(content);
+  const stamp: ReportStamp = {
+    status: report.status,
+    reportId: report.id,
+    author: await userName(report.authorId),
+    reviewer: report.status === "approved" ? await userName(report.reviewerId) : null,
+    approvedAt: report.approvedAt?.toISOString() ?? null,
+    contentHash: hash,
+  };
+  return { pdf: await drawReportPdf(content, stamp), hash };
+}
+
+/** The PDF: the stored stamped file of an approved report, else drawn now. */
+export async function reportPdf(actor: Actor, id: number): Promise<{ pdf: Buffer; filename: string }> {
+  assertCan(actor, "report:read");
+  const r = await findOwnReport(actor, id, true);
+  const filename = `tautline-design-check-${r.id}${r.status === "approved" ? "-approved" : ""}.pdf`;
+  if (r.status === "approved") {
+    if (!r.pdf) throw conflict("The approved report's PDF is missing.");
+    return { pdf: r.pdf, filename };
+  }
+  return { pdf: (await renderReport(r)).pdf, filename };
+}
