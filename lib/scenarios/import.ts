@@ -1,7 +1,7 @@
 import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
 import { getSequelize } from "@/lib/db/sequelize";
 import { getModels } from "@/models";
-import { badRequest } from "@/lib/http/errors";
+import { badRequest, zodIssues } from "@/lib/http/errors";
 import { assertCan, type Actor } from "@/lib/api/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { createLiftIn, type LiftView } from "@/lib/lifts/service";
@@ -9,6 +9,7 @@ import { liftRevisionSchema } from "@/lib/lifts/schema";
 import { trainView, type TrainView } from "@/lib/trains/service";
 import { DEFAULT_RIDER_MASS } from "@/lib/trains/schema";
 import { createScenarioIn, type ScenarioView } from "./service";
+import { scenarioInputSchema } from "./schema";
 
 export interface ImportResult {
   scenario: ScenarioView;
@@ -33,7 +34,7 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
   if (!parsed.ok) throw badRequest("The scenario file has problems; nothing was imported.", parsed.issues);
   const s: EngineScenario = parsed.scenario;
 
-  const revision = liftRevisionSchema.parse({
+  const revisionParsed = liftRevisionSchema.safeParse({
     name: clip(s.name, 120),
     site: null,
     notes: s.description ?? null,
@@ -45,6 +46,17 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
     antiRollback: s.antiRollback,
     limits: s.limits,
   });
+  // The file passed the format's rules; our own rules for names (e.g. no control characters) may still refuse.
+  const nameParsed = scenarioInputSchema.shape.name.safeParse(s.name);
+  const ownIssues = [
+    ...(revisionParsed.success ? [] : zodIssues(revisionParsed.error).map((i) => ({ ...i, path: i.path === "notes" ? "description" : i.path }))),
+    ...(nameParsed.success ? [] : zodIssues(nameParsed.error).map((i) => ({ ...i, path: "name" }))),
+  ];
+  if (!revisionParsed.success || !nameParsed.success) {
+    const unique = ownIssues.filter((i, k) => ownIssues.findIndex((j) => j.path === i.path && j.message === i.message) === k);
+    throw badRequest("The scenario file has problems; nothing was imported.", unique);
+  }
+  const revision = revisionParsed.data;
 
   const { Train } = getModels();
   return getSequelize().transaction(async (transaction) => {
