@@ -83,10 +83,11 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
       };
       const t = num("time");
       const values = Object.fromEntries(channels.map((c) => [c, num(c)])) as Record<Channel, number | null | undefined>;
-      if (t === undefined || t === null || channels.some((c) => values[c] === undefined)) return;
+      if (t === undefined || t === null) return;
       const ts = t * tf;
       if (ts <= lastT) add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} does not increase (previous ${lastT / tf})` });
       lastT = Math.max(lastT, ts);
+      if (channels.some((c) => values[c] === undefined)) return;
       const sample: ParsedSample = { t: ts, takeUpPosition: null, chainTension: null, driveCurrent: null, trainPosition: null, trainSpeed: null };
       for (const c of channels) {
         const v = values[c];

@@ -1,0 +1,78 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createRecording, getRecording, overlay, calibrateRecording, saveCalibration } from "@/lib/recordings/service";
+import { readUpload } from "@/lib/logbook/uploads";
+import { getRunResult } from "@/lib/runs/service";
+import { getLift } from "@/lib/lifts/service";
+import { getModels } from "@/models";
+import { closeDb, expectHttpError } from "./design-fixtures";
+import { opsFakes, opsWorld } from "./logbook-fixtures";
+
+let fakes: Awaited<ReturnType<typeof opsFakes>>;
+let w: Awaited<ReturnType<typeof opsWorld>>;
+
+beforeAll(async () => {
+  fakes = await opsFakes();
+  w = await opsWorld("rec", { run: true });
+});
+afterAll(async () => {
+  await fakes.close();
+  await closeDb();
+});
+
+async function counts(organisationId: number) {
+  const { Recording, Upload } = getModels();
+  return { recordings: await Recording.count({ where: { organisationId } }), uploads: await Upload.count({ where: { organisationId } }) };
+}
+
+const mapping = { time: "time_s", takeUpPosition: "takeup_mm", trainSpeed: "speed" };
+const units = { time: "s", length: "mm", force: "N", speed: "m/s", takeUpDirection: "down" };
+
+describe("logger uploads", () => {
+  it("refuses a CSV with bad rows, listing every problem, and stores nothing", async () => {
+    const before = await counts(w.organisationId);
+    const csv = "time_s,takeup_mm,speed\n0,0,2.2\n0.02,x,2.2\n0.01,1,2.2\n0.06,2\n";
+    const err = await expectHttpError(() => createRecording(w.as.operator, { liftId: w.liftId, name: "Bad", csv, mapping, units }), 400);
+    expect(err.issues.map((i) => i.path)).toEqual(["rows.3.takeUpPosition", "rows.4.time", "rows.5"]);
+    expect(await counts(w.organisationId)).toEqual(before);
+  });
+
+  it("stores a good one (rows in MariaDB, the file in object storage) and overlays it on a run at engagement", async () => {
+    const run = await getRunResult(w.as.engineer, w.runId!);
+    const series = (run.result as { series: Record<string, number[]> }).series;
+    const eng = (run.summary as { engagementTime: number }).engagementTime;
+    // A logger that started 1.5 s before the run's t = 0: the overlay must shift it back by 1.5 s.
+    const lines = ["time_s,takeup_mm,speed"];
+    series.t.forEach((t, i) => i % 5 === 0 && lines.push(`${(t + 1.5).toFixed(3)},${(series.takeUpPosition[i] * 1000).toFixed(3)},${series.trainSpeed[i].toFixed(4)}`));
+    const csv = lines.join("\n") + "\n";
+    const dry = await createRecording(w.as.operator, { liftId: w.liftId, name: "Dispatch", csv, mapping, units, dryRun: true, engagementTime: eng + 1.5 });
+    expect("ok" in dry && dry.ok).toBe(true);
+    expect(await counts(w.organisationId)).toEqual({ recordings: 0, uploads: 0 });
+    const out = await createRecording(w.as.operator, { liftId: w.liftId, name: "Dispatch", fileName: "dispatch.csv", csv, mapping, units, engagementTime: eng + 1.5 });
+    if (!("recording" in out)) throw new Error("expected a stored recording");
+    expect(out.recording.sampleCount).toBe(lines.length - 1);
+    const { series: s } = await getRecording(w.as.viewer, out.recording.id);
+    expect(s.t).toHaveLength(lines.length - 1);
+    const file = await readUpload(w.as.viewer, Number(out.recording.fileUrl!.split("/").pop()));
+    expect(file.body.toString("utf8")).toBe(csv);
+    const o = await overlay(w.as.viewer, out.recording.id, w.runId!);
+    expect(o.aligned).toBe(true);
+    expect(o.shift).toBeCloseTo(-1.5, 9);
+    // Aligned, the recorded trace lies on the run's (it was made from it, rounded to 1 µm).
+    const k = 40;
+    const tRun = o.recording.t[k];
+    const j = series.t.findIndex((t) => Math.abs(t - tRun) < 1e-6);
+    expect(Math.abs(o.recording.takeUp[k]! - (series.takeUpPosition[j] - series.takeUpPosition[0]))).toBeLessThan(1e-5);
+  });
+
+  it("calibrates against the recording and saves the fit as a new lift revision", async () => {
+    const { Recording } = getModels();
+    const rec = await Recording.findOne({ where: { organisationId: w.organisationId } });
+    const fit = await calibrateRecording(w.as.engineer, rec!.id, { scenarioId: w.scenarioId });
+    expect(fit.quality.fitted.rms).toBeLessThanOrEqual(fit.quality.initial.rms + 1e-9);
+    await expectHttpError(() => saveCalibration(w.as.operator, rec!.id, { version: 0, axialStiffness: fit.fitted.axialStiffness, damping: fit.fitted.damping }), 403);
+    const lift = await getLift(w.as.engineer, w.liftId);
+    const saved = await saveCalibration(w.as.engineer, rec!.id, { version: lift.version, axialStiffness: 1.6e7, damping: 3000 });
+    expect(saved.currentRevision.number).toBe(2);
+    expect(saved.changes.map((c) => c.path)).toEqual(expect.arrayContaining(["chain.axialStiffness", "chain.damping"]));
+  }, 60_000);
+});
