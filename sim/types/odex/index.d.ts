@@ -1,4 +1,6 @@
 // odex ships its TypeScript source, not declarations; a strict build would type-check that source.
+// tsconfig maps "odex" to this folder: the type checker finds index.d.ts, while bundlers and tsx (which
+// look only for real source files there) fall through to the package itself.
 // This file describes the part of its API the engine uses.
 declare module "odex" {
   export type Derivative = (x: number, y: number[]) => number[];
