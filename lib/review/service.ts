@@ -48,12 +48,14 @@ export async function submitReport(actor: Actor, id: number): Promise<ReportView
   return getReport(actor, id);
 }
 
-async function assertReviewer(actor: Actor, id: number) {
+/** Order of refusals: role (403), another organisation's report (404), body (400), own report (403), state (409). */
+async function assertReviewer<T>(actor: Actor, id: number, schema: z.ZodType<T>, raw: unknown) {
   assertCan(actor, "report:review");
   const report = await findOwnReport(actor, id);
+  const body = parse(schema, raw);
   if (report.authorId === actor.id) throw forbidden(OWN_REPORT_MESSAGE);
   if (report.status !== "submitted") throw conflict(`The report is ${report.status}; only a submitted report can be reviewed.`);
-  return report;
+  return { report, body };
 }
 
 async function notifyAuthor(actor: Actor, reportId: number, outcome: "approved" | "returned", comment: string | null, hash: string | null) {
@@ -82,8 +84,8 @@ async function notifyAuthor(actor: Actor, reportId: number, outcome: "approved" 
 }
 
 export async function approveReport(actor: Actor, id: number, raw: unknown): Promise<ReportView> {
-  const { comment } = parse(reviewCommentSchema, raw);
-  const report = await assertReviewer(actor, id);
+  const { report, body } = await assertReviewer(actor, id, reviewCommentSchema, raw);
+  const comment = body.comment;
   const { Report, ReportReview, Scenario } = getModels();
   const approvedAt = new Date();
   // The stamp names the reviewer and date, so draw with the approved state.
@@ -118,8 +120,8 @@ export async function approveReport(actor: Actor, id: number, raw: unknown): Pro
 }
 
 export async function returnReport(actor: Actor, id: number, raw: unknown): Promise<ReportView> {
-  const { comment } = parse(returnSchema, raw);
-  await assertReviewer(actor, id);
+  const { body } = await assertReviewer(actor, id, returnSchema, raw);
+  const comment = body.comment;
   const { Report, ReportReview } = getModels();
   await Report.sequelize!.transaction(async (transaction) => {
     const [n] = await Report.update(
