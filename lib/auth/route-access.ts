@@ -161,6 +161,19 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
     methods: { GET: needs("training:manage"), POST: needs("training:watch") },
     rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
   },
+  // Studies and design-check reports (the demo park has one finished study and one draft report, lib/studies/seed.ts).
+  // Probe bodies fail validation, so the access test starts no study and changes no report.
+  "/api/studies": { methods: { GET: needs("study:read"), POST: needs("study:run") } },
+  "/api/studies/[id]": { methods: { GET: needs("study:read") }, rows: { id: "studies" } },
+  "/api/studies/[id]/export": { methods: { GET: needs("study:read") }, rows: { id: "studies" } },
+  "/api/studies/[id]/cancel": { methods: { POST: needs("study:run") }, rows: { id: "studies" }, refusalsOnly: ["POST"] },
+  "/api/studies/[id]/resume": { methods: { POST: needs("study:run") }, rows: { id: "studies" }, refusalsOnly: ["POST"] },
+  "/api/reports": { methods: { GET: needs("report:read"), POST: needs("report:write") } },
+  "/api/reports/[id]": { methods: { GET: needs("report:read") }, rows: { id: "reports" } },
+  "/api/reports/[id]/pdf": { methods: { GET: needs("report:read") }, rows: { id: "reports" } },
+  "/api/reports/[id]/submit": { methods: { POST: needs("report:write") }, rows: { id: "reports" }, refusalsOnly: ["POST"] },
+  "/api/reports/[id]/approve": { methods: { POST: needs("report:review") }, rows: { id: "reports" }, probeBody: { comment: 5 } },
+  "/api/reports/[id]/return": { methods: { POST: needs("report:review") }, rows: { id: "reports" }, probeBody: {} },
 };
 
 export const PAGE_ROUTES: Record<string, PageAccess> = {
@@ -173,7 +186,8 @@ export const PAGE_ROUTES: Record<string, PageAccess> = {
   "/lifts": { access: needs("design:read") },
   "/trains": { access: needs("design:read") },
   "/scenarios": { access: needs("design:read") },
-  "/studies": { access: needs("run:read") },
+  "/studies": { access: needs("study:read") },
+  "/studies/[id]": { access: needs("study:read"), rows: { id: "studies" } },
   "/logbook": { access: signedIn },
   "/replays": { access: needs("run:read") },
   "/settings": { access: needs("profile:self") },

@@ -5,6 +5,7 @@ import { demoReviewCommentSeed } from "@/lib/comments/seed";
 import { demoDesignSeed, demoRunsSeed, interruptedRunsSeed } from "@/lib/demo/seed";
 import { demoLogbookSeed } from "@/lib/logbook/seed";
 import { demoTrainingSeed } from "@/lib/training/seed";
+import { demoStudySeed } from "@/lib/studies/seed";
 
 /** One idempotent seed step: running it twice leaves the same rows as running it once. */
 export interface SeedStep {
@@ -23,4 +24,5 @@ export const seedSteps: SeedStep[] = [
   demoReviewCommentSeed,
   demoLogbookSeed,
   demoTrainingSeed,
+  demoStudySeed,
 ];
