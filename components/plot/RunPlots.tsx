@@ -43,7 +43,7 @@ export function RunPlots({
   const hovering = useRef(false);
 
   useEffect(() => {
-    const width = Math.max(300, box.current?.clientWidth ?? 800);
+    const width = Math.max(280, (box.current?.clientWidth ?? 800) - 16);
     const syncKey = `run-${Math.random().toString(36).slice(2)}`;
     let syncing = false;
     const made: uPlot[] = PANELS.map((p, pi) => {
@@ -124,7 +124,7 @@ export function RunPlots({
       if (s.t !== prev.t) place(s.t);
     });
     const ro = new ResizeObserver(() => {
-      const w = Math.max(300, box.current?.clientWidth ?? 800);
+      const w = Math.max(280, (box.current?.clientWidth ?? 800) - 16);
       for (const plot of made) plot.setSize({ width: w, height: 150 });
     });
     if (box.current) ro.observe(box.current);
@@ -174,7 +174,7 @@ export function RunPlots({
   };
 
   return (
-    <section className="space-y-2" data-testid="run-plots">
+    <section className="min-w-0 space-y-2" data-testid="run-plots">
       <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="text-[12px] text-steel-500">Drag across a plot to zoom all four; double-click to zoom out; click to move the replay there.</p>
         <div className="flex gap-2">
@@ -209,9 +209,9 @@ export function RunPlots({
           take-up <b>{val("takeUpPosition", "smallLength")}</b>
         </span>
       </div>
-      <div ref={box} className="space-y-1 rounded-md border border-steel-300/60 bg-white p-2">
+      <div ref={box} className="min-w-0 space-y-1 overflow-hidden rounded-md border border-steel-300/60 bg-white p-2">
         {PANELS.map((p, pi) => (
-          <div key={p.id}>
+          <div key={p.id} className="min-w-0 overflow-hidden">
             <p className="px-1 text-[12px] font-semibold text-ink-800">{p.title}</p>
             <div
               ref={(el) => {

@@ -21,8 +21,8 @@ export interface ReplayCanvasProps {
   /** Colour scale top, N (the run's peak tension). */
   maxTension: number;
   height?: number;
-  /** Frames drawn in the last second (for the performance check). */
-  onFps?: (fps: number) => void;
+  /** Frames drawn in the last second and their mean draw time, ms (for the performance check). */
+  onFps?: (fps: number, drawMs: number) => void;
 }
 
 interface Prepared {
@@ -35,6 +35,9 @@ interface Prepared {
   stationsQ: number[];
   loop: number;
 }
+
+/** Paint timer (the shapes paint outside React's render, from Konva's draw loop). */
+const clock = () => performance.now();
 
 function nativeCtx(c: Konva.Context): CanvasRenderingContext2D {
   return (c as unknown as { _context: CanvasRenderingContext2D })._context;
@@ -76,6 +79,7 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
   const dynLayer = useRef<Konva.Layer>(null);
   const view = useRef<FrameView | undefined>(undefined);
   const drawCount = useRef(0);
+  const drawTime = useRef(0);
 
   useEffect(() => {
     const el = box.current;
@@ -96,8 +100,9 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     });
     dynLayer.current?.batchDraw();
     const timer = setInterval(() => {
-      onFps?.(drawCount.current);
+      onFps?.(drawCount.current, drawCount.current ? drawTime.current / drawCount.current : 0);
       drawCount.current = 0;
+      drawTime.current = 0;
     }, 1000);
     return () => {
       unsub();
@@ -173,7 +178,13 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
   };
 
   const drawMoving = (c: Konva.Context) => {
+    const t0 = clock();
     drawCount.current++;
+    paint(c);
+    drawTime.current += clock() - t0;
+  };
+
+  const paint = (c: Konva.Context) => {
     const ctx = nativeCtx(c);
     const st = useReplayStore.getState();
     if (!frames.length) return;

@@ -58,6 +58,11 @@ export function ReplayPanel({
   const { t, playing, speed, magnify } = useReplayStore();
   const st = useReplayStore.getState;
   const [fps, setFps] = useState(0);
+  const [drawMs, setDrawMs] = useState(0);
+  const onFps = useCallback((f: number, ms: number) => {
+    setFps(f);
+    setDrawMs(ms);
+  }, []);
   const [copied, setCopied] = useState(false);
 
   useEffect(() => {
@@ -163,8 +168,8 @@ export function ReplayPanel({
   };
 
   return (
-    <section className="space-y-2" data-testid="replay" data-fps={fps}>
-      <ReplayCanvas scenario={scenario} frames={frames} layout={layout} maxTension={maxT} onFps={setFps} />
+    <section className="min-w-0 space-y-2" data-testid="replay" data-fps={fps} data-draw-ms={drawMs.toFixed(3)} data-segments={layout.stations.length}>
+      <ReplayCanvas scenario={scenario} frames={frames} layout={layout} maxTension={maxT} onFps={onFps} />
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
         <div className="flex items-center gap-1.5">
           <Button
@@ -229,7 +234,7 @@ export function ReplayPanel({
             {copied ? "Link copied" : "Copy link to this moment"}
           </Button>
           <span className="text-[11.5px] text-steel-500" data-testid="replay-fps">
-            {fps} frames/s
+            {fps} frames/s · {layout.stations.length} segments
           </span>
         </div>
       </div>

@@ -18,7 +18,7 @@ const ORIGIN: Record<RunData["origin"], string> = {
 export function RunResults({ data, units, initialT, fileStem }: { data: RunData; units: UnitSystem; initialT?: number; fileStem: string }) {
   const s = data.summary;
   return (
-    <div className="space-y-5" data-testid="run-results" data-origin={data.origin}>
+    <div className="min-w-0 space-y-5" data-testid="run-results" data-origin={data.origin}>
       <SafetyNote className="rounded-md border border-caution/40 bg-caution/[0.06] px-3 py-2" />
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 font-mono text-[11.5px] text-steel-500" data-testid="run-origin">
         <span className="font-sans text-[12px] font-semibold text-ink-800">{ORIGIN[data.origin]}</span>

@@ -19,6 +19,11 @@ import { loadServerRun, runItems, type RunJson } from "./serverRun";
 import { shownData, useRunStore } from "./store";
 import { useWorkerRun } from "./useWorkerRun";
 import { WhatIfPanel } from "./WhatIfPanel";
+import { withWhatIf } from "./compute";
+
+function withSegments(s: Scenario, n: number | null): Scenario {
+  return n ? { ...s, run: { ...s.run, segments: n } } : s;
+}
 
 const STATUS_TONE = { queued: "neutral", running: "lamp", done: "pass", failed: "fail", cancelled: "neutral" } as const;
 
@@ -47,6 +52,7 @@ export function ScenarioRunView({
   const [openFailed, setOpenFailed] = useState(false);
   const [saveMsg, setSaveMsg] = useState<{ tone: "error" | "info"; text: string } | null>(null);
   const [saving, setSaving] = useState(false);
+  const [segments, setSegments] = useState<number | null>(null);
 
   useEffect(() => {
     reset();
@@ -93,9 +99,25 @@ export function ScenarioRunView({
       <div className="flex flex-wrap items-center gap-3 rounded-lg border border-steel-300/70 bg-white px-4 py-3">
         {canStart ? (
           <>
-            <Button onClick={() => void runFull(whatIf ? { ...scenario, train: { ...scenario.train, entrySpeed: whatIf.entrySpeed }, drive: { ...scenario.drive, speed: whatIf.chainSpeed }, takeUp: { ...scenario.takeUp, mass: whatIf.takeUpMass } } : scenario)} disabled={status === "running"} data-testid="run-in-browser">
+            <Button onClick={() => void runFull(withSegments(whatIf ? withWhatIf(scenario, whatIf) : scenario, segments))} disabled={status === "running"} data-testid="run-in-browser">
               Run in this browser
             </Button>
+            <label className="flex items-center gap-1.5 text-[12.5px] text-steel-500">
+              Chain segments
+              <select
+                className="h-8 rounded-md border border-steel-300 bg-white px-1.5 text-[13px] text-ink-900"
+                value={segments ?? ""}
+                onChange={(e) => setSegments(e.target.value ? Number(e.target.value) : null)}
+                data-testid="run-segments"
+              >
+                <option value="">as the scenario ({scenario.run.segments})</option>
+                {[120, 240].map((n) => (
+                  <option key={n} value={n}>
+                    {n} (finer, slower)
+                  </option>
+                ))}
+              </select>
+            </label>
             {status === "running" && (
               <Button variant="secondary" onClick={cancel} data-testid="cancel-run">
                 Cancel

@@ -1,0 +1,99 @@
+// npm run bench (after the engine bench): the workspace in real Chromium against a running, built app.
+// Reports the replay frame rate with 240 chain segments and the what-if preview latency.
+// Usage: start the app (npm start), then `tsx scripts/bench-ui.ts` (BENCH_URL=http://127.0.0.1:PORT to
+// point elsewhere). Without a reachable app it says so and skips (exit 0), so the engine bench still runs.
+import { chromium } from "@playwright/test";
+import { DEMO_PASSWORD } from "../lib/auth/demo-accounts";
+
+const url = (process.env.BENCH_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`).replace(/\/$/, "");
+const chromiumPath = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
+
+async function reachable(): Promise<boolean> {
+  try {
+    const res = await fetch(`${url}/sign-in`, { redirect: "manual" });
+    return res.status < 500;
+  } catch {
+    return false;
+  }
+}
+
+async function main(): Promise<number> {
+  if (!(await reachable())) {
+    console.log(`[bench-ui] skipped: no Tautline app at ${url} (start one with npm start, or set BENCH_URL)`);
+    return 0;
+  }
+  const browser = await chromium.launch({
+    executablePath: chromiumPath,
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"],
+  });
+  try {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    await page.goto(`${url}/sign-in`);
+    await page.getByLabel("E-mail").fill("engineer@lanternfell.example");
+    await page.getByLabel("Password").fill(DEMO_PASSWORD);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL("**/dashboard");
+    await page.goto(`${url}/scenarios`);
+    await page.getByTestId("scenario-table-search").fill("settles back onto the ARD");
+    await page.getByTestId("scenario-table-row").first().waitFor();
+    await page.getByTestId("scenario-table").getByRole("link").first().click();
+    await page.getByTestId("run-view").waitFor();
+
+    // A 240-segment run in the browser, then play the replay at 1× for 4 s and read the paint rate.
+    await page.getByTestId("run-segments").selectOption("240");
+    const t0 = Date.now();
+    await page.getByTestId("run-in-browser").click();
+    await page.waitForSelector('[data-testid="run-view"][data-status="done"]', { timeout: 120_000 });
+    const runSeconds = (Date.now() - t0) / 1000;
+    const segments = Number(await page.getByTestId("replay").getAttribute("data-segments"));
+    await page.getByTestId("replay-speed").selectOption("1");
+    await page.getByTestId("replay-play").click();
+    const samples: { fps: number; drawMs: number }[] = [];
+    for (let i = 0; i < 5; i++) {
+      await page.waitForTimeout(1000);
+      const el = page.getByTestId("replay");
+      samples.push({ fps: Number(await el.getAttribute("data-fps")), drawMs: Number(await el.getAttribute("data-draw-ms")) });
+    }
+    const steady = samples.slice(1);
+    const fps = steady.reduce((s, x) => s + x.fps, 0) / steady.length;
+    const drawMs = steady.reduce((s, x) => s + x.drawMs, 0) / steady.length;
+    await page.getByTestId("replay-play").click();
+
+    // What-if preview latency: slider move → coarse preview figures on screen, repeated.
+    await page.getByTestId("run-segments").selectOption("");
+    const latencies: number[] = [];
+    const slider = page.getByTestId("whatif-entrySpeed");
+    for (let i = 0; i < 6; i++) {
+      await slider.focus();
+      const before = await page.getByTestId("whatif-latency").textContent();
+      const s0 = Date.now();
+      await page.keyboard.press(i % 2 ? "ArrowRight" : "ArrowLeft");
+      await page.waitForFunction(
+        (prev) => {
+          const t = document.querySelector('[data-testid="whatif-latency"]')?.textContent ?? "";
+          return t !== prev && /last preview \d+ ms/.test(t);
+        },
+        before,
+        { timeout: 20_000 },
+      );
+      latencies.push(Date.now() - s0);
+      await page.waitForTimeout(900); // let the full run that follows settle
+    }
+    latencies.sort((a, b) => a - b);
+    const median = latencies[Math.floor(latencies.length / 2)];
+    console.log(`[bench-ui] browser run, ${segments} segments: ${runSeconds.toFixed(2)} s (worker, incl. transfer)`);
+    console.log(`[bench-ui] replay at 1x with ${segments} segments: ${fps.toFixed(1)} frames/s, ${drawMs.toFixed(2)} ms per paint (samples ${steady.map((s) => s.fps).join(", ")})`);
+    console.log(`[bench-ui] what-if preview latency (slider move to figures): median ${median} ms, max ${latencies[latencies.length - 1]} ms over ${latencies.length} moves`);
+    return 0;
+  } finally {
+    await browser.close();
+  }
+}
+
+main().then(
+  (code) => process.exit(code),
+  (err) => {
+    console.error(`[bench-ui] failed: ${err instanceof Error ? err.message : String(err)}`);
+    process.exit(1);
+  },
+);
