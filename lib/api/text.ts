@@ -6,7 +6,11 @@ export const nameField = (field = "name", max = 120) =>
     .string({ error: `${field} must be text` })
     .trim()
     .min(1, { error: `${field} must not be empty` })
-    .max(max, { error: `${field} must be at most ${max} characters` });
+    .max(max, { error: `${field} must be at most ${max} characters` })
+    // One-line names are shown in tables, logs and files: control characters (NUL, ESC, line breaks) are refused.
+    .refine((v) => !CONTROL_CHARACTERS.test(v), { error: `${field} must not contain control characters` });
+
+const CONTROL_CHARACTERS = /[\u0000-\u001f\u007f-\u009f]/;
 
 /** Optional free text; empty text is stored as null. */
 export const optionalText = (field: string, max: number) =>

@@ -27,7 +27,8 @@ export const personNameSchema = z
   .string({ error: "Enter a name." })
   .trim()
   .min(1, "Enter a name.")
-  .max(120, "Use at most 120 characters.");
+  .max(120, "Use at most 120 characters.")
+  .refine((v) => !/[\u0000-\u001f\u007f-\u009f]/.test(v), "Don't use control characters in a name.");
 
 export const roleSchema = z.enum(ROLES, { error: `Choose one of: ${ROLES.join(", ")}.` });
 export const unitsSchema = z.enum(["si", "us"], { error: "Choose SI or US customary units." });
