@@ -7,6 +7,8 @@ import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
 import { can, type Action } from "@/lib/auth/permissions";
 import { ROLE_LABELS } from "@/lib/auth/roles";
+import { AlertsPanel } from "@/components/logbook/AlertsPanel";
+import { openAlerts } from "@/lib/alerts/notify";
 
 export const metadata: Metadata = { title: "Overview" };
 
@@ -21,6 +23,7 @@ const ABILITIES: Array<{ action: Action; text: string }> = [
 
 export default async function DashboardPage() {
   const user = await pageUser("/dashboard");
+  const alerts = can(user.role, "logbook:read") ? await openAlerts(user.organisationId) : [];
   const areas = NAV_ITEMS.filter((i) => i.href !== "/dashboard" && (!i.action || can(user.role, i.action)));
   return (
     <>
@@ -29,6 +32,9 @@ export default async function DashboardPage() {
         title={`Good to see you, ${user.name.split(" ")[0]}`}
         description="Tautline models a chain lift as spring segments with a weighted 2:1 gravity take-up, runs your load cases, and keeps the results beside the lift they belong to."
       />
+      <div className="mb-5">
+        <AlertsPanel alerts={alerts} />
+      </div>
       <div className="grid gap-5 lg:grid-cols-3">
         <Card className="lg:col-span-2">
           <CardHeader title="What is coming" description="The areas below open as each part of Tautline lands." />

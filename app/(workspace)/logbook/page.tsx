@@ -1,24 +1,35 @@
 import type { Metadata } from "next";
-import { Planned } from "@/components/shell/Planned";
+import { Op } from "sequelize";
+import { LogbookView } from "@/components/logbook/LogbookView";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
+import { can } from "@/lib/auth/permissions";
+import { getModels } from "@/models";
 
 export const metadata: Metadata = { title: "Logbook" };
 
-export default async function LogbookPage() {
-  await pageUser("/logbook");
+export default async function LogbookPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const user = await pageUser("/logbook");
+  const lifts = (await getModels().Lift.findAll({ where: { organisationId: user.organisationId, archivedAt: { [Op.is]: null } }, order: [["name", "ASC"]], attributes: ["id", "name"] })).map((l) => ({ id: l.id, name: l.name }));
+  const sp = await searchParams;
+  const asked = Number(sp.lift);
+  const liftId = lifts.find((l) => l.id === asked)?.id ?? lifts[0]?.id;
   return (
     <>
-      <PageHeader eyebrow="Operate" title="Logbook" description="What maintenance measured on the lift, over the seasons." />
-      <Planned
-        audience="For operations and maintenance staff; engineers read it to calibrate the model."
-        items={[
-          "Chain elongation over a measured length of pitches, entered after each inspection.",
-          "Take-up position at rest and counterweight height, with the date and who measured.",
-          "Trends against the replacement limit, and the date it is likely to be reached.",
-          "Notes on rollbacks onto the ARD and what the train was carrying.",
-        ]}
-      />
+      <PageHeader eyebrow="Operate" title="Logbook" description="What maintenance measured on the lift: chain elongation, take-up at rest, links removed, lubrication and inspections." />
+      {liftId ? (
+        <LogbookView
+          key={liftId}
+          lifts={lifts}
+          liftId={liftId}
+          units={user.units}
+          canWrite={can(user.role, "logbook:write")}
+          canSettings={can(user.role, "logbook:settings")}
+          canUpload={can(user.role, "recording:upload")}
+        />
+      ) : (
+        <p className="text-[14px] text-steel-500">No lifts yet: an engineer adds them under Lifts.</p>
+      )}
     </>
   );
 }

@@ -1,0 +1,16 @@
+export interface SessionJson {
+  id: number;
+  title: string;
+  description: string | null;
+  sharedAt: string | null;
+  version: number;
+  canEdit: boolean;
+  items: { id: number; runId: number; position: number; title: string | null; scenarioName: string; duration: number; captions: { id: number; at: number; text: string }[] }[];
+}
+
+/** The caption showing at time t: the latest one reached, for 5 s (or until the next one). */
+export function activeCaption<T extends { at: number }>(captions: T[], t: number, hold = 5): T | null {
+  let hit: T | null = null;
+  for (const c of [...captions].sort((a, b) => a.at - b.at)) if (c.at <= t + 1e-6) hit = c;
+  return hit && t - hit.at <= hold ? hit : null;
+}
