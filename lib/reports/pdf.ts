@@ -125,7 +125,17 @@ function linePlot(doc: Doc, title: string, t: number[], ys: number[], yLabel: (v
   doc.x = MARGIN;
 }
 
-function checksTable(doc: Doc, checks: Check[]) {
+/** A check's value or limit in the reader's units (the engine gives SI: m, W, g, s, plain factors). */
+function checkValue(v: number | boolean | null, unit: string, units: "si" | "us"): string {
+  if (v === null) return "—";
+  if (typeof v === "boolean") return v ? "yes" : "no";
+  if (unit === "W") return fmtQ(v, "power", units, 1);
+  if (unit === "m") return fmtQ(v, "shortLength", units, 1);
+  if (unit === "fraction of room") return `${(v * 100).toFixed(0)} %`;
+  return `${fmtN(v)}${unit ? ` ${unit}` : ""}`;
+}
+
+function checksTable(doc: Doc, checks: Check[], units: "si" | "us") {
   const cols = [
     { h: "Check", w: 140 },
     { h: "State", w: 50 },
@@ -150,8 +160,8 @@ function checksTable(doc: Doc, checks: Check[]) {
     const cells = [
       ch.label,
       ch.state,
-      typeof ch.value === "number" ? fmtN(ch.value, ch.unit === "m" ? 3 : 2) + (ch.unit && ch.unit !== "fraction of room" ? ` ${ch.unit}` : "") : ch.value === null ? "—" : String(ch.value),
-      typeof ch.limit === "number" ? fmtN(ch.limit, ch.unit === "m" ? 3 : 2) : ch.limit === null ? "—" : String(ch.limit),
+      checkValue(ch.value, ch.unit, units),
+      checkValue(ch.limit, ch.unit, units),
       checkMargin(ch),
       ch.reason,
     ];
@@ -239,7 +249,7 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
   }
 
   heading(doc, "5. Checks");
-  checksTable(doc, c.checks);
+  checksTable(doc, c.checks, u);
 
   if (c.study) {
     heading(doc, "6. Study and operating window");
