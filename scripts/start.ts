@@ -16,10 +16,11 @@ async function main(): Promise<number> {
   try {
     const stack = demoStack();
     const env = stackEnv(stack);
+    // Object storage first: the seed steps store the demo park's files.
+    await bringUpS3Fake(stack, life);
     await bringUpDatabase(stack, life);
     if (life.interrupted) return 130;
     await bringUpMailFake(stack, life);
-    await bringUpS3Fake(stack, life);
     if (stack.redisUrl) {
       // Queue mode: Redis on loopback (unless REDIS_URL names another host) and one local worker process.
       if (stack.runRedis) await bringUpRedis(stack.redisPort, stack.redisDir, life);

@@ -1,0 +1,58 @@
+import { expect, test } from "@playwright/test";
+import { apiAs, signInUi } from "./support/auth";
+import { waitForMail } from "./support/mail";
+
+// A trainer builds a session from a saved run with two captions and shares it; the park's viewer gets the
+// e-mail, watches it read-only with the captions at their moments, and the trainer sees who watched.
+test("a trainer builds a session with two captions and a viewer watches it", async ({ browser }) => {
+  const title = `Pick-up in two steps ${Date.now().toString(36)}`;
+  const trainer = await browser.newPage();
+  await signInUi(trainer, "trainer@lanternfell.example");
+  await trainer.goto("/replays");
+  await trainer.locator("#new-title").fill(title);
+  await trainer.getByTestId("create-session").click();
+  await trainer.waitForURL("**/replays/*/edit");
+  await trainer.getByTestId("add-run").click();
+  await trainer.getByTestId("add-caption-0").click();
+  await trainer.locator("#cap-at-0-0").fill("1");
+  await trainer.locator("#cap-text-0-0").fill("The drive starts: the chain tightens.");
+  await trainer.getByTestId("add-caption-0").click();
+  await trainer.locator("#cap-at-0-1").fill("3");
+  await trainer.locator("#cap-text-0-1").fill("Watch the counterweight drop here.");
+  await trainer.getByTestId("save-session").click();
+  await expect(trainer.getByTestId("session-message")).toContainText("Saved.");
+  await trainer.getByTestId("share-session").click();
+  await expect(trainer.getByTestId("session-message")).toContainText("Shared with the organisation's viewers");
+  const sessionId = Number(/replays\/(\d+)\/edit/.exec(trainer.url())![1]);
+
+  const mail = await waitForMail("viewer@lanternfell.example", `Replay session: ${title}`);
+  expect(mail.text).toContain(`/replays/${sessionId}`);
+
+  const viewer = await (await browser.newContext()).newPage();
+  await signInUi(viewer, "viewer@lanternfell.example");
+  await viewer.goto("/replays");
+  await viewer.getByRole("link", { name: title }).click();
+  await expect(viewer.getByTestId("session-player")).toBeVisible();
+  await expect(viewer.getByText("Edit the session")).toHaveCount(0);
+  await expect(viewer.getByTestId("caption-list").locator("li")).toHaveCount(2);
+  await expect(viewer.getByTestId("caption")).toContainText("Captions appear here");
+  await expect(viewer.getByTestId("replay-play")).toBeVisible({ timeout: 15_000 });
+  await viewer.getByRole("button", { name: "3.0 s" }).click();
+  await expect(viewer.getByTestId("caption")).toHaveText("Watch the counterweight drop here.");
+  await viewer.getByRole("button", { name: "1.0 s" }).click();
+  await expect(viewer.getByTestId("caption")).toHaveText("The drive starts: the chain tightens.");
+
+  // Read-only: the viewer's role may not change it.
+  const api = await apiAs("viewer@lanternfell.example");
+  expect((await api.patch(`/api/training/sessions/${sessionId}`, { data: { version: 0, title: "mine" } })).status()).toBe(403);
+  // Another organisation's viewer does not find it.
+  const stranger = await apiAs("viewer@cardlevane.example");
+  expect((await stranger.get(`/api/training/sessions/${sessionId}`)).status()).toBe(404);
+
+  await expect
+    .poll(async () => {
+      await trainer.reload();
+      return trainer.getByTestId("session-builder").textContent();
+    }, { timeout: 10_000 })
+    .toContain("Joss Wrenfield");
+});
