@@ -120,8 +120,17 @@ export function RunPlots({
       setCursorIdx(idx);
     };
     place(useReplayStore.getState().t);
+    // While playing, follow at most ~12 times a second (the canvas keeps its own frame rate).
+    let lastPlace = 0;
+    let pendingPlace: ReturnType<typeof setTimeout> | undefined;
     const unsub = useReplayStore.subscribe((s, prev) => {
-      if (s.t !== prev.t) place(s.t);
+      if (s.t === prev.t) return;
+      const now = Date.now();
+      if (pendingPlace) clearTimeout(pendingPlace);
+      if (!s.playing || now - lastPlace > 80) {
+        lastPlace = now;
+        place(s.t);
+      } else pendingPlace = setTimeout(() => place(useReplayStore.getState().t), 80);
     });
     const ro = new ResizeObserver(() => {
       const w = Math.max(280, (box.current?.clientWidth ?? 800) - 16);
@@ -130,6 +139,7 @@ export function RunPlots({
     if (box.current) ro.observe(box.current);
     return () => {
       unsub();
+      if (pendingPlace) clearTimeout(pendingPlace);
       ro.disconnect();
       for (const plot of made) plot.destroy();
       plots.current = [];

@@ -12,7 +12,7 @@ import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { frameAt, frameIndexAt } from "./frames";
 import { runEvents, type EventKind, type RunEvent } from "./events";
 import { viridis } from "./palette";
-import { SPEEDS, useReplayStore } from "./store";
+import { SPEEDS, useReplayStore, useReplayTime } from "./store";
 
 const ReplayCanvas = dynamic(() => import("./ReplayCanvas").then((m) => m.ReplayCanvas), {
   ssr: false,
@@ -55,7 +55,10 @@ export function ReplayPanel({
 }) {
   const duration = frames.length ? frames[frames.length - 1].t : 0;
   const events = useMemo(() => runEvents(summary, series), [summary, series]);
-  const { t, playing, speed, magnify } = useReplayStore();
+  const playing = useReplayStore((s) => s.playing);
+  const speed = useReplayStore((s) => s.speed);
+  const magnify = useReplayStore((s) => s.magnify);
+  const t = useReplayTime();
   const st = useReplayStore.getState;
   const [fps, setFps] = useState(0);
   const [drawMs, setDrawMs] = useState(0);

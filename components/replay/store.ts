@@ -1,5 +1,6 @@
 "use client";
 /** The replay clock and view settings (zustand). The canvas subscribes outside React for every frame. */
+import { useEffect, useState } from "react";
 import { create } from "zustand";
 
 export const SPEEDS = [0.25, 0.5, 1, 2, 4, 8] as const;
@@ -40,3 +41,29 @@ export const useReplayStore = create<ReplayState>((set, get) => ({
   },
   setMagnify: (m) => set({ magnify: m }),
 }));
+
+/**
+ * The replay time for read-outs: immediate while paused, at most every `intervalMs` while playing, so text
+ * and plot cursors do not re-render at the canvas's frame rate.
+ */
+export function useReplayTime(intervalMs = 80): number {
+  const [t, setT] = useState(() => useReplayStore.getState().t);
+  useEffect(() => {
+    let last = 0;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const unsub = useReplayStore.subscribe((s, prev) => {
+      if (s.t === prev.t) return;
+      const now = Date.now();
+      if (timer) clearTimeout(timer);
+      if (!s.playing || now - last >= intervalMs) {
+        last = now;
+        setT(s.t);
+      } else timer = setTimeout(() => setT(useReplayStore.getState().t), intervalMs);
+    });
+    return () => {
+      unsub();
+      if (timer) clearTimeout(timer);
+    };
+  }, [intervalMs]);
+  return t;
+}

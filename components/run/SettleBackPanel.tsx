@@ -2,7 +2,7 @@
 /** The plain-language account of an ARD catch, beside the replay, with a button to go to the catch. */
 import { useMemo } from "react";
 import { Button } from "@/components/ui/Button";
-import { useReplayStore } from "@/components/replay/store";
+import { useReplayStore, useReplayTime } from "@/components/replay/store";
 import type { RunData } from "./types";
 import { settleBackAccount } from "./settleBack";
 
@@ -20,7 +20,7 @@ export function SettleBackPanel({ data }: { data: RunData }) {
       }),
     [data],
   );
-  const t = useReplayStore((s) => s.t);
+  const t = useReplayTime(200);
   if (!account) return null;
   const near = Math.abs(t - account.catchTime) < 0.6 || (account.pickupTime !== null && t >= account.catchTime && t <= account.pickupTime);
   return (

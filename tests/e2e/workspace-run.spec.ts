@@ -61,12 +61,18 @@ test.describe("workspace: run view", () => {
     await page.keyboard.press("]");
     await expect(page.getByTestId("replay-speed")).toHaveValue("2");
     await page.getByTestId("event-ard").first().click();
+    // Screenshots without the sticky top bar, which would otherwise cover element shots.
+    const unstick = await page.addStyleTag({ content: "header.sticky { position: static !important; }" });
     await page.screenshot({ path: "tests/artifacts/workspace-run-view-1440.png", fullPage: true });
     await page.getByTestId("replay").screenshot({ path: "tests/artifacts/workspace-replay-1440.png" });
     await page.setViewportSize({ width: 834, height: 1112 });
     await page.waitForTimeout(300);
     await page.screenshot({ path: "tests/artifacts/workspace-run-view-tablet.png", fullPage: true });
     await page.getByTestId("replay").screenshot({ path: "tests/artifacts/workspace-replay-tablet.png" });
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(1);
+    await unstick.evaluate((el) => (el as Element).remove());
+    await page.setViewportSize({ width: 1440, height: 900 });
 
     // Save = start the same scenario on the server; it opens when done, and again after a reload.
     await page.getByTestId("save-run").click();
