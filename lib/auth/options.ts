@@ -37,6 +37,19 @@ export function getAuthOptions(): NextAuthOptions {
         },
       }),
     ],
+    events: {
+      // A JWT cannot be recalled, so signing out moves the account's session version on: the token just
+      // cleared from this browser (and any copy of it) stops working at its next request. Like a password
+      // change, this ends the account's other sessions too.
+      async signOut({ token }) {
+        const uid = Number(token?.uid);
+        const sv = Number(token?.sv);
+        if (!Number.isInteger(uid) || !Number.isInteger(sv)) return;
+        const { getModels } = await import("@/models");
+        const { User } = getModels();
+        await User.update({ sessionVersion: sv + 1 }, { where: { id: uid, sessionVersion: sv } });
+      },
+    },
     callbacks: {
       async jwt({ token, user }) {
         if (user) {
