@@ -2,6 +2,7 @@ import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
 import { getJobPool, type Slot } from "@/lib/jobs/pool";
+import { isDbConnectionError } from "@/lib/db/health";
 import type { SimulationOutcome, WorkerMessage } from "@/lib/jobs/protocol";
 import { runConfig } from "./config";
 import { ACTIVE_RUN_STATUSES, type RunStatus } from "./status";
@@ -87,6 +88,26 @@ async function storeOutcome(runId: number, outcome: SimulationOutcome): Promise<
   });
 }
 
+/** How long a finished run keeps trying to store its outcome while the database is unreachable. */
+const FINAL_WRITE_RETRY_MS = 5 * 60_000;
+
+/**
+ * The outcome exists only in this process's memory: when the database is briefly gone (restarting,
+ * failing over) keep trying instead of leaving the run queued/running for good. Other errors throw.
+ */
+async function persistFinal(write: () => Promise<unknown>): Promise<void> {
+  const deadline = Date.now() + FINAL_WRITE_RETRY_MS;
+  for (let wait = 250; ; wait = Math.min(wait * 2, 5_000)) {
+    try {
+      await write();
+      return;
+    } catch (err) {
+      if (!isDbConnectionError(err) || Date.now() > deadline) throw err;
+      await new Promise((r) => setTimeout(r, wait));
+    }
+  }
+}
+
 /**
  * Runs a queued run in the job pool and records every step: running (when a worker picks it up),
  * progress (throttled), then done / failed / cancelled. Resolves when the run's row is final.
@@ -123,28 +144,32 @@ export function dispatchRun(run: Pick<Run, "id" | "inputs">, solver: SolverSetti
         { signal: controller.signal, onMessage },
       );
       await writes;
-      await storeOutcome(run.id, outcome);
+      await persistFinal(() => storeOutcome(run.id, outcome));
     } catch (err) {
       await writes;
       const reason = controller.signal.aborted ? (controller.signal.reason as AbortReason) : null;
       if (reason === "cancel") {
-        await updateActive(run.id, { status: "cancelled", finishedAt: new Date() });
+        await persistFinal(() => updateActive(run.id, { status: "cancelled", finishedAt: new Date() }));
       } else if (reason === "budget") {
-        await updateActive(run.id, {
-          status: "failed",
-          error: `The run exceeded its time budget of ${solver.budgetSeconds} s and was stopped.`,
-          errorCode: "budget",
-          finishedAt: new Date(),
-        });
+        await persistFinal(() =>
+          updateActive(run.id, {
+            status: "failed",
+            error: `The run exceeded its time budget of ${solver.budgetSeconds} s and was stopped.`,
+            errorCode: "budget",
+            finishedAt: new Date(),
+          }),
+        );
       } else {
         const message = err instanceof Error ? err.message : String(err);
         console.error(`run ${run.id}: job failed`, err);
-        await updateActive(run.id, {
-          status: "failed",
-          error: `The run's worker stopped unexpectedly: ${message}`,
-          errorCode: "worker-error",
-          finishedAt: new Date(),
-        });
+        await persistFinal(() =>
+          updateActive(run.id, {
+            status: "failed",
+            error: `The run's worker stopped unexpectedly: ${message}`,
+            errorCode: "worker-error",
+            finishedAt: new Date(),
+          }),
+        );
       }
     } finally {
       if (budgetTimer) clearTimeout(budgetTimer);
