@@ -15,17 +15,17 @@ interface Params {
   guideFriction: number;
 }
 interface Headline {
-  peakTension: number;
-  snatchFactor: number;
-  takeUpMaxRise: number;
-  takeUpMaxDrop: number;
-  minSafetyFactor: number;
-  takeUpMargin: number;
+  peakTension: number | null;
+  snatchFactor: number | null;
+  takeUpMaxRise: number | null;
+  takeUpMaxDrop: number | null;
+  minSafetyFactor: number | null;
+  takeUpMargin: number | null;
 }
 interface Fit {
   initial: Params;
   fitted: Params;
-  quality: { initial: { rms: number; rSquared: number; samples: number }; fitted: { rms: number; rSquared: number; samples: number } };
+  quality: { initial: { rms: number | null; rSquared: number | null; samples: number }; fitted: { rms: number | null; rSquared: number | null; samples: number } };
   headline: { initial: Headline; fitted: Headline };
   evaluations: number;
   converged: boolean;
@@ -41,6 +41,9 @@ const ROWS: [keyof Headline, string, (v: number) => string][] = [
   ["minSafetyFactor", "Lowest safety factor", (v) => v.toFixed(2)],
   ["takeUpMargin", "Take-up travel margin", (v) => `${(v * 1000).toFixed(0)} mm`],
 ];
+
+/** A figure the run did not produce (null in JSON) shows as a dash. */
+const shown = (v: number | null, f: (v: number) => string) => (v === null || !Number.isFinite(v) ? "—" : f(v));
 
 export function CalibrationPanel({
   recordingId,
@@ -140,17 +143,17 @@ export function CalibrationPanel({
                 <Tr>
                   <Td>Fit: RMS residual / R²</Td>
                   <Td>
-                    {(fit.quality.initial.rms * 1000).toFixed(2)} mm / {fit.quality.initial.rSquared.toFixed(3)}
+                    {shown(fit.quality.initial.rms, (v) => (v * 1000).toFixed(2))} mm / {shown(fit.quality.initial.rSquared, (v) => v.toFixed(3))}
                   </Td>
                   <Td>
-                    {(fit.quality.fitted.rms * 1000).toFixed(2)} mm / {fit.quality.fitted.rSquared.toFixed(3)}
+                    {shown(fit.quality.fitted.rms, (v) => (v * 1000).toFixed(2))} mm / {shown(fit.quality.fitted.rSquared, (v) => v.toFixed(3))}
                   </Td>
                 </Tr>
                 {ROWS.map(([k, label, f]) => (
                   <Tr key={k}>
                     <Td>{label}</Td>
-                    <Td>{f(fit.headline.initial[k])}</Td>
-                    <Td>{f(fit.headline.fitted[k])}</Td>
+                    <Td>{shown(fit.headline.initial[k], f)}</Td>
+                    <Td>{shown(fit.headline.fitted[k], f)}</Td>
                   </Tr>
                 ))}
               </tbody>

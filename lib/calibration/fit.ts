@@ -38,7 +38,8 @@ export interface CalibrationParams {
 
 export interface HeadlineFigures {
   peakTension: number;
-  snatchFactor: number;
+  /** Null when the run has no steady climb to compare with. */
+  snatchFactor: number | null;
   takeUpMaxRise: number;
   takeUpMaxDrop: number;
   minSafetyFactor: number;
@@ -110,7 +111,7 @@ function evaluate(base: Scenario, rec: RecordedTrace, p: CalibrationParams, o: R
     times,
     headline: {
       peakTension: r.summary.peakTension,
-      snatchFactor: r.summary.snatchFactor ?? Number.NaN,
+      snatchFactor: r.summary.snatchFactor ?? null,
       takeUpMaxRise: r.summary.takeUpMaxRise,
       takeUpMaxDrop: r.summary.takeUpMaxDrop,
       minSafetyFactor: r.summary.minSafetyFactor,
