@@ -7,7 +7,7 @@ import type { StudyView } from "@/lib/studies/service";
 import { Badge } from "@/components/ui/Badge";
 import { Button, buttonClass } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-import { SafetyNote } from "@/components/ui/SafetyNote";
+import { SAFETY_CAUTION } from "@/components/ui/SafetyNote";
 import { ReportPanel } from "@/components/report/ReportPanel";
 import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
 import { StudyLinePlots, StudyMap } from "./StudyCharts";
@@ -132,7 +132,8 @@ export function StudyDetail({
           <p className="text-[15px] font-semibold text-ink-900" data-testid="study-window">
             {study.window?.text}
           </p>
-          <SafetyNote className="mt-2" />
+          {/* The page footer carries the caution too; here it stands beside the window itself. */}
+          <p className="mt-2 text-[12.5px] text-steel-500">{SAFETY_CAUTION}</p>
         </CardBody>
       </Card>
 

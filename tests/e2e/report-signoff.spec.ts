@@ -35,7 +35,7 @@ async function finishedRun(api: APIRequestContext, name: string) {
   let run: { status: string; summary: Record<string, number>; version: number } | undefined;
   await expect
     .poll(async () => {
-      run = (await (await api.get(`/api/runs/${runId}`)).json()).run;
+      run = await (await api.get(`/api/runs/${runId}`)).json(); // the run itself
       return run!.status;
     }, { timeout: 30_000 })
     .toBe("done");
@@ -66,11 +66,11 @@ test("engineer submits, the author may not approve, the reviewer approves and th
   expect(body.status).toBe("approved");
   expect(body.contentHash).toMatch(/^[0-9a-f]{64}$/);
 
-  const scenario = (await (await engineer.get(`/api/scenarios/${scenarioId}`)).json()).scenario;
+  const scenario = await (await engineer.get(`/api/scenarios/${scenarioId}`)).json(); // the scenario itself
   const edit = await engineer.patch(`/api/scenarios/${scenarioId}`, { data: { version: scenario.version, name: "Renamed after approval" } });
   expect(edit.status()).toBe(409);
   expect((await edit.json()).error).toMatch(/frozen/i);
-  const fresh = (await (await engineer.get(`/api/runs/${runId}`)).json()).run;
+  const fresh = await (await engineer.get(`/api/runs/${runId}`)).json();
   const del = await engineer.delete(`/api/runs/${runId}?version=${fresh.version}`);
   expect(del.status()).toBe(409);
   expect((await del.json()).error).toMatch(/frozen/);

@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/ui/PageHeader";
-import { SafetyNote } from "@/components/ui/SafetyNote";
 import { StudyList } from "@/components/study/StudyList";
 import { pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
@@ -17,7 +16,6 @@ export default async function StudiesPage() {
         description="Many runs of one scenario with one or two inputs varied: the window the lift can be operated in, and a design check to sign off."
       />
       <StudyList units={user.units} canRun={can(user.role, "study:run")} />
-      <SafetyNote className="mt-4" />
     </>
   );
 }
