@@ -87,3 +87,14 @@ test.describe("workspace: lifts", () => {
     await expect(page.locator("#f-lift-angle")).toBeDisabled();
   });
 });
+
+test("the dashboard lists recent runs with their headline figures and failed checks", async ({ page }) => {
+  await signInUi(page, demoAccount("engineer").email);
+  const recent = page.getByTestId("recent-runs");
+  await expect(recent.getByTestId("recent-run").first()).toBeVisible();
+  await expect(recent).toContainText(/peak [\d.]+ kN/);
+  await expect(recent).toContainText("Fails:");
+  await recent.getByRole("link").first().click();
+  await expect(page).toHaveURL(/\/runs\/\d+/);
+  await expect(page.getByTestId("saved-run")).toBeVisible();
+});

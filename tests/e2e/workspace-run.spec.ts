@@ -62,7 +62,7 @@ test.describe("workspace: run view", () => {
     await expect(page.getByTestId("replay-speed")).toHaveValue("2");
     await page.getByTestId("event-ard").first().click();
     // Screenshots without the sticky top bar, which would otherwise cover element shots.
-    const unstick = await page.addStyleTag({ content: "header.sticky { position: static !important; }" });
+    const unstick = await page.addStyleTag({ content: "header.sticky, aside.sticky { position: static !important; }" });
     await page.screenshot({ path: "tests/artifacts/workspace-run-view-1440.png", fullPage: true });
     await page.getByTestId("replay").screenshot({ path: "tests/artifacts/workspace-replay-1440.png" });
     await page.setViewportSize({ width: 834, height: 1112 });

@@ -9,6 +9,7 @@ import { can, type Action } from "@/lib/auth/permissions";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { AlertsPanel } from "@/components/logbook/AlertsPanel";
 import { openAlerts } from "@/lib/alerts/notify";
+import { RecentRuns } from "@/components/dashboard/RecentRuns";
 
 export const metadata: Metadata = { title: "Overview" };
 
@@ -35,6 +36,11 @@ export default async function DashboardPage() {
       <div className="mb-5">
         <AlertsPanel alerts={alerts} />
       </div>
+      {can(user.role, "run:read") && (
+        <div className="mb-5">
+          <RecentRuns organisationId={user.organisationId} units={user.units} />
+        </div>
+      )}
       <div className="grid gap-5 lg:grid-cols-3">
         <Card className="lg:col-span-2">
           <CardHeader title="What is coming" description="The areas below open as each part of Tautline lands." />
