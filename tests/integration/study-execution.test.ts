@@ -132,6 +132,45 @@ describe("a 22-case study through both execution modes", () => {
   });
 });
 
+describe("per-organisation limits in the queue mode", () => {
+  it("never runs more of one organisation's jobs at once than JOB_ORG_CONCURRENCY, with two workers", async () => {
+    process.env.REDIS_URL = process.env.TEST_REDIS_URL;
+    process.env.JOB_ORG_CONCURRENCY = "1";
+    // Two engine threads, so two jobs could run at once if the limit let them.
+    await closeJobPool();
+    process.env.JOB_WORKERS = "2";
+    const workers: QueueWorker[] = [];
+    let peak = 0;
+    let sampling = true;
+    try {
+      workers.push(startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob }), startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob }));
+      const { scenarioId } = await studyScenario(engineer, "Study: organisation limit");
+      const created = await createStudy(engineer, { scenarioId, name: "Limited", parameters: [{ key: "takeUpMass", values: [4000, 4500, 5000, 5500, 6000] }] });
+      const { Run, StudyCase } = getModels();
+      const sampler = (async () => {
+        while (sampling) {
+          const ids = (await StudyCase.findAll({ where: { studyId: created.id }, attributes: ["runId"] })).map((c) => c.runId!).filter(Boolean);
+          peak = Math.max(peak, await Run.count({ where: { id: ids, status: "running" } }));
+          await new Promise((r) => setTimeout(r, 20));
+        }
+      })();
+      const done = await waitForStudy(engineer, created.id, finishedStudy);
+      sampling = false;
+      await sampler;
+      expect(done.casesDone).toBe(5);
+      expect(peak).toBeLessThanOrEqual(1);
+    } finally {
+      sampling = false;
+      delete process.env.REDIS_URL;
+      delete process.env.JOB_ORG_CONCURRENCY;
+      for (const w of workers) await w.close();
+      await closeRunQueue();
+      delete process.env.JOB_WORKERS;
+      await closeJobPool();
+    }
+  });
+});
+
 describe("cancel and resume", () => {
   it("cancels a study, keeps its finished cases, and resumes the rest", async () => {
     const { scenarioId } = await studyScenario(engineer, "Study: cancel and resume");
