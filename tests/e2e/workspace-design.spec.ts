@@ -5,6 +5,7 @@ import { signInUi } from "./support/auth";
 // The design screens against the seeded demo park (real Chromium, real MariaDB).
 test.describe("workspace: lifts", () => {
   test("an engineer sees a validation error, then saves a valid change as a new revision", async ({ page }) => {
+    await page.setViewportSize({ width: 1440, height: 900 });
     await signInUi(page, demoAccount("engineer").email);
     await page.goto("/lifts");
     const table = page.getByTestId("lift-table");
