@@ -3,6 +3,10 @@ import { GetObjectCommand, PutObjectCommand, DeleteObjectCommand, S3Client } fro
 import { unavailable } from "@/lib/http/errors";
 import { storageConfig, type StorageConfig } from "./config";
 
+// The SDK warns on Node 20 that releases after January 2027 will need Node 22. The project pins its SDK
+// version (package.json) and runs on Node 20, so the notice is noise in every log; silence it once.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
+
 const globalForS3 = globalThis as unknown as { tautlineS3?: { key: string; client: S3Client; config: StorageConfig } };
 
 function s3(): { client: S3Client; config: StorageConfig } {
