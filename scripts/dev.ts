@@ -1,5 +1,6 @@
-// npm run dev: the private demo MariaDB (migrated, seeded) and the mail fake, then `next dev`.
+// npm run dev: the S3 fake, the private demo MariaDB (migrated, seeded) and the mail fake, then `next dev`.
 import { Lifecycle } from "./lib/lifecycle";
+import { bringUpS3Fake } from "./lib/s3";
 import { bringUpDatabase, bringUpMailFake, demoSignInHint, nextBin } from "./lib/stack";
 import { demoStack, repoRoot, stackEnv } from "./lib/settings";
 import { errorMessage, say } from "./lib/log";
@@ -9,6 +10,8 @@ async function main(): Promise<number> {
   life.watchLauncher();
   try {
     const stack = demoStack();
+    // The seed stores demo photos and recordings in object storage, so the fake comes first.
+    await bringUpS3Fake(stack, life);
     await bringUpDatabase(stack, life);
     await bringUpMailFake(stack, life);
     if (life.interrupted) return 130;
