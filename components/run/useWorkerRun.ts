@@ -18,6 +18,8 @@ export function useWorkerRun() {
   const seq = useRef(0);
   const pending = useRef<{ scenario: Scenario; startedAt: number } | null>(null);
   const previewInFlight = useRef(false);
+  /** Sequence number of the latest full run: a preview asked for before it must not cover its result. */
+  const lastFull = useRef(0);
   const set = useRunStore((s) => s.set);
 
   useEffect(
@@ -34,6 +36,8 @@ export function useWorkerRun() {
       const w = newWorker();
       full.current = w;
       const id = ++seq.current;
+      lastFull.current = id;
+      pending.current = null;
       set({ status: "running", progress: 0, error: null, progressEvents: 0 });
       let events = 0;
       return new Promise((resolve) => {
@@ -83,7 +87,10 @@ export function useWorkerRun() {
           const m = e.data;
           if (m.id !== id) return;
           previewInFlight.current = false;
-          if (m.type === "done")
+          // A full run started since: keep its result on screen, but still record how long the preview took.
+          if (lastFull.current > id)
+            set({ previewBusy: !!pending.current, ...(m.type === "done" ? { previewLatencyMs: performance.now() - job.startedAt } : {}) });
+          else if (m.type === "done")
             set({ preview: { ...m.data, origin: "preview" }, previewLatencyMs: performance.now() - job.startedAt, previewBusy: !!pending.current });
           else if (m.type === "error") set({ error: m.message, previewBusy: !!pending.current });
           pump();
