@@ -110,8 +110,26 @@ function takeLock(stack: Stack, life: Lifecycle): void {
   life.onStop("test lock", async () => fs.rmSync(lock, { force: true }));
 }
 
+/**
+ * `--only fuzz` (npm run test:fuzz): database, build and the full malformed-request corpus only. The
+ * short corpus, the database fault test and a short load run follow the e2e step in every full run.
+ */
+function fuzzOnly(argv: string[]): boolean {
+  const named = argv.flatMap((a, i) => (a === "--only" ? (argv[i + 1] ?? "").split(",") : a.startsWith("--only=") ? a.slice(7).split(",") : []));
+  if (!named.includes("fuzz")) return false;
+  if (named.some((n) => n.trim() && n.trim() !== "fuzz")) throw new Error("--only fuzz runs alone (npm run test:fuzz)");
+  return true;
+}
+
+/** A script that checks one thing and exits 0 when it holds: counted as one test. */
+async function scriptStep(life: Lifecycle, env: NodeJS.ProcessEnv, file: string, args: string[] = []) {
+  const code = await life.run(process.execPath, [path.join(repoRoot, "node_modules", "tsx", "dist", "cli.mjs"), file, ...args], { cwd: repoRoot, env });
+  return { ok: code === 0, detail: code === 0 ? "" : `exit ${code}`, counts: code === 0 ? { passed: 1, failed: 0 } : { passed: 0, failed: 1 } };
+}
+
 async function main(): Promise<boolean> {
-  const parts = parseParts(process.argv.slice(2));
+  const onlyFuzz = fuzzOnly(process.argv.slice(2));
+  const parts = onlyFuzz ? new Set<Part>(["e2e"]) : parseParts(process.argv.slice(2));
   const life = new Lifecycle();
   life.watchLauncher();
   const h = new Harness();
@@ -215,7 +233,7 @@ async function main(): Promise<boolean> {
             });
         if (!built) {
           h.skip("playwright e2e", "the build failed");
-        } else if (!life.interrupted) {
+        } else if (!life.interrupted && !onlyFuzz) {
           await h.step("playwright e2e", async () => {
             fs.rmSync(playwrightJson, { force: true });
             const code = await life.run(
@@ -227,6 +245,38 @@ async function main(): Promise<boolean> {
             if (!counts) return { ok: false, detail: `playwright exited ${code} without a report` };
             return { ok: code === 0 && counts.failed === 0, detail: `${counts.passed} passed, ${counts.failed} failed`, counts };
           });
+        }
+        if (built && !life.interrupted) {
+          const fuzzJson = path.join(artifacts, "playwright-fuzz.json");
+          await h.step(onlyFuzz ? "malformed-request corpus (full)" : "malformed-request corpus (short)", async () => {
+            fs.rmSync(fuzzJson, { force: true });
+            const code = await life.run(
+              process.execPath,
+              [path.join(repoRoot, "node_modules", "@playwright", "test", "cli.js"), "test", "-c", "tests/fuzz/playwright.config.ts"],
+              { cwd: repoRoot, env: { ...env, PLAYWRIGHT_JSON_OUTPUT_FILE: fuzzJson, FUZZ_FULL: onlyFuzz ? "1" : "0" } },
+            );
+            const counts = readPlaywrightCounts(fuzzJson);
+            if (!counts) return { ok: false, detail: `playwright exited ${code} without a report` };
+            return { ok: code === 0 && counts.failed === 0, detail: `${counts.passed} passed, ${counts.failed} failed`, counts };
+          });
+        }
+        if (built && !onlyFuzz && !life.interrupted) {
+          // Own MariaDB and server on their own ports: the kill never touches the shared test database.
+          // Ports follow the test ports (+20, +30), so two checkouts with different TEST_* ports never collide.
+          const faultEnv = {
+            ...env,
+            FAULT_DB_PORT: process.env.FAULT_DB_PORT ?? String(stack.db.port + 20),
+            FAULT_APP_PORT: process.env.FAULT_APP_PORT ?? String(stack.appPort + 20),
+          };
+          await h.step("database kill during writes (own MariaDB)", () => scriptStep(life, faultEnv, "tests/reliability/db-fault.ts"));
+        }
+        if (built && !onlyFuzz && !life.interrupted) {
+          const loadEnv = {
+            ...env,
+            LOAD_DB_PORT: process.env.LOAD_DB_PORT ?? String(stack.db.port + 30),
+            LOAD_APP_PORT: process.env.LOAD_APP_PORT ?? String(stack.appPort + 30),
+          };
+          await h.step("load, short form (own MariaDB)", () => scriptStep(life, loadEnv, "scripts/load.ts", ["--short"]));
         }
       }
     }

@@ -19,7 +19,8 @@ export const STATIC_SECURITY_HEADERS: Header[] = [
 ];
 
 /** API answers are data, never documents: nothing in them may run or be framed. */
-export const API_CSP = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
+// (next.config.ts headers replace a route's own CSP, so this one includes the downloads' sandbox.)
+export const API_CSP = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'; sandbox";
 
 /**
  * The page policy: scripts only with this request's nonce (plus what they load, 'strict-dynamic'), no

@@ -25,10 +25,13 @@ export const sessionUpdateSchema = z.object({
   items: z.array(itemSchema).max(30).optional(),
 });
 
-export const shareSchema = z.object({
-  /** Extra people of the organisation to invite by e-mail (viewers are always told). */
-  invite: z.array(z.email()).max(50).optional(),
-});
+export const shareSchema = z
+  .object({
+    /** Extra people of the organisation to invite by e-mail (viewers are always told). */
+    invite: z.array(z.email()).max(50).optional(),
+  })
+  // Unknown fields are refused: every field is optional, so a mistyped one would otherwise share silently.
+  .strict();
 
 export const viewSchema = z.object({
   itemId: z.number().int().positive(),

@@ -1,3 +1,5 @@
+import fs from "node:fs";
+import path from "node:path";
 import { expect, request as playwrightRequest, test, type APIRequestContext } from "@playwright/test";
 import { DEMO_ACCOUNTS, DEMO_ORGANISATIONS } from "@/lib/auth/demo-accounts";
 import { API_ROUTES, type RowSource } from "@/lib/auth/route-access";
@@ -27,9 +29,22 @@ const admin = DEMO_ACCOUNTS.find((a) => a.organisation === park && a.role === "a
 let api: APIRequestContext;
 let parkOrgId = 0;
 let inputKeys = new Set<string>();
-let before = new Map<string, number>();
-const stats = { sent: 0, byStatus: new Map<number, number>(), routes: 0 };
-const failures: string[] = [];
+// Playwright starts a new worker after a failed test (module state is lost), so the counts taken first
+// and the tallies of every route test live in a file that the last test reads.
+const STATE = path.join(process.cwd(), "tests", "artifacts", `fuzz-state-${process.env.TEST_APP_PORT ?? "3100"}.json`);
+interface State {
+  before: Record<string, number>;
+  sent: number;
+  routes: number;
+  byStatus: Record<string, number>;
+}
+const readState = (): State => JSON.parse(fs.readFileSync(STATE, "utf8")) as State;
+const writeState = (s: State) => {
+  fs.mkdirSync(path.dirname(STATE), { recursive: true });
+  fs.writeFileSync(STATE, JSON.stringify(s));
+};
+let stats = { sent: 0, byStatus: new Map<number, number>() };
+let failures: string[] = [];
 
 async function countRows(): Promise<Map<string, number>> {
   const tables = await query<{ t: string }>(
@@ -138,8 +153,9 @@ test.afterAll(async () => {
 });
 
 test("row counts before the corpus", async () => {
-  before = await countRows();
+  const before = await countRows();
   expect(before.size).toBeGreaterThan(5);
+  writeState({ before: Object.fromEntries(before), sent: 0, routes: 0, byStatus: {} });
 });
 
 for (const route of discoverRoutes()) {
@@ -147,7 +163,8 @@ for (const route of discoverRoutes()) {
   if (!writes.length || route.skipProbe) continue;
   test(`malformed requests: ${route.pattern}`, async () => {
     test.setTimeout(FULL ? 300_000 : 90_000);
-    stats.routes += 1;
+    stats = { sent: 0, byStatus: new Map() };
+    failures = [];
     const refusalsOnly = API_ROUTES[route.pattern]?.refusalsOnly ?? [];
     const url = await concrete(route.pattern, route.rows);
     const cases: FuzzCase[] = [];
@@ -167,17 +184,21 @@ for (const route of discoverRoutes()) {
       }
     }
     await sendAll(cases);
+    const state = readState();
+    state.sent += stats.sent;
+    state.routes += 1;
+    for (const [st, n] of stats.byStatus) state.byStatus[st] = (state.byStatus[st] ?? 0) + n;
+    writeState(state);
     expect(failures, failures.slice(0, 40).join("\n")).toEqual([]);
   });
 }
 
 test("nothing was written, the server still answers, and the corpus was big enough", async () => {
   const after = await countRows();
-  const changed = [...after].filter(([t, n]) => before.get(t) !== n).map(([t, n]) => `${t}: ${before.get(t)} → ${n}`);
-  const summary = `${stats.sent} malformed requests over ${stats.routes} write routes (seed ${SEED}); answers: ${[...stats.byStatus]
-    .sort((a, b) => a[0] - b[0])
-    .map(([s, n]) => `${s}×${n}`)
-    .join(", ")}`;
+  const state = readState();
+  const changed = [...after].filter(([t, n]) => state.before[t] !== n).map(([t, n]) => `${t}: ${state.before[t]} → ${n}`);
+  const statuses = Object.entries(state.byStatus).sort((a, b) => Number(a[0]) - Number(b[0]));
+  const summary = `${state.sent} malformed requests over ${state.routes} write routes (seed ${SEED}); answers: ${statuses.map(([s, n]) => `${s}×${n}`).join(", ")}`;
   console.log(`[fuzz] ${summary}`);
   test.info().annotations.push({ type: "fuzz", description: summary });
   expect(changed, "tables whose row count changed").toEqual([]);
@@ -186,6 +207,6 @@ test("nothing was written, the server still answers, and the corpus was big enou
   const anon = await playwrightRequest.newContext({ baseURL });
   expect((await anon.get("/sign-in")).status()).toBe(200);
   await anon.dispose();
-  expect(stats.sent).toBeGreaterThanOrEqual(FULL ? 1000 : 300);
-  expect([...stats.byStatus.keys()].filter((s) => s >= 500)).toEqual([]);
+  expect(state.sent).toBeGreaterThanOrEqual(FULL ? 1000 : 300);
+  expect(statuses.filter(([s]) => Number(s) >= 500)).toEqual([]);
 });
