@@ -31,7 +31,7 @@ interface Figures {
 
 function percentile(sorted: number[], p: number): number {
   if (!sorted.length) return 0;
-  return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
+  return Math.round(sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] * 10) / 10;
 }
 
 async function hammer(url: string, cookie: string, name: string, paths: string[], connections: number, seconds: number): Promise<Figures> {
@@ -58,7 +58,7 @@ async function hammer(url: string, cookie: string, name: string, paths: string[]
     p50: percentile(times, 50),
     p95: percentile(times, 95),
     p99: percentile(times, 99),
-    max: times[times.length - 1] ?? 0,
+    max: Math.round((times[times.length - 1] ?? 0) * 10) / 10,
     errors: non2xx + result.errors + result.timeouts,
     statuses,
   };
