@@ -26,7 +26,7 @@ export interface PrivateStack {
 
 export async function startPrivateStack(dbPort: number, appPort: number, extraEnv: Record<string, string> = {}): Promise<PrivateStack> {
   for (const port of [dbPort, appPort]) {
-    if (await portInUse(port)) throw new Error(`port ${port} is in use: free it or pick another (FAULT_DB_PORT / FAULT_APP_PORT)`);
+    if (await portInUse(port)) throw new Error(`port ${port} is in use: free it or pick another (FAULT_DB_PORT / FAULT_APP_PORT, LOAD_DB_PORT / LOAD_APP_PORT)`);
   }
   const dataDir = path.join(repoRoot, ".data", `fault-${dbPort}`);
   const paths = instancePaths(dataDir);
