@@ -140,6 +140,15 @@ export function storedSecret(file: string): string {
 }
 
 /** Environment for Next, vitest and Playwright: the stack's settings over the caller's environment. */
+/**
+ * The seed runs inside this process and stores the demo park's files through lib/storage, which reads
+ * its settings from the environment: point them at this stack's S3 fake first.
+ */
+export function useStorageOf(s: Stack): void {
+  process.env.S3_ENDPOINT = s.s3Endpoint;
+  process.env.S3_BUCKET = s.s3Bucket;
+}
+
 export function stackEnv(s: Stack, base: Env = process.env): NodeJS.ProcessEnv {
   const env: Env = {
     ...base,

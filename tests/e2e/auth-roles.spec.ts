@@ -34,7 +34,9 @@ for (const account of park) {
     await signInUi(page, account.email);
     await expect(page.getByTestId("user-role")).toHaveText(ROLE_LABELS[account.role]);
     await expect(page.getByTestId("organisation-name")).toHaveText(DEMO_ORGANISATIONS.park.name);
-    await expect(page.getByTestId("safety-caution")).toHaveText(SAFETY_CAUTION);
+    // The footer carries the caution on every page; results views may repeat it beside their figures.
+    const footerCaution = page.getByRole("contentinfo").getByTestId("safety-caution");
+    await expect(footerCaution).toHaveText(SAFETY_CAUTION);
 
     const nav = page.getByTestId("main-nav").first();
     const expected = NAV_ITEMS.filter((i) => !i.action || can(account.role, i.action)).map((i) => i.label);
@@ -46,7 +48,7 @@ for (const account of park) {
       await nav.getByRole("link", { name: item.label, exact: true }).click();
       await page.waitForURL(`**${item.href}`);
       await expect(page.getByTestId("page-title")).toBeVisible();
-      await expect(page.getByTestId("safety-caution")).toBeVisible();
+      await expect(footerCaution).toBeVisible();
     }
 
     // The people page itself answers only administrators.
