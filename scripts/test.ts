@@ -15,7 +15,7 @@ import { bringUpS3Fake } from "./lib/s3";
 import { bringUpRedis } from "./lib/redis";
 import { destroyDatabase, instancePaths, portInUse, startDatabase } from "./lib/mariadb";
 import { hasBuild, nextBin } from "./lib/stack";
-import { repoRoot, stackEnv, testStack, useStorageOf, type Stack } from "./lib/settings";
+import { repoRoot, stackEnv, testStack, pointStorageAt, type Stack } from "./lib/settings";
 import { errorMessage, say, warn } from "./lib/log";
 import { parseParts, readPlaywrightCounts, readVitestCounts, VITEST_DIRS, type Counts, type Part } from "./lib/test-parts";
 
@@ -181,7 +181,7 @@ async function main(): Promise<boolean> {
         schemaOk =
           schemaOk &&
           (await h.step("seed", async () => {
-            useStorageOf(stack);
+            pointStorageAt(stack);
             const steps = await runSeeds(sequelize);
             return { ok: true, detail: `${steps.length} step(s)` };
           }));

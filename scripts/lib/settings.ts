@@ -144,7 +144,7 @@ export function storedSecret(file: string): string {
  * The seed runs inside this process and stores the demo park's files through lib/storage, which reads
  * its settings from the environment: point them at this stack's S3 fake first.
  */
-export function useStorageOf(s: Stack): void {
+export function pointStorageAt(s: Stack): void {
   process.env.S3_ENDPOINT = s.s3Endpoint;
   process.env.S3_BUCKET = s.s3Bucket;
 }

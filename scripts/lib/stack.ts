@@ -7,7 +7,7 @@ import { runSeeds } from "../../lib/db/seed";
 import type { Lifecycle } from "./lifecycle";
 import { startMailFakeIfPresent } from "./mail";
 import { ensureMariadbInstalled, startDatabase, stopDatabase, type RunningDb } from "./mariadb";
-import { repoRoot, useStorageOf, type Stack } from "./settings";
+import { repoRoot, pointStorageAt, type Stack } from "./settings";
 import { say, warn } from "./log";
 
 export const nextBin = path.join(repoRoot, "node_modules", "next", "dist", "bin", "next");
@@ -27,7 +27,7 @@ export async function bringUpDatabase(stack: Stack, life: Lifecycle): Promise<Ru
     await checkDatabase(sequelize, stack.db);
     const applied = await migrateUp(sequelize, say);
     say(applied.length ? `applied ${applied.length} migration(s)` : "database schema is up to date");
-    useStorageOf(stack);
+    pointStorageAt(stack);
     await runSeeds(sequelize, say);
   } finally {
     await sequelize.close();
