@@ -37,7 +37,10 @@ test("a trainer builds a session with two captions and a viewer watches it", asy
   await expect(viewer.getByTestId("caption-list").locator("li")).toHaveCount(2);
   await expect(viewer.getByTestId("caption")).toContainText("Captions appear here");
   await expect(viewer.getByTestId("replay-play")).toBeVisible({ timeout: 15_000 });
+  // Jumping 3 s in reports the viewer's progress to the server.
+  const viewed = viewer.waitForResponse((r) => r.url().endsWith(`/api/training/sessions/${sessionId}/views`) && r.request().method() === "POST");
   await viewer.getByRole("button", { name: "3.0 s" }).click();
+  expect((await viewed).ok()).toBe(true);
   await expect(viewer.getByTestId("caption")).toHaveText("Watch the counterweight drop here.");
   await viewer.getByRole("button", { name: "1.0 s" }).click();
   await expect(viewer.getByTestId("caption")).toHaveText("The drive starts: the chain tightens.");
@@ -49,10 +52,13 @@ test("a trainer builds a session with two captions and a viewer watches it", asy
   const stranger = await apiAs("viewer@cardlevane.example");
   expect((await stranger.get(`/api/training/sessions/${sessionId}`)).status()).toBe(404);
 
+  // The trainer's "Who watched what" reloads on Refresh; read it once its answer has arrived.
   await expect
     .poll(async () => {
-      await trainer.reload();
+      const answer = trainer.waitForResponse((r) => r.url().endsWith(`/api/training/sessions/${sessionId}/views`) && r.request().method() === "GET");
+      await trainer.getByRole("button", { name: "Refresh" }).click();
+      await answer;
       return trainer.getByTestId("session-builder").textContent();
-    }, { timeout: 10_000 })
+    }, { timeout: 15_000 })
     .toContain("Joss Wrenfield");
 });
