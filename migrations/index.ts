@@ -11,11 +11,13 @@ import * as m0014 from "./0014_create_audit_entries";
 import * as m0015 from "./0015_create_comments";
 import * as m0016 from "./0016_widen_scenario_names";
 import * as m0020 from "./0020_runs";
+import * as m0021 from "./0021_run_overrides";
 import * as m0030 from "./0030_studies";
 import * as m0031 from "./0031_reports";
 import * as m0040 from "./0040_logbook";
 import * as m0041 from "./0041_recordings";
 import * as m0042 from "./0042_training";
+import * as m0043 from "./0043_calibrations";
 
 export interface Migration {
   name: string;
@@ -38,9 +40,11 @@ export const migrations: Migration[] = [
   { name: "0015_create_comments", ...m0015 },
   { name: "0016_widen_scenario_names", ...m0016 },
   { name: "0020_runs", ...m0020 },
+  { name: "0021_run_overrides", ...m0021 },
   { name: "0030_studies", ...m0030 },
   { name: "0031_reports", ...m0031 },
   { name: "0040_logbook", ...m0040 },
   { name: "0041_recordings", ...m0041 },
   { name: "0042_training", ...m0042 },
+  { name: "0043_calibrations", ...m0043 },
 ];

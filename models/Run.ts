@@ -10,12 +10,14 @@ import {
 import type { Organisation } from "./Organisation";
 import type { User } from "./User";
 import { RUN_STATUSES, type RunStatus } from "@/lib/runs/status";
+import type { RunOverrideKey } from "@/lib/runs/schema";
 
 export { RUN_STATUSES, type RunStatus };
 
 /**
  * One run of the engine on a scenario. `inputs` is the full resolved engine scenario that was run and
- * `liftRevisionId` the revision it came from: both are fixed at start and never rewritten.
+ * `liftRevisionId` the revision it came from: both are fixed at start and never rewritten. A what-if run
+ * also keeps its `overrides` (already applied in `inputs`) and the scenario values they replaced.
  * `result` is the gzipped `tautline-result/1` blob (lib/runs/result-format.ts).
  */
 export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run>> {
@@ -28,6 +30,10 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
   declare startedBy: ForeignKey<User["id"]> | null;
   declare inputs: Record<string, unknown>;
   declare solver: Record<string, unknown>;
+  /** What-if values the run used instead of the scenario's (SI; null for a plain run). */
+  declare overrides: CreationOptional<Partial<Record<RunOverrideKey, number>> | null>;
+  /** The scenario's own values those overrides replaced, as they were when the run started. */
+  declare overridesFrom: CreationOptional<Partial<Record<RunOverrideKey, number>> | null>;
   declare summary: CreationOptional<Record<string, unknown> | null>;
   declare diagnostics: CreationOptional<Record<string, unknown> | null>;
   declare result: CreationOptional<Buffer | null>;
@@ -57,6 +63,8 @@ export function initRun(sequelize: Sequelize): typeof Run {
       startedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       inputs: { type: DataTypes.JSON, allowNull: false },
       solver: { type: DataTypes.JSON, allowNull: false },
+      overrides: { type: DataTypes.JSON, allowNull: true },
+      overridesFrom: { type: DataTypes.JSON, allowNull: true },
       summary: { type: DataTypes.JSON, allowNull: true },
       diagnostics: { type: DataTypes.JSON, allowNull: true },
       result: { type: DataTypes.BLOB("long"), allowNull: true },

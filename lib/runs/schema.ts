@@ -1,8 +1,34 @@
 import { z } from "zod";
-import { runSettingsSchema } from "@/sim/schema";
+import { driveSchema, runSettingsSchema, takeUpSchema, trainSchema } from "@/sim/schema";
 import { RUN_STATUSES } from "./status";
 
 const run = runSettingsSchema.shape;
+
+export const RUN_OVERRIDE_KEYS = ["entrySpeed", "chainSpeed", "takeUpMass"] as const;
+
+/**
+ * What-if values a run may put in place of its scenario's (SI): the run view's sliders. The bounds are the
+ * scenario format's own fields (train.entrySpeed, drive.speed, takeUp.mass), so a saved what-if can never
+ * hold a value the scenario itself could not.
+ */
+export const runOverridesSchema = z
+  .object(
+    {
+      entrySpeed: trainSchema.shape.entrySpeed.unwrap().optional(),
+      chainSpeed: driveSchema.shape.speed.optional(),
+      takeUpMass: takeUpSchema.shape.mass.optional(),
+    },
+    {
+      error: (iss) =>
+        iss.code === "unrecognized_keys"
+          ? `overrides takes only ${RUN_OVERRIDE_KEYS.join(", ")} (not ${iss.keys.join(", ")})`
+          : `overrides must be an object of ${RUN_OVERRIDE_KEYS.join(", ")}`,
+    },
+  )
+  .strict();
+
+export type RunOverrides = z.output<typeof runOverridesSchema>;
+export type RunOverrideKey = (typeof RUN_OVERRIDE_KEYS)[number];
 
 /**
  * Solver settings a run may override on top of its scenario's `run` section. The bounds are the
@@ -26,6 +52,7 @@ export const startRunSchema = z
       .gt(0, { error: "budgetSeconds must be greater than 0 (s)" })
       .max(600, { error: "budgetSeconds must be at most 600 (s)" })
       .optional(),
+    overrides: runOverridesSchema.optional(),
   })
   .strict();
 

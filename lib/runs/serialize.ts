@@ -1,4 +1,8 @@
 import type { Run } from "@/models/Run";
+import type { RunOverrideKey } from "./schema";
+
+/** What-if values by key (SI). */
+export type OverrideValues = Partial<Record<RunOverrideKey, number>>;
 
 /** A run as the API shows it (no result blob; the inputs only when asked for). */
 export interface RunView {
@@ -10,6 +14,10 @@ export interface RunView {
   progress: number;
   startedBy: number | null;
   solver: Record<string, unknown>;
+  /** What-if values the server ran instead of the scenario's (SI); null for a plain run of the scenario. */
+  overrides: OverrideValues | null;
+  /** The scenario's values those overrides replaced, as they were when the run started (SI). */
+  overridesFrom: OverrideValues | null;
   summary: Record<string, unknown> | null;
   diagnostics: Record<string, unknown> | null;
   resultFormat: string | null;
@@ -43,6 +51,8 @@ export function toRunView(run: Run, opts: { inputs?: boolean } = {}): RunView {
     progress: run.progress,
     startedBy: run.startedBy ?? null,
     solver: json(run.solver),
+    overrides: json(run.overrides ?? null),
+    overridesFrom: json(run.overridesFrom ?? null),
     summary: json(run.summary ?? null),
     diagnostics: json(run.diagnostics ?? null),
     resultFormat: run.resultFormat ?? null,

@@ -14,9 +14,10 @@ import { dispatchJob } from "@/lib/jobs/dispatch";
 import { assertRunNotFrozen } from "@/lib/review/freeze";
 import { RUNNER_ID } from "./runner-id";
 import { recoverOnce } from "./recover";
-import { RUN_SECTION_OVERRIDES, type ListRunsQuery, type StartRunInput } from "./schema";
+import { RUN_OVERRIDE_KEYS, RUN_SECTION_OVERRIDES, type ListRunsQuery, type StartRunInput } from "./schema";
+import { applyOverrides, overridableValues } from "./overrides";
 import { ACTIVE_RUN_STATUSES, isFinished } from "./status";
-import { json, toRunView, type RunView } from "./serialize";
+import { json, toRunView, type OverrideValues, type RunView } from "./serialize";
 
 type Actor = Pick<CurrentUser, "id" | "organisationId">;
 
@@ -28,7 +29,13 @@ export async function resolveRunInputs(
   user: Actor,
   scenarioId: number,
   overrides: StartRunInput,
-): Promise<{ scenarioId: number; liftRevisionId: number; inputs: EngineScenario }> {
+): Promise<{
+  scenarioId: number;
+  liftRevisionId: number;
+  inputs: EngineScenario;
+  overrides: OverrideValues | null;
+  overridesFrom: OverrideValues | null;
+}> {
   const { Scenario, LiftRevision, Train } = getModels();
   const scenario = ownRowOr404(await Scenario.findByPk(scenarioId), user, SCENARIO_NOT_FOUND);
   if (scenario.archivedAt) throw conflict("This scenario is archived; restore it before starting a run.");
@@ -44,7 +51,20 @@ export async function resolveRunInputs(
   if (!parsed.ok) {
     throw badRequest("The scenario cannot be run as it stands: fix these fields first.", parsed.issues);
   }
-  return { scenarioId: scenario.id, liftRevisionId: scenario.liftRevisionId, inputs: parsed.scenario };
+  const base = { scenarioId: scenario.id, liftRevisionId: scenario.liftRevisionId };
+  const what = overrides.overrides;
+  const keys = what ? RUN_OVERRIDE_KEYS.filter((k) => what[k] !== undefined) : [];
+  if (!what || keys.length === 0) return { ...base, inputs: parsed.scenario, overrides: null, overridesFrom: null };
+  // A what-if run: the server applies the values itself and keeps what they replaced beside them.
+  const own = overridableValues(parsed.scenario);
+  const varied = parseScenario(applyOverrides(parsed.scenario, what));
+  if (!varied.ok) throw badRequest("These what-if values do not make a valid scenario.", varied.issues);
+  return {
+    ...base,
+    inputs: varied.scenario,
+    overrides: Object.fromEntries(keys.map((k) => [k, what[k]!])),
+    overridesFrom: Object.fromEntries(keys.map((k) => [k, own[k]])),
+  };
 }
 
 function reserveSlot(): Slot {
@@ -64,7 +84,7 @@ function reserveSlot(): Slot {
  */
 export async function startRun(user: Actor, scenarioId: number, body: StartRunInput): Promise<RunView> {
   await recoverOnce();
-  const { scenarioId: sid, liftRevisionId, inputs } = await resolveRunInputs(user, scenarioId, body);
+  const { scenarioId: sid, liftRevisionId, inputs, overrides, overridesFrom } = await resolveRunInputs(user, scenarioId, body);
   const solver: SolverSettings = {
     budgetSeconds: body.budgetSeconds ?? runConfig().defaultBudgetSeconds,
     ...(body.frameBudget !== undefined ? { frameBudget: body.frameBudget } : {}),
@@ -82,6 +102,8 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
           startedBy: user.id,
           inputs: inputs as unknown as Record<string, unknown>,
           solver: { ...solver, run: inputs.run },
+          overrides,
+          overridesFrom,
           runner: RUNNER_ID,
           queuedAt: new Date(),
         },
@@ -94,7 +116,7 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
         entityId: row.id,
         action: "create",
         before: null,
-        after: { scenarioId: sid, liftRevisionId, status: "queued", solver: row.solver },
+        after: { scenarioId: sid, liftRevisionId, status: "queued", solver: row.solver, ...(overrides ? { overrides, overridesFrom } : {}) },
       });
       return row;
     });

@@ -75,6 +75,8 @@ export type StudyParameter = z.output<typeof studyParameterSchema>;
 
 /** Solver settings for every case (the run overrides) and what counts as acceptable. */
 export const studySettingsSchema = startRunSchema
+  // A study varies its parameters itself; the run view's what-if values are not study settings.
+  .omit({ overrides: true })
   .extend({
     /** When true (default), any settle-back onto the ARD makes a case unacceptable. */
     requireNoArdCatch: z.boolean({ error: "requireNoArdCatch must be true or false" }).default(true),
