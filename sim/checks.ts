@@ -9,6 +9,15 @@ import type { Summary } from "./summary";
 
 export type CheckState = "pass" | "caution" | "fail";
 
+/** Kinds of quantity a reason quotes; each display layer maps them to its own units (SI or US customary). */
+export type ReasonKind = "force" | "smallLength" | "length" | "power" | "rate";
+
+/**
+ * One piece of a reason: plain text, or an SI quantity (N, m, W, m/s) with the decimals its SI text uses.
+ * Plain factors, counts, seconds and g stay in the text: they read the same in both unit systems.
+ */
+export type ReasonPart = { text: string } | { q: number; kind: ReasonKind; digits: number };
+
 export interface Check {
   key: string;
   label: string;
@@ -16,14 +25,49 @@ export interface Check {
   value: number | boolean | null;
   limit: number | boolean | null;
   unit: string;
+  /** One line in SI (kN, mm, m, kW, mm/s), for the command line and older readers. */
   reason: string;
+  /** The same line as parts, so a screen or report can show the quantities in its reader's units. */
+  parts: ReasonPart[];
 }
 
 /** Fraction of a limit above which a passing value is flagged as a caution. */
 export const CAUTION_FRACTION = 0.8;
 
 const fmt = (v: number, d = 2) => (Math.abs(v) >= 1000 ? v.toFixed(0) : v.toFixed(d));
-const kN = (v: number) => `${(v / 1000).toFixed(1)} kN`;
+
+const SI_TEXT: Record<ReasonKind, (si: number, d: number) => string> = {
+  force: (v, d) => `${(v / 1000).toFixed(d)} kN`,
+  smallLength: (v, d) => `${fmt(v * 1000, d)} mm`,
+  length: (v, d) => `${fmt(v, d)} m`,
+  power: (v, d) => `${fmt(v / 1000, d)} kW`,
+  rate: (v, d) => `${fmt(v * 1000, d)} mm/s`,
+};
+
+/** A quantity part in SI, as the `reason` line prints it. */
+export function siQuantityText(p: { q: number; kind: ReasonKind; digits: number }): string {
+  return SI_TEXT[p.kind](p.q, p.digits);
+}
+
+/** The reason as one line, each quantity written by `quantity` (SI by default). */
+export function reasonText(
+  parts: readonly ReasonPart[],
+  quantity: (p: { q: number; kind: ReasonKind; digits: number }) => string = siQuantityText,
+): string {
+  return parts.map((p) => ("text" in p ? p.text : quantity(p))).join("");
+}
+
+const kN = (v: number): ReasonPart => ({ q: v, kind: "force", digits: 1 });
+const mm = (v: number, digits: number): ReasonPart => ({ q: v, kind: "smallLength", digits });
+const m = (v: number, digits: number): ReasonPart => ({ q: v, kind: "length", digits });
+const kW = (v: number): ReasonPart => ({ q: v, kind: "power", digits: 1 });
+const mmPerS = (v: number, digits: number): ReasonPart => ({ q: v, kind: "rate", digits });
+
+/** Builds `reason` and `parts` from text and quantity pieces. */
+function because(...pieces: (string | ReasonPart)[]): { reason: string; parts: ReasonPart[] } {
+  const parts = pieces.map((x) => (typeof x === "string" ? { text: x } : x));
+  return { reason: reasonText(parts), parts };
+}
 
 export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsIn: Partial<Limits> = {}): Check[] {
   const limits = limitsSchema.parse(limitsIn);
@@ -39,7 +83,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
       value: null,
       limit: limits.maxSnatchFactor,
       unit: "",
-      reason: `Peak tension ${kN(summary.peakTension)}; no steady climb in the run, so no snatch factor.`,
+      ...because("Peak tension ", kN(summary.peakTension), "; no steady climb in the run, so no snatch factor."),
     });
   } else {
     const state: CheckState =
@@ -51,7 +95,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
       value: snatch,
       limit: limits.maxSnatchFactor,
       unit: "",
-      reason: `Peak ${kN(summary.peakTension)} is ${fmt(snatch)}× the steady ${kN(summary.steadyTension ?? 0)} (limit ${fmt(limits.maxSnatchFactor)}×).`,
+      ...because("Peak ", kN(summary.peakTension), ` is ${fmt(snatch)}× the steady `, kN(summary.steadyTension ?? 0), ` (limit ${fmt(limits.maxSnatchFactor)}×).`),
     });
   }
 
@@ -65,22 +109,28 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
     value: sf,
     limit: req,
     unit: "",
-    reason: `Breaking strength over peak tension is ${fmt(sf)} (dynamic ${fmt(summary.minSafetyFactor)}, steady ${fmt(statics.safetyFactor)}); required ${fmt(req)}.`,
+    ...because(`Breaking strength over peak tension is ${fmt(sf)} (dynamic ${fmt(summary.minSafetyFactor)}, steady ${fmt(statics.safetyFactor)}); required ${fmt(req)}.`),
   });
 
   // Rollback and ARD catches.
   const spacing = statics.ardToothSpacing;
   const rb = summary.rollbackDistance;
   let rbState: CheckState = "pass";
-  let rbReason = `No rollback onto the ARD (largest backward travel ${fmt(rb * 1000, 1)} mm).`;
+  let rbReason = because("No rollback onto the ARD (largest backward travel ", mm(rb, 1), ").");
   if (rb - summary.peakArdCompression > spacing) {
     rbState = "fail";
-    rbReason = `The train rolled back ${fmt(rb, 3)} m, more than one tooth spacing (${fmt(spacing, 3)} m): the ARD did not hold.`;
+    rbReason = because("The train rolled back ", m(rb, 3), ", more than one tooth spacing (", m(spacing, 3), "): the ARD did not hold.");
   } else if (summary.ardCatches > 0) {
     rbState = limits.allowRollback ? "caution" : "fail";
-    rbReason = `The train settled back onto the ARD ${summary.ardCatches} time(s) (peak ${kN(summary.peakArdForce)}, ${fmt(rb * 1000, 1)} mm back)${limits.allowRollback ? "; allowed by the limits" : ""}.`;
+    rbReason = because(
+      `The train settled back onto the ARD ${summary.ardCatches} time(s) (peak `,
+      kN(summary.peakArdForce),
+      ", ",
+      mm(rb, 1),
+      ` back)${limits.allowRollback ? "; allowed by the limits" : ""}.`,
+    );
   }
-  out.push({ key: "rollback", label: "Rollback and ARD catches", state: rbState, value: rb, limit: spacing, unit: "m", reason: rbReason });
+  out.push({ key: "rollback", label: "Rollback and ARD catches", state: rbState, value: rb, limit: spacing, unit: "m", ...rbReason });
 
   // Pick-up delay.
   const pd = summary.pickupDelay;
@@ -93,10 +143,11 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
           value: null,
           limit: limits.maxPickupDelay,
           unit: "s",
-          reason:
+          ...because(
             summary.engagementTime === null
               ? "The dog never engaged a catch point."
               : "The dog engaged but never carried the train's full resisting load.",
+          ),
         }
       : {
           key: "pickup",
@@ -105,7 +156,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
           value: pd,
           limit: limits.maxPickupDelay,
           unit: "s",
-          reason: `Full pick-up ${fmt(pd)} s after first dog contact (limit ${fmt(limits.maxPickupDelay)} s).`,
+          ...because(`Full pick-up ${fmt(pd)} s after first dog contact (limit ${fmt(limits.maxPickupDelay)} s).`),
         },
   );
 
@@ -115,14 +166,20 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
   const riseUse = summary.takeUpMaxRise / Math.max(1e-9, tu.roomAbove);
   const use = Math.max(dropUse, riseUse);
   let exState: CheckState = summary.takeUpEndStop ? "fail" : use > CAUTION_FRACTION ? "caution" : "pass";
-  let exReason = summary.takeUpEndStop
-    ? "The take-up hit an end stop during the run."
-    : `Run excursion ${fmt(summary.takeUpMaxDrop * 1000, 0)} mm down / ${fmt(summary.takeUpMaxRise * 1000, 0)} mm up uses ${fmt(use * 100, 0)} % of the room.`;
+  const exPieces: (string | ReasonPart)[] = summary.takeUpEndStop
+    ? ["The take-up hit an end stop during the run."]
+    : ["Run excursion ", mm(summary.takeUpMaxDrop, 0), " down / ", mm(summary.takeUpMaxRise, 0), ` up uses ${fmt(use * 100, 0)} % of the room.`];
   if (exState === "pass" && tu.required > tu.travel) {
     exState = tu.elasticExcursion + tu.thermal > tu.travel ? "fail" : "caution";
-    exReason += ` Travel budget ${fmt(tu.required, 2)} m (elastic + ${fmt(limits.wearAllowance, 1)} % wear + thermal) exceeds the ${fmt(tu.travel, 2)} m travel: shorten the chain as it wears.`;
+    exPieces.push(
+      " Travel budget ",
+      m(tu.required, 2),
+      ` (elastic + ${fmt(limits.wearAllowance, 1)} % wear + thermal) exceeds the `,
+      m(tu.travel, 2),
+      " travel: shorten the chain as it wears.",
+    );
   }
-  out.push({ key: "takeUpTravel", label: "Take-up excursion and travel", state: exState, value: use, limit: 1, unit: "fraction of room", reason: exReason });
+  out.push({ key: "takeUpTravel", label: "Take-up excursion and travel", state: exState, value: use, limit: 1, unit: "fraction of room", ...because(...exPieces) });
 
   // Take-up creep over the steady climb.
   const creep = summary.takeUpCreepRate;
@@ -134,7 +191,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
       value: null,
       limit: null,
       unit: "m/s",
-      reason: "No steady climb in the run, so no creep rate.",
+      ...because("No steady climb in the run, so no creep rate."),
     });
   } else {
     const over = Math.abs(creep) * summary.steadyClimbDuration;
@@ -147,7 +204,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
       value: creep,
       limit: null,
       unit: "m/s",
-      reason: `The weight ${creep < 0 ? "rises" : "drops"} ${fmt(Math.abs(creep) * 1000, 2)} mm/s over the climb (${fmt(over * 1000, 0)} mm in ${fmt(summary.steadyClimbDuration, 1)} s).`,
+      ...because(`The weight ${creep < 0 ? "rises" : "drops"} `, mmPerS(Math.abs(creep), 2), " over the climb (", mm(over, 0), ` in ${fmt(summary.steadyClimbDuration, 1)} s).`),
     });
   }
 
@@ -163,7 +220,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
           value: peakP,
           limit: null,
           unit: "W",
-          reason: `Peak ${fmt(peakP / 1000, 1)} kW, steady ${fmt(statics.motorPower / 1000, 1)} kW; no motor rating given to compare.`,
+          ...because("Peak ", kW(peakP), ", steady ", kW(statics.motorPower), "; no motor rating given to compare."),
         }
       : {
           key: "drivePower",
@@ -172,7 +229,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
           value: peakP,
           limit: rating,
           unit: "W",
-          reason: `Steady ${fmt(statics.motorPower / 1000, 1)} kW and peak ${fmt(peakP / 1000, 1)} kW against a ${fmt(rating / 1000, 1)} kW motor.`,
+          ...because("Steady ", kW(statics.motorPower), " and peak ", kW(peakP), " against a ", kW(rating), " motor."),
         },
   );
 
@@ -185,7 +242,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
     value: ra,
     limit: limits.maxRiderAccel,
     unit: "g",
-    reason: `Peak ${fmt(ra)} g along the track (limit ${fmt(limits.maxRiderAccel)} g, an editable assumption; ASTM F2291 governs).`,
+    ...because(`Peak ${fmt(ra)} g along the track (limit ${fmt(limits.maxRiderAccel)} g, an editable assumption; ASTM F2291 governs).`),
   });
   return out;
 }
