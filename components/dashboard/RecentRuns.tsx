@@ -29,7 +29,8 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
     const summary = json<Summary | null>(r.summary ?? null);
     const inputs = json<Scenario>(r.inputs);
     const failed = summary && r.status === "done" ? checksFor(inputs, summary).filter((c) => c.state === "fail") : [];
-    return { id: r.id, scenarioId: r.scenarioId, status: r.status as RunStatus, finishedAt: r.finishedAt ?? r.queuedAt, summary, failed };
+    const whatIf = json<Record<string, number> | null>(r.overrides ?? null) !== null;
+    return { id: r.id, scenarioId: r.scenarioId, status: r.status as RunStatus, finishedAt: r.finishedAt ?? r.queuedAt, summary, failed, whatIf };
   });
   return (
     <Card data-testid="recent-runs">
@@ -59,6 +60,8 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
               </div>
               <div className="flex items-start gap-2 sm:justify-end">
                 <Badge tone={TONE[r.status]}>{r.status}</Badge>
+                {/* A what-if run varied the scenario's entry speed, chain speed or take-up mass. */}
+                {r.whatIf && <Badge tone="caution">what-if</Badge>}
                 <span className="text-[11.5px] text-steel-500">{new Date(r.finishedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short" })}</span>
               </div>
             </li>

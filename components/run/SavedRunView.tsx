@@ -1,5 +1,8 @@
 "use client";
-/** A saved run: follows a queued or running run by its event stream, then opens the stored result. */
+/**
+ * A saved run: follows a queued or running run by its event stream, then opens the stored result. A what-if
+ * run says so, with each value it ran beside the scenario's own.
+ */
 import Link from "next/link";
 import { useEffect, useState } from "react";
 import { Alert } from "@/components/ui/Alert";
@@ -10,6 +13,7 @@ import type { UnitSystem } from "@/lib/client/units";
 import { ProgressBar } from "./ProgressBar";
 import { RunResults } from "./RunResults";
 import { loadServerRun, type RunJson } from "./serverRun";
+import { overrideLines } from "./overridesText";
 import type { RunData } from "./types";
 
 const TONE = { queued: "neutral", running: "lamp", done: "pass", failed: "fail", cancelled: "neutral" } as const;
@@ -83,6 +87,18 @@ export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { 
             </>
           )}
         </div>
+      )}
+      {run?.overrides && (
+        <Alert tone="caution" title="What-if variant: the server ran the scenario with these values instead of its own" testId="saved-run-whatif">
+          <ul className="font-mono text-[12.5px] tabular-nums">
+            {overrideLines(run.overrides, run.overridesFrom, units).map((line) => (
+              <li key={line} data-testid="saved-run-override">
+                {line}
+              </li>
+            ))}
+          </ul>
+          <p className="text-[12px] text-steel-500">The scenario itself is unchanged; its other runs use its own values.</p>
+        </Alert>
       )}
       {error && <Alert tone="error" title={error} testId="saved-run-error" />}
       {run?.status === "failed" && (

@@ -1,7 +1,8 @@
 "use client";
 /**
  * The run view of a scenario: opens the latest saved run at once, runs the scenario in this browser
- * (Web Worker, progress, cancel), what-if sliders, and "save" = start the same scenario on the server.
+ * (Web Worker, progress, cancel), what-if sliders, and "save" = start the same scenario on the server, with
+ * the sliders' values as overrides when they are moved (the server computes the run itself).
  */
 import Link from "next/link";
 import { useRouter } from "next/navigation";
@@ -20,6 +21,8 @@ import { shownData, useRunStore } from "./store";
 import { useWorkerRun } from "./useWorkerRun";
 import { WhatIfPanel } from "./WhatIfPanel";
 import { withWhatIf } from "./compute";
+import { changedOverrides } from "@/lib/runs/overrides";
+import { overrideLines } from "./overridesText";
 
 function withSegments(s: Scenario, n: number | null): Scenario {
   return n ? { ...s, run: { ...s.run, segments: n } } : s;
@@ -59,9 +62,9 @@ export function ScenarioRunView({
     return () => reset();
   }, [reset, scenarioId]);
 
-  // A saved run opens at once from its stored result.
+  // A saved run opens at once from its stored result; a what-if run is not the scenario's own result.
   const runList = runItems(runs.data);
-  const latestDone = runList?.find((r) => r.status === "done");
+  const latestDone = runList?.find((r) => r.status === "done" && !r.overrides);
   useEffect(() => {
     if (!latestDone || useRunStore.getState().data) return;
     let live = true;
@@ -75,11 +78,14 @@ export function ScenarioRunView({
     };
   }, [latestDone, set]);
 
+  // Only the values the sliders actually changed travel as overrides; the server applies them itself.
+  const overrides = scenario && whatIf ? changedOverrides(scenario, whatIf) : null;
+
   async function saveOnServer() {
     setSaving(true);
     setSaveMsg(null);
     try {
-      const res = await sendJson<{ run: RunJson }>(`/api/scenarios/${scenarioId}/runs`, "POST", {});
+      const res = await sendJson<{ run: RunJson }>(`/api/scenarios/${scenarioId}/runs`, "POST", overrides ? { overrides } : {});
       router.push(`/runs/${res.run.id}`);
     } catch (err) {
       setSaveMsg({ tone: "error", text: err instanceof ApiError ? err.message : String(err) });
@@ -131,8 +137,15 @@ export function ScenarioRunView({
               </span>
             )}
             <div className="ml-auto flex items-center gap-2">
-              <Button variant="secondary" onClick={() => void saveOnServer()} busy={saving} disabled={!!whatIf} data-testid="save-run" title="Starts the same scenario on the server, which keeps the run and its result">
-                Save run on the server
+              <Button
+                variant="secondary"
+                onClick={() => void saveOnServer()}
+                busy={saving}
+                data-testid="save-run"
+                data-overrides={overrides ? Object.keys(overrides).join(",") : ""}
+                title={overrides ? "Starts the scenario on the server with the what-if values; the server keeps the run and its result" : "Starts the same scenario on the server, which keeps the run and its result"}
+              >
+                {overrides ? "Save what-if run on the server" : "Save run on the server"}
               </Button>
             </div>
           </>
@@ -145,7 +158,7 @@ export function ScenarioRunView({
       {canStart && (
         <p className="-mt-2 text-[11.5px] text-steel-500">
           Saving starts this scenario on the server (the server computes and keeps its own copy; the runs API does not take results from browsers) and opens it when it is done.
-          {whatIf ? " Reset the what-if sliders first: what-if values are not part of the scenario." : ""}
+          {overrides ? ` The what-if values (${overrideLines(overrides, null, units).join(", ")}) go with it: the saved run is marked as a what-if variant and the scenario itself is not changed.` : ""}
         </p>
       )}
       {error && (
@@ -166,6 +179,11 @@ export function ScenarioRunView({
                   Run {r.id}
                 </Link>
                 <Badge tone={STATUS_TONE[r.status]}>{r.status}</Badge>
+                {r.overrides && (
+                  <span title={`What-if variant: ${overrideLines(r.overrides, r.overridesFrom, units).join(", ")}`} data-testid="saved-run-whatif">
+                    <Badge tone="caution">what-if</Badge>
+                  </span>
+                )}
                 <span className="ml-auto text-[11.5px] text-steel-500">{new Date(r.queuedAt).toLocaleString("en-GB", { dateStyle: "short", timeStyle: "short" })}</span>
               </li>
             ))}

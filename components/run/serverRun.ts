@@ -1,6 +1,7 @@
 /** A saved server run as RunData: the run (with its input scenario) and its stored result. */
 import type { Frame, Layout, Scenario, Series, Summary } from "@/sim";
 import { getJson } from "@/lib/client/fetch";
+import type { RunOverrides } from "@/lib/runs/overrides";
 import { checksFor } from "./compute";
 import type { RunData } from "./types";
 
@@ -19,6 +20,10 @@ export interface RunJson {
   finishedAt: string | null;
   version: number;
   solver: Record<string, unknown>;
+  /** What-if values the server ran instead of the scenario's (SI); null for a plain run. */
+  overrides?: RunOverrides | null;
+  /** The scenario's values those replaced when the run started (SI). */
+  overridesFrom?: RunOverrides | null;
   inputs?: Record<string, unknown>;
 }
 

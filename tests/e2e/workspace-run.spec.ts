@@ -80,22 +80,50 @@ test.describe("workspace: run view", () => {
     await expect(page.getByTestId("saved-run-status")).toHaveText("done", { timeout: 60_000 });
     await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "server");
     await expect(page.getByTestId("check-rollback")).toContainText(/[1-9]\d* ARD catch/);
+    // Sliders untouched: a plain run of the scenario, not a what-if variant.
+    await expect(page.getByTestId("saved-run-whatif")).toHaveCount(0);
     savedRunPath = new URL(page.url()).pathname;
     await page.reload();
     await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "server");
     await expect(page.getByTestId("settle-back")).toBeVisible();
   });
 
-  test("what-if sliders preview quickly and the full run follows", async ({ page }) => {
+  test("what-if sliders preview quickly, the full run follows, and the what-if run saves as a marked variant", async ({ page }) => {
+    test.setTimeout(90_000);
     await signInUi(page, demoAccount("engineer").email);
     await openSettleBackScenario(page);
     await expect(page.getByTestId("run-results")).toBeVisible();
     const slider = page.getByTestId("whatif-entrySpeed");
     await slider.focus();
+    // Ten steps of 0.05 m/s down from the scenario's 4.50 m/s.
     for (let i = 0; i < 10; i++) await page.keyboard.press("ArrowLeft");
+    await expect(page.getByTestId("whatif-entrySpeed-value")).toContainText("4.00 m/s");
     await expect(page.getByTestId("whatif-latency")).toContainText(/last preview \d+ ms/, { timeout: 20_000 });
     await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "browser", { timeout: 30_000 });
-    await expect(page.getByTestId("save-run")).toBeDisabled();
+
+    // Save sends the moved value as an override; the server runs it and the saved run says it is a what-if.
+    const save = page.getByTestId("save-run");
+    await expect(save).toBeEnabled();
+    await expect(save).toHaveAttribute("data-overrides", "entrySpeed");
+    await save.click();
+    await page.waitForURL(/\/runs\/\d+/);
+    await expect(page.getByTestId("saved-run-status")).toHaveText("done", { timeout: 60_000 });
+    await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "server");
+    await expect(page.getByTestId("saved-run-whatif")).toContainText("What-if variant");
+    await expect(page.getByTestId("saved-run-override")).toHaveText("entry speed 4.00 m/s (scenario: 4.50 m/s)");
+    const whatIfPath = new URL(page.url()).pathname;
+    await page.reload();
+    await expect(page.getByTestId("saved-run-override")).toHaveText("entry speed 4.00 m/s (scenario: 4.50 m/s)");
+
+    // The scenario's runs list marks it, and the scenario still opens its own (plain) latest run.
+    await page.getByRole("link", { name: "Open the scenario" }).click();
+    const whatIfId = whatIfPath.split("/").pop()!;
+    const item = page.getByTestId("saved-runs").locator("li", { has: page.getByRole("link", { name: `Run ${whatIfId}`, exact: true }) });
+    await expect(item.getByTestId("saved-run-whatif")).toHaveText(/what-if/i);
+    await expect(item.getByTestId("saved-run-whatif")).toHaveAttribute("title", /entry speed 4\.00 m\/s \(scenario: 4\.50 m\/s\)/);
+    await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "server");
+    await expect(page.getByTestId("whatif-entrySpeed-value")).toHaveText("4.50 m/s");
+    await expect(page.getByTestId("save-run")).toHaveText("Save run on the server");
   });
 
   test("a viewer sees the saved run read-only", async ({ page }) => {
