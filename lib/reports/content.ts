@@ -12,6 +12,8 @@ import { evaluateChecks, type Check } from "@/sim/checks";
 import { LIMIT_SOURCES, limitsSchema, type Scenario as EngineScenario } from "@/sim/schema";
 import type { Summary } from "@/sim/summary";
 import { decodeResult } from "@/lib/runs/result-format";
+import { json } from "@/lib/runs/serialize";
+import { OVERRIDE_FIELDS, RUN_OVERRIDE_KEYS, type RunOverrideKey } from "@/lib/runs/overrides";
 import { operatingWindow } from "@/lib/studies/window";
 import { studyNamer } from "@/lib/studies/service";
 import type { StudyParameter } from "@/lib/studies/schema";
@@ -65,6 +67,13 @@ function pick(series: Record<string, ArrayLike<number>>, key: string, every: num
   const out: number[] = [];
   for (let i = 0; i < a.length; i += every) out.push(Number(a[i]));
   return out;
+}
+
+function whatIfText(o: Partial<Record<RunOverrideKey, number>>, from: Partial<Record<RunOverrideKey, number>> | null): string {
+  const units: Record<RunOverrideKey, string> = { entrySpeed: "m/s", chainSpeed: "m/s", takeUpMass: "kg" };
+  return RUN_OVERRIDE_KEYS.filter((k) => o[k] !== undefined)
+    .map((k) => `${OVERRIDE_FIELDS[k].label} ${o[k]} ${units[k]}${from?.[k] !== undefined ? ` (scenario: ${from[k]} ${units[k]})` : ""}`)
+    .join(", ");
 }
 
 function fmtLimit(v: unknown): string {
@@ -138,6 +147,8 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
       })),
       { key: "riderMass", value: `${train.riderMass} kg`, source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." },
       { key: "model", value: `${inputs.run.segments} segments, ${inputs.run.integrator}`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
+      // A what-if run's inputs already hold its overrides; say so beside the scenario's own values.
+      ...(run.overrides ? [{ key: "whatIf", value: whatIfText(json(run.overrides), json(run.overridesFrom ?? null)), source: "What-if run: the server ran the scenario with these values in place of its own; the scenario itself is unchanged." }] : []),
     ],
     statics: {
       steadyTension: statics.worst.driveTension ?? 0,
