@@ -2,7 +2,7 @@
 /** Headline figures with their check state (colour + word + icon, so colour is never the only signal). */
 import type { Check, CheckState, Summary } from "@/sim";
 import { cx } from "@/components/ui/cx";
-import { formatQuantity, type UnitSystem } from "@/lib/client/units";
+import { formatQuantity, formatReason, type UnitSystem } from "@/lib/client/units";
 
 const STATE: Record<CheckState, { word: string; icon: string; box: string; text: string }> = {
   pass: { word: "Pass", icon: "✓", box: "border-pass/30 bg-pass/[0.04]", text: "text-pass" },
@@ -69,7 +69,7 @@ export function HeadlineFigures({ checks, summary, units, dim }: { checks: Check
               </p>
               {h.sub && <p className="text-[11.5px] text-steel-500">{h.sub}</p>}
               <p className="mt-1 text-[11.5px] leading-snug text-ink-800" data-testid={`reason-${c.key}`}>
-                {c.reason}
+                {formatReason(c, units)}
               </p>
             </article>
           );

@@ -4,6 +4,7 @@
  * exact factors come from the engine's units module (sim/units.ts).
  */
 import { FOOT as FT, HORSEPOWER as HP, INCH, POUND_FORCE as LBF, POUND_MASS as LB, type UnitSystem } from "@/sim/units";
+import { reasonText, type ReasonPart } from "@/sim/checks";
 
 export type { UnitSystem };
 
@@ -121,4 +122,13 @@ export function parseTyped(text: string): number | undefined {
   const t = text.trim().replace(/,/g, "");
   if (t === "" || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return undefined;
   return Number(t);
+}
+
+/**
+ * A check's one-line reason in the user's units: SI as the engine wrote it; US customary from the SI
+ * quantities in its parts (a check without parts, from an older reader, keeps its SI line).
+ */
+export function formatReason(check: { reason: string; parts?: readonly ReasonPart[] }, system: UnitSystem): string {
+  if (system === "si" || !check.parts?.length) return check.reason;
+  return reasonText(check.parts, (p) => formatQuantity(p.q, p.kind, system));
 }

@@ -14,6 +14,7 @@ import type { Summary } from "@/sim/summary";
 import { decodeResult } from "@/lib/runs/result-format";
 import { json } from "@/lib/runs/serialize";
 import { OVERRIDE_FIELDS, RUN_OVERRIDE_KEYS, type RunOverrideKey } from "@/lib/runs/overrides";
+import { reasonIn } from "./format";
 import { operatingWindow } from "@/lib/studies/window";
 import { studyNamer } from "@/lib/studies/service";
 import type { StudyParameter } from "@/lib/studies/schema";
@@ -31,6 +32,8 @@ export interface ReportSeries {
   trainSpeed: number[];
   takeUpPosition: number[];
 }
+
+export type ReportCheck = Omit<Check, "parts">;
 
 export interface ReportContent {
   title: string;
@@ -55,7 +58,8 @@ export interface ReportContent {
   };
   run: { id: number; finishedAt: string | null; summary: Record<string, number | boolean | string | null> } | null;
   series: ReportSeries | null;
-  checks: Check[];
+  /** The checks with their reason already in the report's units (no parts: the content is what is printed). */
+  checks: ReportCheck[];
   study: { id: number; name: string; cases: number; done: number; window: string } | null;
   revisions: { number: number; changeSummary: string | null; createdAt: string }[];
   cautions: string[];
@@ -171,7 +175,7 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
     },
     run: { id: run.id, finishedAt: run.finishedAt?.toISOString() ?? null, summary: summaryOut },
     series,
-    checks,
+    checks: checks.map(({ parts, ...c }) => ({ ...c, reason: reasonIn({ reason: c.reason, parts }, report.units) })),
     study,
     revisions: revisions.map((r) => ({ number: r.number, changeSummary: r.changeSummary, createdAt: r.createdAt.toISOString() })),
     cautions: REPORT_CAUTIONS,

@@ -1,4 +1,5 @@
 /** Numbers as the report prints them, in the reader's unit system (SI inside, converted only here). */
+import { reasonText, type ReasonKind, type ReasonPart } from "@/sim/checks";
 import { display, type Quantity, type UnitSystem } from "@/sim/units";
 
 export function fmtQ(si: number | null | undefined, quantity: Quantity, units: UnitSystem, digits = 2): string {
@@ -17,4 +18,19 @@ export function checkMargin(check: { key: string; value: number | boolean | null
   // Safety factor must stay above its limit; the rest must stay below.
   const m = check.key === "safetyFactor" ? (check.value - check.limit) / check.limit : (check.limit - check.value) / check.limit;
   return `${(m * 100).toFixed(0)} %`;
+}
+
+/** Each quantity a check reason quotes, as the report prints it in US customary units (decimals per unit). */
+const US_REASON: Record<ReasonKind, (si: number) => string> = {
+  force: (v) => fmtQ(v, "force", "us", 2),
+  smallLength: (v) => fmtQ(v, "shortLength", "us", 2),
+  length: (v) => fmtQ(v, "length", "us", 2),
+  power: (v) => fmtQ(v, "power", "us", 1),
+  rate: (v) => `${fmtQ(v, "shortLength", "us", 3)}/s`,
+};
+
+/** A check's reason in the report's units: the engine's SI line, or its parts converted to US customary. */
+export function reasonIn(check: { reason: string; parts?: readonly ReasonPart[] }, units: UnitSystem): string {
+  if (units === "si" || !check.parts?.length) return check.reason;
+  return reasonText(check.parts, (p) => US_REASON[p.kind](p.q));
 }

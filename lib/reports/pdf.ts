@@ -4,8 +4,7 @@
  * margins, the study's window, the revision history, the review stamp and the cautions; page numbers.
  */
 import PDFDocument from "pdfkit";
-import type { Check } from "@/sim/checks";
-import type { ReportContent } from "./content";
+import type { ReportCheck, ReportContent } from "./content";
 import { checkMargin, fmtN, fmtQ } from "./format";
 
 export interface ReportStamp {
@@ -135,7 +134,7 @@ function checkValue(v: number | boolean | null, unit: string, units: "si" | "us"
   return `${fmtN(v)}${unit ? ` ${unit}` : ""}`;
 }
 
-function checksTable(doc: Doc, checks: Check[], units: "si" | "us") {
+function checksTable(doc: Doc, checks: ReportCheck[], units: "si" | "us") {
   const cols = [
     { h: "Check", w: 140 },
     { h: "State", w: 50 },
