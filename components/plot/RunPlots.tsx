@@ -2,16 +2,17 @@
 /**
  * The run's time series with uPlot (fast with tens of thousands of points): four panels on one time
  * axis, drag to zoom (all panels follow), double-click to zoom out, a hover read-out, the cursor synced
- * with the replay (click a plot to move the replay there), CSV and PNG export.
+ * with the replay (click a plot to move the replay there), CSV and PNG export. The chain tension at the
+ * dog comes from the replay frames (sim's dogTensionAt), put on the series' times.
  */
 import { useEffect, useMemo, useRef, useState } from "react";
 import uPlot from "uplot";
 import "uplot/dist/uPlot.min.css";
-import type { Series } from "@/sim";
+import { dogTensionAt, type Frame, type Layout, type Series } from "@/sim";
 import { Button } from "@/components/ui/Button";
 import { unitOf, type UnitSystem } from "@/lib/client/units";
 import { useReplayStore } from "@/components/replay/store";
-import { PANELS, chainSpeedSeries, nearestSample, panelData, seriesCsv } from "./plotData";
+import { DOG_TENSION_NOTE, PANELS, chainSpeedSeries, nearestSample, panelData, seriesCsv } from "./plotData";
 
 function download(name: string, href: string) {
   const a = document.createElement("a");
@@ -28,25 +29,43 @@ export function RunPlots({
   chainSpeed,
   rampTime,
   fileStem,
+  frames,
+  layout,
+  dogOffset,
+  dogRelease,
 }: {
   series: Series;
   units: UnitSystem;
   chainSpeed: number;
   rampTime: number;
   fileStem: string;
+  /** Replay frames and layout of the run, for the chain tension at the dog (left out: no such line). */
+  frames?: readonly Frame[];
+  layout?: Layout;
+  dogOffset?: number;
+  dogRelease?: number;
 }) {
   const holders = useRef<(HTMLDivElement | null)[]>([]);
   const plots = useRef<uPlot[]>([]);
   const box = useRef<HTMLDivElement>(null);
   const [cursorIdx, setCursorIdx] = useState<number | null>(null);
   const chain = useMemo(() => chainSpeedSeries(series.t, chainSpeed, rampTime), [series, chainSpeed, rampTime]);
+  const dogTension = useMemo(
+    () =>
+      frames?.length && layout && dogOffset !== undefined && dogRelease !== undefined
+        ? dogTensionAt(layout, { dogOffset, dogRelease }, frames, series.t)
+        : undefined,
+    [frames, layout, dogOffset, dogRelease, series],
+  );
+  // Without frames there is no tension at the dog: leave its line (and its note) out.
+  const panels = useMemo(() => PANELS.map((p) => ({ ...p, lines: p.lines.filter((l) => l.key !== "dogTension" || dogTension) })), [dogTension]);
   const hovering = useRef(false);
 
   useEffect(() => {
     const width = Math.max(280, (box.current?.clientWidth ?? 800) - 16);
     const syncKey = `run-${Math.random().toString(36).slice(2)}`;
     let syncing = false;
-    const made: uPlot[] = PANELS.map((p, pi) => {
+    const made: uPlot[] = panels.map((p, pi) => {
       const u = unitOf(p.q, units).label;
       const opts: uPlot.Options = {
         width,
@@ -59,7 +78,7 @@ export function RunPlots({
         },
         scales: { x: { time: false } },
         axes: [
-          { stroke: "#5f7386", grid: { stroke: "#e3e8ec", width: 1 }, ticks: { stroke: "#e3e8ec" }, label: pi === PANELS.length - 1 ? "time (s)" : undefined, size: pi === PANELS.length - 1 ? 44 : 30, font: "11px ui-sans-serif, system-ui", labelFont: "11px ui-sans-serif, system-ui" },
+          { stroke: "#5f7386", grid: { stroke: "#e3e8ec", width: 1 }, ticks: { stroke: "#e3e8ec" }, label: pi === panels.length - 1 ? "time (s)" : undefined, size: pi === panels.length - 1 ? 44 : 30, font: "11px ui-sans-serif, system-ui", labelFont: "11px ui-sans-serif, system-ui" },
           { stroke: "#5f7386", grid: { stroke: "#e3e8ec", width: 1 }, ticks: { stroke: "#e3e8ec" }, label: u, size: 56, font: "11px ui-sans-serif, system-ui", labelFont: "11px ui-sans-serif, system-ui" },
         ],
         series: [
@@ -92,7 +111,7 @@ export function RunPlots({
         },
       };
       const el = holders.current[pi]!;
-      const plot = new uPlot(opts, panelData(p, series, chain, units) as uPlot.AlignedData, el);
+      const plot = new uPlot(opts, panelData(p, series, { chainSpeed: chain, dogTension }, units) as uPlot.AlignedData, el);
       plot.over.addEventListener("mouseenter", () => (hovering.current = true));
       plot.over.addEventListener("mouseleave", () => (hovering.current = false));
       plot.over.addEventListener("click", () => {
@@ -144,10 +163,10 @@ export function RunPlots({
       for (const plot of made) plot.destroy();
       plots.current = [];
     };
-  }, [series, chain, units]);
+  }, [series, chain, dogTension, panels, units]);
 
   const exportCsv = () => {
-    const blob = new Blob([seriesCsv(series, chain, units)], { type: "text/csv" });
+    const blob = new Blob([seriesCsv(series, chain, units, dogTension)], { type: "text/csv" });
     const url = URL.createObjectURL(blob);
     download(`${fileStem}.csv`, url);
     setTimeout(() => URL.revokeObjectURL(url), 1000);
@@ -168,7 +187,7 @@ export function RunPlots({
     canvases.forEach((c, i) => {
       ctx.fillStyle = "#10202e";
       ctx.font = "bold 14px sans-serif";
-      ctx.fillText(`${PANELS[i].title} (${unitOf(PANELS[i].q, units).label})`, 8, y + 16);
+      ctx.fillText(`${panels[i].title} (${unitOf(panels[i].q, units).label})`, 8, y + 16);
       ctx.drawImage(c, 0, y + titleH);
       y += c.height + titleH;
     });
@@ -176,12 +195,12 @@ export function RunPlots({
   };
 
   const i = cursorIdx;
-  const val = (key: keyof Series, q: Parameters<typeof unitOf>[0]) => {
-    if (i === null) return "—";
+  const show = (si: number | null | undefined, q: Parameters<typeof unitOf>[0]) => {
+    if (si === null || si === undefined) return "—";
     const u = unitOf(q, units);
-    const v = (series[key] as number[])[i] * u.factor;
-    return `${v.toFixed(u.digits)} ${u.label}`;
+    return `${(si * u.factor).toFixed(u.digits)} ${u.label}`;
   };
+  const val = (key: keyof Series, q: Parameters<typeof unitOf>[0]) => (i === null ? "—" : show((series[key] as number[])[i], q));
 
   return (
     <section className="min-w-0 space-y-2" data-testid="run-plots">
@@ -206,6 +225,11 @@ export function RunPlots({
         <span>
           highest <b data-testid="cursor-max-tension">{val("maxTension", "force")}</b>
         </span>
+        {dogTension && (
+          <span title={DOG_TENSION_NOTE}>
+            at dog <b data-testid="cursor-dog-tension">{i === null ? "—" : show(dogTension[i], "force")}</b>
+          </span>
+        )}
         <span>
           dog <b>{val("dogForce", "force")}</b>
         </span>
@@ -220,9 +244,14 @@ export function RunPlots({
         </span>
       </div>
       <div ref={box} className="min-w-0 space-y-1 overflow-hidden rounded-md border border-steel-300/60 bg-white p-2">
-        {PANELS.map((p, pi) => (
+        {panels.map((p, pi) => (
           <div key={p.id} className="min-w-0 overflow-hidden">
             <p className="px-1 text-[12px] font-semibold text-ink-800">{p.title}</p>
+            {p.note && p.lines.some((l) => l.key === "dogTension") && (
+              <p className="px-1 text-[11.5px] text-steel-500" data-testid={`plot-note-${p.id}`}>
+                {p.note}
+              </p>
+            )}
             <div
               ref={(el) => {
                 holders.current[pi] = el;

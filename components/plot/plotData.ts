@@ -3,7 +3,8 @@ import type { Series } from "@/sim";
 import { toDisplay, unitOf, type Quantity, type UnitSystem } from "@/lib/client/units";
 
 export interface PanelLine {
-  key: keyof Series | "chainSpeed";
+  /** A series of the run, or one derived from it here (chain speed) or from the frames (tension at the dog). */
+  key: keyof Series | "chainSpeed" | "dogTension";
   label: string;
   colour: string;
   dash?: number[];
@@ -14,7 +15,21 @@ export interface Panel {
   title: string;
   q: Quantity;
   lines: PanelLine[];
+  /** What a line means where its label cannot say it all. */
+  note?: string;
 }
+
+/** Series that are not in the engine's `Series`: computed from it or from the replay frames. */
+export interface DerivedSeries {
+  chainSpeed: number[];
+  /** Chain tension at the dog (sim `dogTensionAt`), null where the dog is off the chain; absent: no frames. */
+  dogTension?: (number | null)[];
+}
+
+export const DOG_TENSION_NOTE =
+  "At the dog: tension of the chain just ahead of the dog's catch point, the side that pulls the train; " +
+  "taken from the replay frames, so as fine in time as they are. Before pick-up it is the chain under the dog; " +
+  "a gap where the dog is off the chain (before it starts, after the release at the crest).";
 
 /** Line colours: blue/orange/grey, told apart by dash as well as hue. */
 export const PANELS: Panel[] = [
@@ -25,7 +40,9 @@ export const PANELS: Panel[] = [
     lines: [
       { key: "driveTension", label: "At the drive", colour: "#1f6fb2" },
       { key: "maxTension", label: "Highest along the chain", colour: "#b86e00", dash: [6, 3] },
+      { key: "dogTension", label: "At the dog", colour: "#5f7386", dash: [8, 3, 2, 3] },
     ],
+    note: DOG_TENSION_NOTE,
   },
   {
     id: "forces",
@@ -58,28 +75,54 @@ export function chainSpeedSeries(t: readonly number[], speed: number, rampTime: 
   return t.map((x) => (rampTime > 0 ? Math.min(1, x / rampTime) : 1) * speed);
 }
 
-export function panelData(panel: Panel, series: Series, chainSpeed: number[], units: UnitSystem): number[][] {
+/** The SI values of one line, or undefined when the run has none (no frames for the tension at the dog). */
+export function lineValues(l: PanelLine, series: Series, derived: DerivedSeries): readonly (number | null)[] | undefined {
+  if (l.key === "chainSpeed") return derived.chainSpeed;
+  if (l.key === "dogTension") return derived.dogTension;
+  return series[l.key];
+}
+
+export function panelData(panel: Panel, series: Series, derived: DerivedSeries, units: UnitSystem): (number | null)[][] {
   return [
     series.t.slice(),
     ...panel.lines.map((l) => {
-      const raw = l.key === "chainSpeed" ? chainSpeed : (series[l.key as keyof Series] as number[]);
-      return raw.map((v) => toDisplay(v, panel.q, units));
+      const raw = lineValues(l, series, derived) ?? series.t.map(() => null);
+      return raw.map((v) => (v === null ? null : toDisplay(v, panel.q, units)));
     }),
   ];
 }
 
-/** Every series as CSV, one row per sample, units in the headings. */
-export function seriesCsv(series: Series, chainSpeed: number[], units: UnitSystem): string {
-  const cols: { head: string; values: (i: number) => number }[] = [{ head: "time (s)", values: (i) => series.t[i] }];
+/**
+ * Every series as CSV, one row per sample, units in the headings; the tension at the dog only when given,
+ * with empty cells where the dog is off the chain.
+ */
+export function seriesCsv(series: Series, chainSpeed: number[], units: UnitSystem, dogTension?: (number | null)[]): string {
+  const derived: DerivedSeries = { chainSpeed, dogTension };
+  const cols: { head: string; values: (i: number) => number | null }[] = [{ head: "time (s)", values: (i) => series.t[i] }];
   for (const p of PANELS)
     for (const l of p.lines) {
-      const raw = l.key === "chainSpeed" ? chainSpeed : (series[l.key as keyof Series] as number[]);
+      const raw = lineValues(l, series, derived);
+      if (!raw) continue;
       const u = unitOf(p.q, units).label;
-      cols.push({ head: `${p.title}: ${l.label} (${u})`, values: (i) => toDisplay(raw[i], p.q, units) });
+      cols.push({
+        head: `${p.title}: ${l.label} (${u})`,
+        values: (i) => {
+          const v = raw[i];
+          return v === null || v === undefined ? null : toDisplay(v, p.q, units);
+        },
+      });
     }
   const esc = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
   const lines = [cols.map((c) => esc(c.head)).join(",")];
-  for (let i = 0; i < series.t.length; i++) lines.push(cols.map((c) => Number(c.values(i).toPrecision(7))).join(","));
+  for (let i = 0; i < series.t.length; i++)
+    lines.push(
+      cols
+        .map((c) => {
+          const v = c.values(i);
+          return v === null ? "" : Number(v.toPrecision(7));
+        })
+        .join(","),
+    );
   return lines.join("\n") + "\n";
 }
 

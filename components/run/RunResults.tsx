@@ -47,7 +47,17 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
           <SettleBackPanel data={data} />
         </div>
       </Card>
-      <RunPlots series={data.series} units={units} chainSpeed={data.scenario.drive.speed} rampTime={data.scenario.drive.rampTime} fileStem={fileStem} />
+      <RunPlots
+        series={data.series}
+        units={units}
+        chainSpeed={data.scenario.drive.speed}
+        rampTime={data.scenario.drive.rampTime}
+        fileStem={fileStem}
+        frames={data.frames}
+        layout={data.layout}
+        dogOffset={data.scenario.train.dogOffset}
+        dogRelease={data.scenario.lift.dogRelease}
+      />
       <SafetyNote />
     </div>
   );
