@@ -17,6 +17,7 @@ import * as m0031 from "./0031_reports";
 import * as m0040 from "./0040_logbook";
 import * as m0041 from "./0041_recordings";
 import * as m0042 from "./0042_training";
+import * as m0043 from "./0043_calibrations";
 
 export interface Migration {
   name: string;
@@ -45,4 +46,5 @@ export const migrations: Migration[] = [
   { name: "0040_logbook", ...m0040 },
   { name: "0041_recordings", ...m0041 },
   { name: "0042_training", ...m0042 },
+  { name: "0043_calibrations", ...m0043 },
 ];

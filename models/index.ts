@@ -23,6 +23,7 @@ import { initUpload, Upload } from "./Upload";
 import { initAlert, Alert } from "./Alert";
 import { initRecording, Recording } from "./Recording";
 import { initRecordingSample, RecordingSample } from "./RecordingSample";
+import { initCalibration, Calibration } from "./Calibration";
 import { initTrainingSession, TrainingSession } from "./TrainingSession";
 import { initTrainingItem, TrainingItem } from "./TrainingItem";
 import { initTrainingCaption, TrainingCaption } from "./TrainingCaption";
@@ -32,7 +33,7 @@ export { Organisation, User, AuthToken, RateLimitHit };
 export { ChainSpec, Lift, LiftRevision, Train, Scenario, AuditEntry, Comment };
 export { Run };
 export { Study, StudyCase, Report, ReportReview };
-export { LogbookEntry, LogbookSetting, Upload, Alert, Recording, RecordingSample };
+export { LogbookEntry, LogbookSetting, Upload, Alert, Recording, RecordingSample, Calibration };
 export { TrainingSession, TrainingItem, TrainingCaption, TrainingView };
 
 /**
@@ -62,6 +63,7 @@ export interface Models {
   Alert: typeof Alert;
   Recording: typeof Recording;
   RecordingSample: typeof RecordingSample;
+  Calibration: typeof Calibration;
   TrainingSession: typeof TrainingSession;
   TrainingItem: typeof TrainingItem;
   TrainingCaption: typeof TrainingCaption;
@@ -102,6 +104,7 @@ function associate(m: Models): void {
   // Operations.
   m.LogbookEntry.belongsTo(m.User, { foreignKey: "userId", as: "author" });
   m.Recording.hasMany(m.RecordingSample, { foreignKey: "recordingId", as: "samples" });
+  m.Recording.hasMany(m.Calibration, { foreignKey: "recordingId", as: "calibrations" });
   m.TrainingSession.hasMany(m.TrainingItem, { foreignKey: "sessionId", as: "items" });
   m.TrainingItem.hasMany(m.TrainingCaption, { foreignKey: "itemId", as: "captions" });
   m.TrainingItem.belongsTo(m.Run, { foreignKey: "runId", as: "run" });
@@ -135,6 +138,7 @@ export function initModels(sequelize: Sequelize): Models {
     Alert: initAlert(sequelize),
     Recording: initRecording(sequelize),
     RecordingSample: initRecordingSample(sequelize),
+    Calibration: initCalibration(sequelize),
     TrainingSession: initTrainingSession(sequelize),
     TrainingItem: initTrainingItem(sequelize),
     TrainingCaption: initTrainingCaption(sequelize),
