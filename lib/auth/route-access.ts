@@ -144,7 +144,7 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   "/api/recordings/[id]": { methods: { GET: needs("logbook:read") }, rows: { id: "recordings" } },
   "/api/recordings/[id]/overlay": { methods: { GET: needs("logbook:read") }, rows: { id: "recordings" } },
   "/api/recordings/[id]/calibrate": { methods: { POST: needs("run:start") }, rows: { id: "recordings" } },
-  "/api/recordings/[id]/calibration": { methods: { POST: needs("calibration:save") }, rows: { id: "recordings" } },
+  "/api/recordings/[id]/calibration": { methods: { GET: needs("logbook:read"), POST: needs("calibration:save") }, rows: { id: "recordings" } },
   // Trainers' replay sessions. The demo park's seeded session is shared, so viewers may open it.
   "/api/training/sessions": { methods: { GET: needs("training:watch"), POST: needs("training:manage") } },
   "/api/training/sessions/[id]": {

@@ -2,8 +2,8 @@
  * Calibration: fits the chain's axial stiffness E·A and internal damping (and optionally the guide
  * friction coefficient) so the engine's take-up trace matches a recorded one, by least squares over the
  * recorded samples (Nelder–Mead on log E·A and log damping). The recording is aligned to the run at
- * engagement (recorded engagement time ↔ the run's first dog contact). Pure: engine + numbers only, so it
- * runs in a worker thread or in a test. Kept cheap: a coarse mesh and a short window around the pick-up.
+ * engagement (recorded engagement time ↔ the run's first dog contact). Pure: engine + numbers only (no
+ * database), so it runs in the job pool's worker thread (lib/jobs/run-worker.ts) or in a test. Kept cheap: a coarse mesh and a short window around the pick-up.
  */
 import { designStatics, parseScenario, simulate, type Scenario } from "@/sim";
 import { nelderMead } from "./nelder-mead";
@@ -28,6 +28,8 @@ export interface CalibrationOptions {
   maxEvaluations?: number;
   /** Series grid of each evaluation, s (default 0.02). */
   sampleInterval?: number;
+  /** Called after every engine run with the share of the evaluation budget used (0–1). */
+  onProgress?: (fraction: number) => void;
 }
 
 export interface CalibrationParams {
@@ -78,7 +80,9 @@ interface Evaluated {
   headline: HeadlineFigures;
 }
 
-function evaluate(base: Scenario, rec: RecordedTrace, p: CalibrationParams, o: Required<Omit<CalibrationOptions, "fitFriction">>): Evaluated | null {
+type EvalSettings = Required<Omit<CalibrationOptions, "fitFriction" | "onProgress">>;
+
+function evaluate(base: Scenario, rec: RecordedTrace, p: CalibrationParams, o: EvalSettings): Evaluated | null {
   const parsed = parseScenario(withParams(base, p, o.segments, o.duration));
   if (!parsed.ok) return null;
   let r;
@@ -122,7 +126,7 @@ function evaluate(base: Scenario, rec: RecordedTrace, p: CalibrationParams, o: R
 
 export function calibrate(base: Scenario, rec: RecordedTrace, opts: CalibrationOptions = {}): CalibrationResult {
   const span = rec.t.length ? rec.t[rec.t.length - 1] - rec.t[0] : 0;
-  const o = {
+  const o: EvalSettings = {
     segments: opts.segments ?? 12,
     duration: opts.duration ?? Math.min(12, Math.max(1, span + 0.5)),
     maxEvaluations: opts.maxEvaluations ?? 60,
@@ -141,7 +145,16 @@ export function calibrate(base: Scenario, rec: RecordedTrace, opts: CalibrationO
     damping: d0 * Math.exp(x[1]),
     guideFriction: fitFriction ? Math.min(0.5, Math.max(0, initial.guideFriction + x[2])) : initial.guideFriction,
   });
-  const objective = (x: number[]) => evaluate(base, rec, toParams(x), o)?.sq ?? Number.POSITIVE_INFINITY;
+  // The budget plus the two closing runs (initial and fitted values): the share reported never passes 1.
+  const total = o.maxEvaluations + 2;
+  let runs = 0;
+  const counted = (p: CalibrationParams) => {
+    const e = evaluate(base, rec, p, o);
+    runs++;
+    opts.onProgress?.(Math.min(1, runs / total));
+    return e;
+  };
+  const objective = (x: number[]) => counted(toParams(x))?.sq ?? Number.POSITIVE_INFINITY;
   const x0 = fitFriction ? [0, 0, 0] : [0, 0];
   const nm = nelderMead(objective, x0, {
     step: fitFriction ? [0.15, 0.5, 0.01] : [0.15, 0.5],
@@ -149,8 +162,8 @@ export function calibrate(base: Scenario, rec: RecordedTrace, opts: CalibrationO
     xTolerance: 1e-3,
   });
   const fitted = toParams(nm.x);
-  const a = evaluate(base, rec, initial, o);
-  const b = evaluate(base, rec, fitted, o);
+  const a = counted(initial);
+  const b = counted(fitted);
   if (!a || !b) throw new Error("The engine could not run this lift and train over the recording's span.");
   return {
     initial,

@@ -1,7 +1,7 @@
 /**
- * The BullMQ execution mode: one Redis queue of run jobs; workers (`npm run worker`, or the test's own)
- * take a job, run the engine in their local worker-thread pool, and write the outcome to the database
- * exactly as the in-process pool does (lib/runs/runner.ts). Per-organisation concurrency is a Redis
+ * The BullMQ execution mode: one Redis queue of run and calibration jobs; workers (`npm run worker`, or
+ * the test's own) take a job, run the engine in their local worker-thread pool, and write the outcome to
+ * the database exactly as the in-process pool does (lib/runs/runner.ts, lib/calibration/runner.ts). Per-organisation concurrency is a Redis
  * sorted set of the organisation's running jobs (stale entries expire), checked atomically.
  */
 import { Queue, Worker, DelayedError, type Job } from "bullmq";
@@ -9,6 +9,7 @@ import IORedis, { type Redis } from "ioredis";
 import { Op } from "sequelize";
 import { getModels } from "@/models";
 import { dispatchRun, abortRun, type SolverSettings } from "@/lib/runs/runner";
+import { dispatchCalibration } from "@/lib/calibration/runner";
 import { RUNNER_ID, runnerMayBeAlive } from "@/lib/runs/runner-id";
 import { getJobPool, QueueFullError } from "./pool";
 import { orgConcurrency, QUEUE_RUNNER } from "./dispatch";
@@ -21,6 +22,14 @@ export interface RunJobData {
   solver: SolverSettings;
   studyCaseId?: number;
 }
+
+/** A calibration job (job name "calibration"): the row holds the fit's inputs. */
+export interface CalibrationJobData {
+  calibrationId: number;
+  organisationId: number;
+}
+
+type JobData = RunJobData | CalibrationJobData;
 
 /** A job that finished (any outcome): studies use it to copy the run's figures into the case. */
 export type RunFinishedHook = (data: RunJobData) => Promise<void>;
@@ -54,6 +63,10 @@ export async function closeRunQueue(): Promise<void> {
 
 export async function enqueueRun(data: RunJobData): Promise<void> {
   await getRunQueue().add("run", data, { jobId: `run-${data.runId}`, removeOnComplete: true, removeOnFail: 1000 });
+}
+
+export async function enqueueCalibration(data: CalibrationJobData): Promise<void> {
+  await getRunQueue().add("calibration", data, { jobId: `calibration-${data.calibrationId}`, removeOnComplete: true, removeOnFail: 1000 });
 }
 
 /** Removes a waiting job (a cancelled run); a job already taken notices the cancel itself. */
@@ -97,16 +110,17 @@ export interface QueueWorker {
   close(): Promise<void>;
 }
 
-/** Starts a BullMQ worker for run jobs in this process. */
+/** Starts a BullMQ worker for run and calibration jobs in this process. */
 export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
   const url = redisUrl();
   const redis = redisConnection(url);
   const concurrency = opts.concurrency ?? getJobPool().config.workers;
   const limit = orgConcurrency();
 
-  const processor = async (job: Job<RunJobData>, token?: string) => {
+  const processor = async (job: Job<JobData>, token?: string) => {
     const data = job.data;
-    const member = `run-${data.runId}`;
+    const calibration = job.name === "calibration" ? (data as CalibrationJobData) : null;
+    const member = calibration ? `calibration-${calibration.calibrationId}` : `run-${(data as RunJobData).runId}`;
     const got = await redis.eval(ACQUIRE, 1, orgKey(data.organisationId), Date.now(), member, STALE_MS, limit);
     if (got !== 1) {
       // The organisation already runs its share: try again shortly, letting other organisations' jobs by.
@@ -117,15 +131,16 @@ export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
       void redis.zadd(orgKey(data.organisationId), Date.now(), member).catch(() => undefined);
     }, HEARTBEAT_MS);
     try {
-      await runOne(data);
+      if (calibration) await calibrateOne(calibration);
+      else await runOne(data as RunJobData);
     } finally {
       clearInterval(heartbeat);
       await redis.zrem(orgKey(data.organisationId), member);
     }
-    if (opts.onFinished) await opts.onFinished(data);
+    if (!calibration && opts.onFinished) await opts.onFinished(data as RunJobData);
   };
 
-  const worker = new Worker<RunJobData>(QUEUE_NAME, processor, { connection: redisConnection(url), concurrency });
+  const worker = new Worker<JobData>(QUEUE_NAME, processor, { connection: redisConnection(url), concurrency });
   worker.on("error", (err) => console.error("run queue worker:", err.message));
   return {
     worker,
@@ -134,6 +149,35 @@ export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
       redis.disconnect();
     },
   };
+}
+
+/** A place in this worker's own pool, waiting for one when every local thread is busy. */
+async function localSlot() {
+  for (;;) {
+    try {
+      return getJobPool().reserve();
+    } catch (err) {
+      if (!(err instanceof QueueFullError)) throw err;
+      await new Promise((r) => setTimeout(r, RETRY_DELAY_MS));
+    }
+  }
+}
+
+/** Takes the calibration (if it still waits, or its worker died) and fits it in the local pool. */
+async function calibrateOne(data: CalibrationJobData): Promise<void> {
+  const { Calibration } = getModels();
+  const before = await Calibration.findByPk(data.calibrationId, { attributes: ["id", "status", "runner"] });
+  if (!before) return;
+  const takeOver = before.status === "running" && before.runner !== QUEUE_RUNNER && !runnerMayBeAlive(before.runner);
+  if (before.status !== "queued" && !takeOver) return;
+  const [taken] = await Calibration.update(
+    { runner: RUNNER_ID },
+    { where: { id: data.calibrationId, status: before.status, runner: before.runner ?? { [Op.is]: null } } },
+  );
+  if (!taken) return;
+  const cal = await Calibration.scope("withInputs").findByPk(data.calibrationId);
+  if (!cal) return;
+  await dispatchCalibration(cal, await localSlot());
 }
 
 /** Takes the run (if it still waits), runs it in the local pool, and stops it when its row is cancelled. */
@@ -151,17 +195,7 @@ async function runOne(data: RunJobData): Promise<void> {
   if (!taken) return;
   const run = await Run.findByPk(data.runId);
   if (!run) return;
-  let slot;
-  for (;;) {
-    try {
-      slot = getJobPool().reserve();
-      break;
-    } catch (err) {
-      if (!(err instanceof QueueFullError)) throw err;
-      await new Promise((r) => setTimeout(r, RETRY_DELAY_MS));
-    }
-  }
-  const done = dispatchRun(run, data.solver, slot);
+  const done = dispatchRun(run, data.solver, await localSlot());
   const poll = setInterval(() => {
     void Run.findByPk(data.runId, { attributes: ["id", "status"] }).then((r) => {
       if (!r || r.status === "cancelled") void abortRun(data.runId);

@@ -1,10 +1,11 @@
 /**
- * Where a run's job goes: the in-process worker-thread pool (default), or BullMQ on Redis when REDIS_URL
+ * Where a run's (or a calibration's) job goes: the in-process worker-thread pool (default), or BullMQ on Redis when REDIS_URL
  * is set (workers started with `npm run worker`, on any machine that reaches the database and Redis).
  */
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
 import { dispatchRun, type SolverSettings } from "@/lib/runs/runner";
+import { dispatchCalibration } from "@/lib/calibration/runner";
 import type { Slot } from "./pool";
 
 export type JobMode = "pool" | "queue";
@@ -43,4 +44,20 @@ export async function dispatchJob(
   await Run.update({ runner: QUEUE_RUNNER }, { where: { id: run.id } });
   const { enqueueRun } = await import("./bullmq");
   await enqueueRun({ runId: run.id, organisationId: run.organisationId, solver, ...extra });
+}
+
+/**
+ * Hands an accepted calibration to its executor, like dispatchJob: pool mode fits it here (resolves when
+ * its row is final); queue mode marks it as waiting in Redis and adds the job for a worker.
+ */
+export async function dispatchCalibrationJob(
+  cal: { id: number; organisationId: number; inputs: Record<string, unknown> },
+  slot: Slot,
+): Promise<void> {
+  if (jobMode() === "pool") return dispatchCalibration(cal, slot);
+  slot.release();
+  const { Calibration } = getModels();
+  await Calibration.update({ runner: QUEUE_RUNNER }, { where: { id: cal.id } });
+  const { enqueueCalibration } = await import("./bullmq");
+  await enqueueCalibration({ calibrationId: cal.id, organisationId: cal.organisationId });
 }

@@ -2,17 +2,22 @@ import { Piscina } from "piscina";
 import { MessageChannel } from "node:worker_threads";
 import { jobConfig, type JobConfig } from "./config";
 import { ensureWorkerBundle } from "./worker-bundle";
-import type { SimulationOutcome, SimulationTask, WorkerMessage } from "./protocol";
+import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerMessage, WorkerTask } from "./protocol";
 
 /** Thrown by `reserve()` when every worker is busy and the queue is full. */
 export class QueueFullError extends Error {
   constructor(readonly retryAfterSeconds: number) {
-    super("The run queue is full.");
+    super("The job queue is full.");
     this.name = "QueueFullError";
   }
 }
 
-/** A place in the pool (running or waiting), held from the moment a run is accepted until it ends. */
+export interface TaskOptions {
+  signal?: AbortSignal;
+  onMessage?: (m: WorkerMessage) => void;
+}
+
+/** A place in the pool (running or waiting), held from the moment a run or calibration is accepted until it ends. */
 export interface Slot {
   release(): void;
 }
@@ -54,14 +59,20 @@ export class JobPool {
   }
 
   /** Runs one simulation in a worker thread. Aborting `signal` removes a waiting task or ends its thread. */
-  async simulate(
-    task: Omit<SimulationTask, "port">,
-    opts: { signal?: AbortSignal; onMessage?: (m: WorkerMessage) => void } = {},
-  ): Promise<SimulationOutcome> {
+  simulate(task: Omit<SimulationTask, "port">, opts: TaskOptions = {}): Promise<SimulationOutcome> {
+    return this.run(task, opts) as Promise<SimulationOutcome>;
+  }
+
+  /** Runs one calibration fit in a worker thread (same places and queue as runs). */
+  calibrate(task: Omit<CalibrationTask, "port">, opts: TaskOptions = {}): Promise<CalibrationOutcome> {
+    return this.run(task, opts) as Promise<CalibrationOutcome>;
+  }
+
+  private async run(task: Omit<WorkerTask, "port">, opts: TaskOptions): Promise<unknown> {
     const { port1, port2 } = new MessageChannel();
     if (opts.onMessage) port1.on("message", opts.onMessage);
     try {
-      return (await this.piscina.run({ ...task, port: port2 }, { transferList: [port2], signal: opts.signal })) as SimulationOutcome;
+      return await this.piscina.run({ ...task, port: port2 }, { transferList: [port2], signal: opts.signal });
     } finally {
       port1.close();
     }

@@ -1,16 +1,47 @@
 /**
- * Worker-thread entry: runs the engine for one run and packs its result. Bundled into one .mjs file by
- * lib/jobs/build-worker.mjs; piscina calls the default export once per task.
+ * Worker-thread entry: runs the engine for one run and packs its result, or runs one calibration fit.
+ * Bundled into one .mjs file by lib/jobs/build-worker.mjs; piscina calls the default export once per task.
  */
 import { simulate } from "@/sim/simulate";
 import { SimulationError } from "@/sim/errors";
+import type { Scenario } from "@/sim/schema";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
-import type { SimulationOutcome, SimulationTask, WorkerMessage } from "./protocol";
+import { calibrate } from "@/lib/calibration/fit";
+import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerMessage, WorkerTask } from "./protocol";
 
 // Progress messages at most this often: the main thread writes them to the database, throttled again.
 const PROGRESS_EVERY_MS = 100;
 
-export default async function runSimulationTask(task: SimulationTask): Promise<SimulationOutcome> {
+export default async function runTask(task: WorkerTask): Promise<SimulationOutcome | CalibrationOutcome> {
+  return task.kind === "calibration" ? runCalibrationTask(task) : runSimulationTask(task);
+}
+
+/** One fit: pure compute on the trace and scenario it was given (about 60 coarse engine runs). */
+function runCalibrationTask(task: CalibrationTask): CalibrationOutcome {
+  const post = (m: WorkerMessage) => task.port.postMessage(m);
+  const t0 = performance.now();
+  let lastPost = 0;
+  post({ type: "started" });
+  try {
+    const result = calibrate(task.scenario as Scenario, task.trace, {
+      ...task.options,
+      onProgress: (f) => {
+        const now = performance.now();
+        if (now - lastPost < PROGRESS_EVERY_MS) return;
+        lastPost = now;
+        post({ type: "progress", value: f });
+      },
+    });
+    return { ok: true, result, wallTimeMs: Math.round(performance.now() - t0) };
+  } catch (err) {
+    const message = err instanceof Error ? err.message : String(err);
+    return { ok: false, code: "calibration-error", message, wallTimeMs: Math.round(performance.now() - t0) };
+  } finally {
+    task.port.close();
+  }
+}
+
+async function runSimulationTask(task: SimulationTask): Promise<SimulationOutcome> {
   const post = (m: WorkerMessage) => task.port.postMessage(m);
   const t0 = performance.now();
   let lastPost = 0;

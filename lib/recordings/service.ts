@@ -1,9 +1,8 @@
 /**
  * Logger recordings: a dry run reports every problem; a store writes the file as received to object
  * storage and the parsed rows to MariaDB, attached to the lift's current revision. Also the overlay on a
- * run, the calibration against the recording's take-up trace, and saving fitted values as a new revision.
+ * run, and saving fitted values as a new revision (the fit itself is a job: lib/calibration/service.ts).
  */
-import type { Scenario as EngineScenario } from "@/sim";
 import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
 import { validate } from "@/lib/api/validate";
 import { recordAudit } from "@/lib/audit/record";
@@ -12,8 +11,6 @@ import { badRequest, HttpError } from "@/lib/http/errors";
 import { storeRecordingFile } from "@/lib/logbook/uploads";
 import { updateLift } from "@/lib/lifts/service";
 import { findOwnRun, getRunResult } from "@/lib/runs/service";
-import { calibrate, type CalibrationResult } from "@/lib/calibration/fit";
-import { resolveEngineScenario } from "@/lib/scenarios/engine";
 import { getModels, type Recording } from "@/models";
 import { alignAtEngagement, type OverlaySeries } from "./align";
 import { detectEngagement, parseRecordingCsv, type ParseReport } from "./parse";
@@ -162,44 +159,6 @@ export async function overlay(actor: Actor, id: number, runIdText: unknown): Pro
   const eng = (res.summary as { engagementTime?: number | null } | null)?.engagementTime ?? null;
   const s = await seriesOf(r.id);
   return { runId, ...alignAtEngagement({ t: s.t, takeUp: s.takeUpPosition, engagementTime: r.engagementTime }, { t: series.t, takeUp: series.takeUpPosition, engagementTime: eng }) };
-}
-
-export const calibrateInputSchema = z.object({
-  scenarioId: z.number().int().positive(),
-  fitFriction: z.boolean().optional(),
-});
-
-/**
- * Fits E·A and damping (and optionally guide friction) to the recording's take-up trace, with the
- * scenario's train and entry conditions on the recording's lift revision. Runs the engine in this
- * request (about 50–60 coarse runs; a few seconds).
- */
-export async function calibrateRecording(actor: Actor, id: number, input: unknown): Promise<CalibrationResult & { scenario: string }> {
-  const r = await ownRecording(actor, id);
-  assertCan(actor, "run:start");
-  const body = validate(calibrateInputSchema, input);
-  const { Scenario, Train, LiftRevision } = getModels();
-  const scenario = ownOr404(await Scenario.findByPk(body.scenarioId), actor, "Scenario");
-  if (scenario.liftId !== r.liftId) throw badRequest("The scenario is of another lift.", [{ path: "scenarioId", message: "choose a scenario of this recording's lift" }]);
-  const train = await Train.findByPk(scenario.trainId);
-  const revision = await LiftRevision.findByPk(r.liftRevisionId);
-  if (!train || !revision) throw new HttpError(409, "The scenario's train or the recording's revision is missing.");
-  const resolved = resolveEngineScenario(scenario, revision, train);
-  if (!resolved.ok) throw badRequest("The scenario does not make a valid engine scenario with the recording's revision.", resolved.issues);
-  const s = await seriesOf(r.id);
-  const t: number[] = [];
-  const y: number[] = [];
-  s.t.forEach((x, i) => {
-    const v = s.takeUpPosition[i];
-    if (v !== null) {
-      t.push(x - s.t[0]);
-      y.push(v);
-    }
-  });
-  if (t.length < 10) throw badRequest("The recording has no take-up trace to fit.", [{ path: "recording", message: "map a take-up position column" }]);
-  if (r.engagementTime === null) throw badRequest("The recording has no engagement time to align on.", [{ path: "engagementTime", message: "give the engagement time or a train speed column" }]);
-  const result = calibrate(resolved.scenario as EngineScenario, { t, takeUp: y, engagementTime: r.engagementTime - s.t[0] }, { fitFriction: body.fitFriction });
-  return { ...result, scenario: scenario.name };
 }
 
 export const saveCalibrationSchema = z.object({

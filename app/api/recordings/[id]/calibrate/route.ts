@@ -4,13 +4,21 @@ import { route } from "@/lib/http/route";
 import { readObjectBody } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
-import { calibrateRecording } from "@/lib/recordings/service";
+import { startCalibration } from "@/lib/calibration/service";
 
 export const runtime = "nodejs";
 
-/** Fits E·A and damping (optionally guide friction) to the recording: { scenarioId, fitFriction? }. Saves nothing. */
+/**
+ * Starts fitting E·A and damping (optionally guide friction) to the recording: { scenarioId, fitFriction? }.
+ * Answers 202 with the queued job at once (poll GET …/calibration?calibrationId=); 503 + Retry-After when
+ * the job queue is full. Saves nothing to the lift.
+ */
 export const POST = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("run:start");
   const id = parseId((await ctx.params).id, "Recording not found.");
-  return NextResponse.json(await calibrateRecording(actor, id, await readObjectBody(req)));
+  const calibration = await startCalibration(actor, id, await readObjectBody(req));
+  return NextResponse.json(
+    { calibration },
+    { status: 202, headers: { Location: `/api/recordings/${id}/calibration?calibrationId=${calibration.id}` } },
+  );
 });

@@ -1,12 +1,23 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
+import { queryOf, readObjectBody } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
+import { getCalibration, latestCalibration } from "@/lib/calibration/service";
 import { saveCalibration } from "@/lib/recordings/service";
 
 export const runtime = "nodejs";
+
+/** A calibration job of the recording (?calibrationId=), or its latest (null when none): status, progress, fit. */
+export const GET = route(async (req, ctx: RouteContext) => {
+  const actor = await requirePermission("logbook:read");
+  const id = parseId((await ctx.params).id, "Recording not found.");
+  const which = queryOf(req).calibrationId;
+  const calibration =
+    which === undefined ? await latestCalibration(actor, id) : await getCalibration(actor, id, parseId(String(which), "Calibration not found."));
+  return NextResponse.json({ calibration });
+});
 
 /** Saves fitted values as a new revision of the recording's lift: { version, axialStiffness, damping, guideFriction? }. */
 export const POST = route(async (req, ctx: RouteContext) => {
