@@ -1,13 +1,19 @@
 "use client";
-/** Fit E·A and damping (optionally guide friction) to the recording; show the fit and save as a new lift revision. */
-import { useState } from "react";
+/**
+ * Fit E·A and damping (optionally guide friction) to the recording; show the fit and save as a new lift
+ * revision. The fit is a job in the engine pool: the panel starts it, polls its status (SWR) and shows
+ * its progress, then the result or the job's error.
+ */
+import { useEffect, useRef, useState } from "react";
+import useSWR from "swr";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
-import { ApiError, sendJson } from "@/lib/client/fetch";
+import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
+import type { CalibrationStatus } from "@/lib/calibration/status";
 
 interface Params {
   axialStiffness: number;
@@ -42,6 +48,26 @@ const ROWS: [keyof Headline, string, (v: number) => string][] = [
   ["takeUpMargin", "Take-up travel margin", (v) => `${(v * 1000).toFixed(0)} mm`],
 ];
 
+/** The job as GET /api/recordings/[id]/calibration answers it (lib/calibration/service.ts). */
+interface Job {
+  id: number;
+  scenario: string;
+  fitFriction: boolean;
+  status: CalibrationStatus;
+  progress: number;
+  result: Fit | null;
+  error: string | null;
+}
+
+const POLL_MS = 700;
+
+function errorText(err: unknown): string {
+  if (!(err instanceof ApiError)) return err instanceof Error ? err.message : String(err);
+  const retry = err.status === 503 ? err.headers?.get("retry-after") : null;
+  const issues = err.issues.map((i) => `${i.path}: ${i.message}`).join("; ");
+  return [err.message, issues, retry ? `Try again in ${retry} s.` : ""].filter(Boolean).join(" ");
+}
+
 /** A figure the run did not produce (null in JSON) shows as a dash. */
 const shown = (v: number | null, f: (v: number) => string) => (v === null || !Number.isFinite(v) ? "—" : f(v));
 
@@ -60,37 +86,54 @@ export function CalibrationPanel({
 }) {
   const [scenarioId, setScenarioId] = useState(scenarios[0]?.id ?? 0);
   const [friction, setFriction] = useState(false);
-  const [fit, setFit] = useState<Fit | null>(null);
-  const [busy, setBusy] = useState(false);
+  // Null: the recording's latest calibration (a fit started earlier keeps showing after a reload).
+  const [jobId, setJobId] = useState<number | null>(null);
+  const [starting, setStarting] = useState(false);
   const [msg, setMsg] = useState<{ tone: "error" | "success"; text: string } | null>(null);
+  const key = `/api/recordings/${recordingId}/calibration${jobId ? `?calibrationId=${jobId}` : ""}`;
+  const { data, error: pollError, mutate } = useSWR<{ calibration: Job | null }>(key, getJson, {
+    refreshInterval: (d) => (d?.calibration && (d.calibration.status === "queued" || d.calibration.status === "running") ? POLL_MS : 0),
+  });
+  const job = data?.calibration ?? null;
+  const active = job?.status === "queued" || job?.status === "running";
+  const fit = job?.status === "done" ? job.result : null;
+
+  // Hand each finished fit's trace to the overlay once.
+  const shownFit = useRef<number | null>(null);
+  useEffect(() => {
+    if (!job || !fit || shownFit.current === job.id) return;
+    shownFit.current = job.id;
+    onFitted(fit.fittedTrace.t, fit.fittedTrace.takeUp);
+  }, [job, fit, onFitted]);
 
   const run = async () => {
-    setBusy(true);
+    setStarting(true);
     setMsg(null);
     try {
-      const f = await sendJson<Fit>(`/api/recordings/${recordingId}/calibrate`, "POST", { scenarioId, fitFriction: friction });
-      setFit(f);
-      onFitted(f.fittedTrace.t, f.fittedTrace.takeUp);
+      const r = await sendJson<{ calibration: Job }>(`/api/recordings/${recordingId}/calibrate`, "POST", { scenarioId, fitFriction: friction });
+      setJobId(r.calibration.id);
+      await mutate({ calibration: r.calibration }, { revalidate: false });
     } catch (err) {
-      setMsg({ tone: "error", text: err instanceof ApiError ? `${err.message} ${err.issues.map((i) => `${i.path}: ${i.message}`).join("; ")}` : String(err) });
+      setMsg({ tone: "error", text: errorText(err) });
     } finally {
-      setBusy(false);
+      setStarting(false);
     }
   };
   const save = async () => {
-    if (!fit) return;
+    if (!fit || !job) return;
     try {
       const r = await sendJson<{ currentRevision: { number: number } }>(`/api/recordings/${recordingId}/calibration`, "POST", {
         version: liftVersion,
         axialStiffness: fit.fitted.axialStiffness,
         damping: fit.fitted.damping,
-        ...(friction ? { guideFriction: fit.fitted.guideFriction } : {}),
+        ...(job.fitFriction ? { guideFriction: fit.fitted.guideFriction } : {}),
       });
       setMsg({ tone: "success", text: `Saved as revision ${r.currentRevision.number} of the lift.` });
     } catch (err) {
-      setMsg({ tone: "error", text: err instanceof Error ? err.message : String(err) });
+      setMsg({ tone: "error", text: errorText(err) });
     }
   };
+  const pct = job ? Math.round(Math.min(1, Math.max(0, job.progress)) * 100) : 0;
 
   return (
     <Card>
@@ -109,13 +152,38 @@ export function CalibrationPanel({
           <label className="flex items-center gap-2 text-[13.5px]">
             <input type="checkbox" checked={friction} onChange={(e) => setFriction(e.target.checked)} /> also fit guide friction
           </label>
-          <Button busy={busy} onClick={() => void run()} disabled={!scenarioId} data-testid="run-calibration">
+          <Button busy={starting || active} onClick={() => void run()} disabled={!scenarioId || starting || active} data-testid="run-calibration">
             Fit
           </Button>
         </div>
-        {msg && <Alert tone={msg.tone}>{msg.text}</Alert>}
-        {fit && (
+        {msg && (
+          <Alert tone={msg.tone} testId={msg.tone === "error" ? "calibration-error" : "calibration-saved"}>
+            {msg.text}
+          </Alert>
+        )}
+        {pollError && (
+          <Alert tone="error" testId="calibration-error">
+            Could not read the fit&apos;s status: {errorText(pollError)}
+          </Alert>
+        )}
+        {job && active && (
+          <div className="space-y-1" data-testid="calibration-progress">
+            <p className="text-[13.5px] text-steel-600">
+              {job.status === "queued" ? "Waiting for a free engine worker…" : `Fitting against “${job.scenario}”: ${pct} % of the engine runs done`}
+            </p>
+            <div className="h-2 w-full overflow-hidden rounded bg-steel-100" role="progressbar" aria-valuenow={pct} aria-valuemin={0} aria-valuemax={100}>
+              <div className="h-full bg-lamp-500 transition-all" style={{ width: `${pct}%` }} />
+            </div>
+          </div>
+        )}
+        {job?.status === "failed" && (
+          <Alert tone="error" title="The fit failed" testId="calibration-error">
+            {job.error ?? "The calibration stopped without a message."}
+          </Alert>
+        )}
+        {fit && job && (
           <div className="space-y-3" data-testid="calibration-result">
+            <p className="text-[12.5px] text-steel-500">Fitted with the train and entry conditions of “{job.scenario}”.</p>
             <Table>
               <THead>
                 <Tr>
