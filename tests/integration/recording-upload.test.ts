@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createRecording, getRecording, overlay, calibrateRecording, saveCalibration } from "@/lib/recordings/service";
+import { createRecording, getRecording, overlay, saveCalibration } from "@/lib/recordings/service";
+import { getCalibration, startCalibration } from "@/lib/calibration/service";
+import { waitForCalibrationJob } from "@/lib/calibration/runner";
 import { readUpload } from "@/lib/logbook/uploads";
 import { getRunResult } from "@/lib/runs/service";
 import { getLift } from "@/lib/lifts/service";
@@ -67,8 +69,12 @@ describe("logger uploads", () => {
   it("calibrates against the recording and saves the fit as a new lift revision", async () => {
     const { Recording } = getModels();
     const rec = await Recording.findOne({ where: { organisationId: w.organisationId } });
-    const fit = await calibrateRecording(w.as.engineer, rec!.id, { scenarioId: w.scenarioId });
-    expect(fit.quality.fitted.rms).toBeLessThanOrEqual(fit.quality.initial.rms + 1e-9);
+    const job = await startCalibration(w.as.engineer, rec!.id, { scenarioId: w.scenarioId });
+    await waitForCalibrationJob(job.id);
+    const done = await getCalibration(w.as.engineer, rec!.id, job.id);
+    expect(done.status).toBe("done");
+    const fit = done.result!;
+    expect(fit.quality.fitted.rms!).toBeLessThanOrEqual(fit.quality.initial.rms! + 1e-9);
     await expectHttpError(() => saveCalibration(w.as.operator, rec!.id, { version: 0, axialStiffness: fit.fitted.axialStiffness, damping: fit.fitted.damping }), 403);
     const lift = await getLift(w.as.engineer, w.liftId);
     const saved = await saveCalibration(w.as.engineer, rec!.id, { version: lift.version, axialStiffness: 1.6e7, damping: 3000 });
