@@ -149,3 +149,30 @@ test("bad solver settings answer 400 with the field path; an engineer cancels an
   expect((await engineer.delete(`/api/runs/${run.id}?version=${current.version}`)).status()).toBe(204);
   expect((await engineer.get(`/api/runs/${run.id}`)).status()).toBe(404);
 });
+
+test("a what-if run over HTTP: the server applies and returns the overrides; bad ones answer 400 with the path and store nothing", async () => {
+  const total = async () => ((await (await engineer.get(`/api/scenarios/${scenarioId}/runs?pageSize=1`)).json()) as { total: number }).total;
+  const before = await total();
+  for (const [data, path] of [
+    [{ overrides: { takeUpMass: -5 } }, "overrides.takeUpMass"],
+    [{ overrides: { takeUpMass: null } }, "overrides.takeUpMass"],
+    [{ overrides: { entrySpeed: 2, gust: 1 } }, "overrides"],
+  ] as const) {
+    const bad = await engineer.post(`/api/scenarios/${scenarioId}/runs`, { data });
+    expect(bad.status()).toBe(400);
+    expect(((await bad.json()) as { issues: { path: string }[] }).issues.map((i) => i.path)).toContain(path);
+  }
+  expect(await total()).toBe(before);
+
+  const started = await engineer.post(`/api/scenarios/${scenarioId}/runs`, { data: { overrides: { takeUpMass: 6000 } } });
+  expect(started.status()).toBe(202);
+  const { run } = (await started.json()) as { run: RunBody & { overrides: unknown; overridesFrom: unknown } };
+  // The example lift hill's own take-up mass is 5000 kg (sim/examples/lift-hill-example.json).
+  expect(run.overrides).toEqual({ takeUpMass: 6000 });
+  expect(run.overridesFrom).toEqual({ takeUpMass: 5000 });
+  expect((await poll(engineer, run.id)).status).toBe("done");
+  const read = (await (await engineer.get(`/api/runs/${run.id}`)).json()) as { overrides: unknown; inputs: { takeUp: { mass: number } } };
+  expect(read.overrides).toEqual({ takeUpMass: 6000 });
+  expect(read.inputs.takeUp.mass).toBe(6000);
+  expect(await total()).toBe(before + 1);
+});
