@@ -3,6 +3,8 @@ import { getModels } from "@/models";
 import { closeJobPool } from "@/lib/jobs/pool";
 import { parseStartRunBody } from "@/lib/runs/http";
 import { getRun, getRunResult, listRuns, startRun } from "@/lib/runs/service";
+import { createReport } from "@/lib/reports/service";
+import { buildReportContent } from "@/lib/reports/content";
 import type { Actor } from "@/lib/api/actor";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, runCount, shortScenarioFile } from "./runs-fixtures";
@@ -97,6 +99,17 @@ describe("what-if overrides", () => {
     const inputs = (await getRun(engineer, view.id)).inputs as Record<string, Record<string, unknown>>;
     expect(inputs.train!.entrySpeed).toBe(1.2);
     expect(inputs.drive!.speed).toBe(3);
+  });
+
+  it("gives a report of a what-if run its inputs and lists the overrides among the assumptions", async () => {
+    const view = await post(JSON.stringify({ overrides: { takeUpMass: 6000 } }));
+    expect((await finished(view.id)).status).toBe("done");
+    const report = await createReport(engineer, { scenarioId, runId: view.id, units: "si" });
+    const content = await buildReportContent((await getModels().Report.findByPk(report.id))!);
+    expect(content.inputs.takeUp.mass).toBe(6000);
+    // Source: the same statics of a 2:1 gravity take-up, T = m·g/2, on the report's own inputs.
+    expect(content.statics.takeUpTension).toBeCloseTo((6000 * content.inputs.run.gravity) / 2, 6);
+    expect(content.assumptions.find((a) => a.key === "whatIf")?.value).toBe("take-up mass 6000 kg (scenario: 5000 kg)");
   });
 
   it("answers bad overrides with 400 and the field path, and stores no run", async () => {
