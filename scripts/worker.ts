@@ -1,6 +1,6 @@
-// npm run worker: a BullMQ worker for runs and study cases. Start it on any machine that reaches the
-// database (DB_*) and Redis (REDIS_URL); it runs JOB_WORKERS engine threads. Ctrl-C / SIGTERM stops
-// taking jobs, lets the jobs in hand finish, then exits (a killed worker's jobs go back to the queue as stalled).
+// npm run worker: a BullMQ worker for runs, study cases and calibration fits. Start it on any machine
+// that reaches the database (DB_*) and Redis (REDIS_URL); it runs JOB_WORKERS engine threads. Ctrl-C /
+// SIGTERM stops taking jobs, lets the jobs in hand finish, then exits (a killed worker's jobs go back to the queue as stalled).
 import { startQueueWorker } from "../lib/jobs/bullmq";
 import { closeJobPool, getJobPool } from "../lib/jobs/pool";
 import { settleCaseOfJob } from "../lib/studies/progress";
