@@ -2,7 +2,7 @@
 export interface JobConfig {
   /** Worker threads running the engine (JOB_WORKERS, default 1: the machine has 2 cores). */
   workers: number;
-  /** Runs that may wait for a free worker (JOB_QUEUE_MAX, default 8); beyond that, starting a run answers 503. */
+  /** Jobs (runs, calibration fits) that may wait for a worker (JOB_QUEUE_MAX, default 8); beyond, starting one answers 503. */
   queueMax: number;
   /** An idle worker thread exits after this long (JOB_IDLE_MS, default 60 s). */
   idleMs: number;
