@@ -1,7 +1,8 @@
 "use client";
 /**
  * What-if sliders: entry speed, chain speed, take-up mass. While a slider moves, a coarse preview runs in
- * the worker and redraws the figures and plots; when it rests, the full run follows.
+ * the worker and redraws the figures and plots; when it rests, the full run follows. The values live in the
+ * run store, where Save picks the moved ones up as the run's overrides.
  */
 import { useEffect, useRef, useState } from "react";
 import type { Scenario } from "@/sim";
@@ -79,7 +80,7 @@ export function WhatIfPanel({
       <div className="mb-2 flex items-center justify-between gap-2">
         <div>
           <h3 className="text-[13.5px] font-bold text-ink-900">What if</h3>
-          <p className="text-[11.5px] text-steel-500">A coarse preview follows the slider; the full run follows when it rests. The scenario itself is not changed.</p>
+          <p className="text-[11.5px] text-steel-500">A coarse preview follows the slider; the full run follows when it rests. The scenario itself is not changed; saving keeps the values with the run as a what-if variant.</p>
         </div>
         <Button size="sm" variant="ghost" onClick={reset} disabled={!changed} data-testid="whatif-reset">
           Reset
