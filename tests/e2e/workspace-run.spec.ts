@@ -52,6 +52,12 @@ test.describe("workspace: run view", () => {
     const cursor = kN(await page.getByTestId("cursor-max-tension").textContent());
     expect(peakHeadline).toBeGreaterThan(0);
     expect(Math.abs(cursor - peakHeadline) / peakHeadline).toBeLessThan(0.05);
+    // The chain tension at the dog: its own line beside the drive's, in the read-out, never above the highest.
+    await expect(page.getByTestId("plot-tension")).toContainText("At the dog");
+    await expect(page.getByTestId("plot-note-tension")).toContainText("just ahead of the dog's catch point");
+    const atDog = kN(await page.getByTestId("cursor-dog-tension").textContent());
+    expect(atDog).toBeGreaterThan(0);
+    expect(atDog).toBeLessThanOrEqual(cursor * 1.02);
     const t = Number((await page.getByTestId("replay-time").textContent())!.replace(/[^\d.]/g, ""));
     expect(Number(await page.getByTestId("cursor-time").textContent())).toBeCloseTo(t, 1);
     await expect(page).toHaveURL(/[?&]t=\d+\.\d\d/);
@@ -111,6 +117,7 @@ test.describe("workspace: run view", () => {
     await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "server");
     await expect(page.getByTestId("saved-run-whatif")).toContainText("What-if variant");
     await expect(page.getByTestId("saved-run-override")).toHaveText("entry speed 4.00 m/s (scenario: 4.50 m/s)");
+    await page.screenshot({ path: "tests/artifacts/workspace-whatif-run-1440.png" });
     const whatIfPath = new URL(page.url()).pathname;
     await page.reload();
     await expect(page.getByTestId("saved-run-override")).toHaveText("entry speed 4.00 m/s (scenario: 4.50 m/s)");
@@ -133,6 +140,19 @@ test.describe("workspace: run view", () => {
     await expect(page.getByTestId("run-results")).toHaveAttribute("data-origin", "server");
     await expect(page.getByTestId("settle-back")).toBeVisible();
     await expect(page.getByTestId("cancel-server-run")).toHaveCount(0);
+    // In US customary units the reasons quote kip and in, not kN and mm (then back to SI for other tests).
+    const toggle = page.getByTestId("units-toggle");
+    await page.getByTestId("user-menu").click();
+    await toggle.getByRole("button", { name: /US/ }).click();
+    try {
+      await expect(page.getByTestId("reason-rollback")).toContainText(/peak [\d.,]+ kip, [\d.,]+ in back/);
+      await expect(page.getByTestId("reason-snatch")).toContainText("kip");
+      await expect(page.getByTestId("headline-figures")).not.toContainText(/\d (kN|mm|kW)\b/);
+    } finally {
+      if (!(await toggle.isVisible())) await page.getByTestId("user-menu").click();
+      await toggle.getByRole("button", { name: /SI/ }).click();
+      await expect(toggle.getByRole("button", { name: /SI/ })).toHaveAttribute("aria-pressed", "true");
+    }
     await page.getByRole("link", { name: "Open the scenario" }).click();
     await expect(page.getByTestId("read-only-note")).toContainText("Read only");
     await expect(page.getByTestId("run-in-browser")).toHaveCount(0);
