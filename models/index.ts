@@ -1,5 +1,6 @@
 import type { Sequelize } from "sequelize";
 import { getSequelize } from "@/lib/db/sequelize";
+import { trackChanges } from "@/lib/db/change-tracker";
 import { initOrganisation, Organisation } from "./Organisation";
 import { initUser, User } from "./User";
 import { initAuthToken, AuthToken } from "./AuthToken";
@@ -115,6 +116,8 @@ function associate(m: Models): void {
 export function initModels(sequelize: Sequelize): Models {
   const existing = boundTo.get(sequelize);
   if (existing) return existing;
+  // Counts writes per table so cached answers (lib/http/read-cache.ts, the session's user row) go stale.
+  trackChanges(sequelize);
   const m: Models = {
     Organisation: initOrganisation(sequelize),
     User: initUser(sequelize),

@@ -11,6 +11,7 @@ import {
 import { HttpError, unavailable } from "../http/errors";
 import { dbConfig, dbTarget, type DbConfig } from "./config";
 import { getSequelize } from "./sequelize";
+import { noteDatabaseLost } from "./change-tracker";
 
 // Driver codes that mean "the server went away" even when Sequelize wraps them as a plain DatabaseError.
 const LOST_CODES = new Set([
@@ -89,6 +90,8 @@ export async function checkDatabase(sequelize: Sequelize = getSequelize(), c: Db
  */
 export function dbHttpError(err: unknown, c: DbConfig = dbConfig()): unknown {
   if (err instanceof HttpError || !isDbConnectionError(err)) return err;
+  // Answers kept in memory are not served while the database is away: the API says it is unavailable.
+  noteDatabaseLost();
   const detail = dbUnreachableMessage(err, c);
   console.error(detail);
   return unavailable(
