@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { queryOf, readObjectBody } from "@/lib/api/body";
 import { createChainSpec, listChainSpecs } from "@/lib/chains/service";
 
@@ -9,7 +10,7 @@ export const runtime = "nodejs";
 /** The standard catalogue plus the organisation's own chains: ?scope=all|standard|own&q&sort&order&page&pageSize&archived. */
 export const GET = route(async (req) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await listChainSpecs(actor, queryOf(req)));
+  return cachedRead(req, actor, async () => listChainSpecs(actor, queryOf(req)));
 });
 
 /** A chain of the organisation's own (e.g. its manufacturer's data sheet values). */

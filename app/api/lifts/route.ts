@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { queryOf, readObjectBody } from "@/lib/api/body";
 import { createLift, listLifts } from "@/lib/lifts/service";
 
@@ -9,7 +10,7 @@ export const runtime = "nodejs";
 /** Lifts of the organisation: ?page&pageSize&sort=name|site|createdAt|updatedAt&order&q&site&archived. */
 export const GET = route(async (req) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await listLifts(actor, queryOf(req)));
+  return cachedRead(req, actor, async () => listLifts(actor, queryOf(req)));
 });
 
 /** A new lift with revision 1. */

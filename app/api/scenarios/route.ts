@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { queryOf, readObjectBody } from "@/lib/api/body";
 import { createScenario, listScenarios } from "@/lib/scenarios/service";
 
@@ -9,7 +10,7 @@ export const runtime = "nodejs";
 /** Scenarios: ?page&pageSize&sort=name|createdAt|updatedAt|entrySpeed&order&q&liftId&trainId&loading&frozen&archived. */
 export const GET = route(async (req) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await listScenarios(actor, queryOf(req)));
+  return cachedRead(req, actor, async () => listScenarios(actor, queryOf(req)));
 });
 
 /** A scenario pinned to the lift's current revision (or the given liftRevisionId). */

@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { queryOf, readObjectBody } from "@/lib/api/body";
 import { createTrain, listTrains } from "@/lib/trains/service";
 
@@ -9,7 +10,7 @@ export const runtime = "nodejs";
 /** Trains of the organisation: ?page&pageSize&sort=name|cars|carMassEmpty|createdAt|updatedAt&order&q&archived. */
 export const GET = route(async (req) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await listTrains(actor, queryOf(req)));
+  return cachedRead(req, actor, async () => listTrains(actor, queryOf(req)));
 });
 
 export const POST = route(async (req) => {

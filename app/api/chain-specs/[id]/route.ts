@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { readObjectBody } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
@@ -8,9 +9,9 @@ import { deleteChainSpec, getChainSpec, updateChainSpec } from "@/lib/chains/ser
 
 export const runtime = "nodejs";
 
-export const GET = route(async (_req, ctx: RouteContext) => {
+export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await getChainSpec(actor, parseId((await ctx.params).id, "Chain not found.")));
+  return cachedRead(req, actor, async () => getChainSpec(actor, parseId((await ctx.params).id, "Chain not found.")));
 });
 
 /** Updates one of the organisation's own chains (the standard catalogue is read-only). */

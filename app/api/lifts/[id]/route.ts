@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { readObjectBody } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
@@ -8,9 +9,9 @@ import { deleteLift, getLift, updateLift } from "@/lib/lifts/service";
 
 export const runtime = "nodejs";
 
-export const GET = route(async (_req, ctx: RouteContext) => {
+export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await getLift(actor, parseId((await ctx.params).id, "Lift not found.")));
+  return cachedRead(req, actor, async () => getLift(actor, parseId((await ctx.params).id, "Lift not found.")));
 });
 
 /** Saves the lift as a new revision; the body carries the version it edits. */

@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { requirePermission } from "@/lib/auth/session";
 import { deleteRun, getRun } from "@/lib/runs/service";
 import { idFrom, type IdParams } from "@/lib/runs/http";
@@ -8,9 +9,10 @@ export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** Status, progress, summary and the stored inputs of one run (poll this, or follow /events). */
-export const GET = route<IdParams>(async (_req, ctx) => {
+export const GET = route<IdParams>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  return NextResponse.json(await getRun(user, await idFrom(ctx, "No such run.")));
+  const id = await idFrom(ctx, "No such run.");
+  return cachedRead(req, user, () => getRun(user, id));
 });
 
 /** Deletes a run: DELETE /api/runs/{id}?version={the version you loaded} (409 when stale). */

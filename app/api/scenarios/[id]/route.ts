@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { readObjectBody } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
@@ -8,9 +9,9 @@ import { deleteScenario, getScenario, updateScenario } from "@/lib/scenarios/ser
 
 export const runtime = "nodejs";
 
-export const GET = route(async (_req, ctx: RouteContext) => {
+export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await getScenario(actor, parseId((await ctx.params).id, "Scenario not found.")));
+  return cachedRead(req, actor, async () => getScenario(actor, parseId((await ctx.params).id, "Scenario not found.")));
 });
 
 /** Partial update with the version edited; a frozen scenario answers 409. */

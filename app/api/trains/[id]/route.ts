@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { readObjectBody } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
@@ -8,9 +9,9 @@ import { deleteTrain, getTrain, updateTrain } from "@/lib/trains/service";
 
 export const runtime = "nodejs";
 
-export const GET = route(async (_req, ctx: RouteContext) => {
+export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await getTrain(actor, parseId((await ctx.params).id, "Train not found.")));
+  return cachedRead(req, actor, async () => getTrain(actor, parseId((await ctx.params).id, "Train not found.")));
 });
 
 export const PATCH = route(async (req, ctx: RouteContext) => {

@@ -1,6 +1,6 @@
-import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { queryOf } from "@/lib/api/body";
 import { parseId } from "@/lib/api/ids";
 import type { RouteContext } from "@/lib/api/params";
@@ -11,5 +11,5 @@ export const runtime = "nodejs";
 /** The lift's revisions, newest first: ?page&pageSize&sort=number|createdAt&order. */
 export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("design:read");
-  return NextResponse.json(await listRevisions(actor, parseId((await ctx.params).id, "Lift not found."), queryOf(req)));
+  return cachedRead(req, actor, async () => listRevisions(actor, parseId((await ctx.params).id, "Lift not found."), queryOf(req)));
 });

@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
 import { route } from "@/lib/http/route";
+import { cachedRead } from "@/lib/http/read-cache";
 import { parseQuery } from "@/lib/http/request";
 import { requirePermission } from "@/lib/auth/session";
 import { assertOwnScenario, listRuns, startRun } from "@/lib/runs/service";
@@ -14,7 +15,7 @@ export const GET = route<IdParams>(async (req, ctx) => {
   const user = await requirePermission("run:read");
   const scenarioId = await idFrom(ctx, "No such scenario.");
   const query = parseQuery(req, listRunsQuerySchema);
-  return NextResponse.json(await listRuns(user, scenarioId, query));
+  return cachedRead(req, user, () => listRuns(user, scenarioId, query));
 });
 
 /**
