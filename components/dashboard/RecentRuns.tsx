@@ -10,7 +10,21 @@ import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { json } from "@/lib/runs/serialize";
 import type { RunStatus } from "@/lib/runs/status";
 import { getModels } from "@/models";
-import type { Scenario, Summary } from "@/sim";
+import type { Check, Scenario, Summary } from "@/sim";
+
+// The checks of a finished run never change (its inputs and summary are frozen), and working them out means
+// the design statics of the whole lift: remember them per run version instead of on every dashboard view.
+const failedChecks = new Map<string, Check[]>();
+
+function failedChecksOf(key: string, inputs: () => Scenario, summary: Summary): Check[] {
+  let hit = failedChecks.get(key);
+  if (!hit) {
+    hit = checksFor(inputs(), summary).filter((c) => c.state === "fail");
+    if (failedChecks.size >= 1_000) failedChecks.delete(failedChecks.keys().next().value!);
+    failedChecks.set(key, hit);
+  }
+  return hit;
+}
 
 const TONE = { queued: "neutral", running: "lamp", done: "pass", failed: "fail", cancelled: "neutral" } as const;
 
@@ -27,8 +41,7 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
   );
   const rows = runs.map((r) => {
     const summary = json<Summary | null>(r.summary ?? null);
-    const inputs = json<Scenario>(r.inputs);
-    const failed = summary && r.status === "done" ? checksFor(inputs, summary).filter((c) => c.state === "fail") : [];
+    const failed = summary && r.status === "done" ? failedChecksOf(`${r.id}:${r.version}`, () => json<Scenario>(r.inputs), summary) : [];
     const whatIf = json<Record<string, number> | null>(r.overrides ?? null) !== null;
     return { id: r.id, scenarioId: r.scenarioId, status: r.status as RunStatus, finishedAt: r.finishedAt ?? r.queuedAt, summary, failed, whatIf };
   });

@@ -11,7 +11,7 @@ export interface NavItem {
 }
 
 export const NAV_ITEMS: NavItem[] = [
-  { href: "/dashboard", label: "Overview", purpose: "Where each area stands and what comes next.", group: "design" },
+  { href: "/dashboard", label: "Overview", purpose: "Recent runs with their failed checks, open alerts, and the way to each area.", group: "design" },
   {
     href: "/lifts",
     label: "Lifts",

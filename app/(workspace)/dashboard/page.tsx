@@ -22,6 +22,8 @@ const ABILITIES: Array<{ action: Action; text: string }> = [
   { action: "design:read", text: "Read every lift, train, scenario and run result" },
 ];
 
+const GROUP_LABELS = { design: "Design", operate: "Operations", admin: "Admin" } as const;
+
 export default async function DashboardPage() {
   const user = await pageUser("/dashboard");
   const alerts = can(user.role, "logbook:read") ? await openAlerts(user.organisationId) : [];
@@ -43,7 +45,7 @@ export default async function DashboardPage() {
       )}
       <div className="grid gap-5 lg:grid-cols-3">
         <Card className="lg:col-span-2">
-          <CardHeader title="What is coming" description="The areas below open as each part of Tautline lands." />
+          <CardHeader title="Your areas" description="Everything your role may open, and what each area is for." />
           <ul className="divide-y divide-steel-100" data-testid="dashboard-areas">
             {areas.map((a) => (
               <li key={a.href} className="flex items-start justify-between gap-4 px-5 py-3">
@@ -53,7 +55,7 @@ export default async function DashboardPage() {
                   </Link>
                   <p className="text-[13px] text-steel-500">{a.purpose}</p>
                 </div>
-                <Badge tone={a.group === "admin" ? "pass" : "lamp"}>{a.group === "admin" ? "Ready" : "Planned"}</Badge>
+                <Badge tone={a.group === "admin" ? "neutral" : "lamp"}>{GROUP_LABELS[a.group]}</Badge>
               </li>
             ))}
           </ul>
