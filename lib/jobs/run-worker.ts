@@ -2,12 +2,27 @@
  * Worker-thread entry: runs the engine for one run and packs its result, or runs one calibration fit.
  * Bundled into one .mjs file by lib/jobs/build-worker.mjs; piscina calls the default export once per task.
  */
+import os from "node:os";
 import { simulate } from "@/sim/simulate";
 import { SimulationError } from "@/sim/errors";
 import type { Scenario } from "@/sim/schema";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
 import { calibrate } from "@/lib/calibration/fit";
 import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerMessage, WorkerTask } from "./protocol";
+
+// Engine threads yield the CPU to the request thread: on Linux a thread's nice value is its own, so this
+// lowers only this worker thread (JOB_NICE, default 10; 0 keeps the normal priority). Where the platform
+// refuses, the engine simply runs at normal priority.
+lowerThreadPriority(Number(process.env.JOB_NICE ?? 10));
+
+function lowerThreadPriority(nice: number): void {
+  if (!Number.isInteger(nice) || nice <= 0) return;
+  try {
+    os.setPriority(Math.min(nice, 19));
+  } catch {
+    // not permitted here: normal priority
+  }
+}
 
 // Progress messages at most this often: the main thread writes them to the database, throttled again.
 const PROGRESS_EVERY_MS = 100;
