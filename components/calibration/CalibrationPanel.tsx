@@ -4,6 +4,7 @@
  * revision. The fit is a job in the engine pool: the panel starts it, polls its status (SWR) and shows
  * its progress, then the result or the job's error.
  */
+import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { useEffect, useRef, useState } from "react";
 import useSWR from "swr";
 import { Alert } from "@/components/ui/Alert";
@@ -39,13 +40,14 @@ interface Fit {
   settings: { segments: number; duration: number };
 }
 
-const ROWS: [keyof Headline, string, (v: number) => string][] = [
-  ["peakTension", "Peak tension", (v) => `${(v / 1000).toFixed(1)} kN`],
+// Headline rows in the reader's units (SI values from the fit; lib/client/units.ts converts).
+const ROWS: [keyof Headline, string, (v: number, u: UnitSystem) => string][] = [
+  ["peakTension", "Peak tension", (v, u) => formatQuantity(v, "force", u)],
   ["snatchFactor", "Snatch factor", (v) => v.toFixed(2)],
-  ["takeUpMaxRise", "Take-up rise", (v) => `${(v * 1000).toFixed(0)} mm`],
-  ["takeUpMaxDrop", "Take-up drop", (v) => `${(v * 1000).toFixed(0)} mm`],
+  ["takeUpMaxRise", "Take-up rise", (v, u) => formatQuantity(v, "smallLength", u, u === "us" ? 2 : 0)],
+  ["takeUpMaxDrop", "Take-up drop", (v, u) => formatQuantity(v, "smallLength", u, u === "us" ? 2 : 0)],
   ["minSafetyFactor", "Lowest safety factor", (v) => v.toFixed(2)],
-  ["takeUpMargin", "Take-up travel margin", (v) => `${(v * 1000).toFixed(0)} mm`],
+  ["takeUpMargin", "Take-up travel margin", (v, u) => formatQuantity(v, "smallLength", u, u === "us" ? 2 : 0)],
 ];
 
 /** The job as GET /api/recordings/[id]/calibration answers it (lib/calibration/service.ts). */
@@ -76,12 +78,14 @@ export function CalibrationPanel({
   scenarios,
   canSave,
   liftVersion,
+  units,
   onFitted,
 }: {
   recordingId: number;
   scenarios: { id: number; name: string }[];
   canSave: boolean;
   liftVersion: number;
+  units: UnitSystem;
   onFitted: (t: number[], y: number[]) => void;
 }) {
   const [scenarioId, setScenarioId] = useState(scenarios[0]?.id ?? 0);
@@ -195,13 +199,13 @@ export function CalibrationPanel({
               <tbody>
                 <Tr>
                   <Td>Axial stiffness E·A</Td>
-                  <Td>{(fit.initial.axialStiffness / 1e6).toFixed(2)} MN</Td>
-                  <Td>{(fit.fitted.axialStiffness / 1e6).toFixed(2)} MN</Td>
+                  <Td>{formatQuantity(fit.initial.axialStiffness, "axialStiffness", units)}</Td>
+                  <Td>{formatQuantity(fit.fitted.axialStiffness, "axialStiffness", units)}</Td>
                 </Tr>
                 <Tr>
                   <Td>Damping</Td>
-                  <Td>{fit.initial.damping.toFixed(0)} N·s</Td>
-                  <Td>{fit.fitted.damping.toFixed(0)} N·s</Td>
+                  <Td>{formatQuantity(fit.initial.damping, "damping", units)}</Td>
+                  <Td>{formatQuantity(fit.fitted.damping, "damping", units)}</Td>
                 </Tr>
                 <Tr>
                   <Td>Guide friction</Td>
@@ -211,17 +215,17 @@ export function CalibrationPanel({
                 <Tr>
                   <Td>Fit: RMS residual / R²</Td>
                   <Td>
-                    {shown(fit.quality.initial.rms, (v) => (v * 1000).toFixed(2))} mm / {shown(fit.quality.initial.rSquared, (v) => v.toFixed(3))}
+                    {formatQuantity(fit.quality.initial.rms, "smallLength", units, 2)} / {shown(fit.quality.initial.rSquared, (v) => v.toFixed(3))}
                   </Td>
                   <Td>
-                    {shown(fit.quality.fitted.rms, (v) => (v * 1000).toFixed(2))} mm / {shown(fit.quality.fitted.rSquared, (v) => v.toFixed(3))}
+                    {formatQuantity(fit.quality.fitted.rms, "smallLength", units, 2)} / {shown(fit.quality.fitted.rSquared, (v) => v.toFixed(3))}
                   </Td>
                 </Tr>
                 {ROWS.map(([k, label, f]) => (
                   <Tr key={k}>
                     <Td>{label}</Td>
-                    <Td>{shown(fit.headline.initial[k], f)}</Td>
-                    <Td>{shown(fit.headline.fitted[k], f)}</Td>
+                    <Td>{shown(fit.headline.initial[k], (v) => f(v, units))}</Td>
+                    <Td>{shown(fit.headline.fitted[k], (v) => f(v, units))}</Td>
                   </Tr>
                 ))}
               </tbody>

@@ -6,6 +6,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Select } from "@/components/ui/Field";
 import { getJson } from "@/lib/client/fetch";
 import { CalibrationPanel } from "@/components/calibration/CalibrationPanel";
+import type { UnitSystem } from "@/lib/client/units";
 import { OverlayChart, type Trace } from "./OverlayChart";
 
 interface OverlayJson {
@@ -23,6 +24,7 @@ export function RecordingView({
   canSave,
   liftVersion,
   lengthUnit,
+  units,
 }: {
   recordingId: number;
   runs: { id: number; label: string }[];
@@ -31,6 +33,7 @@ export function RecordingView({
   canSave: boolean;
   liftVersion: number;
   lengthUnit: "mm" | "in";
+  units: UnitSystem;
 }) {
   const [runId, setRunId] = useState<number | null>(runs[0]?.id ?? null);
   const [overlay, setOverlay] = useState<OverlayJson | null>(null);
@@ -86,7 +89,7 @@ export function RecordingView({
         </CardBody>
       </Card>
       {canCalibrate && (
-        <CalibrationPanel recordingId={recordingId} scenarios={scenarios} canSave={canSave} liftVersion={liftVersion} onFitted={(t, y) => setFitted({ label: "fitted run take-up", t, y, colour: "#2e8b57" })} />
+        <CalibrationPanel recordingId={recordingId} scenarios={scenarios} canSave={canSave} liftVersion={liftVersion} units={units} onFitted={(t, y) => setFitted({ label: "fitted run take-up", t, y, colour: "#2e8b57" })} />
       )}
     </div>
   );

@@ -46,6 +46,7 @@ test("an engineer fits stiffness and damping to the seeded recording", async ({ 
   const result = page.getByTestId("calibration-result");
   await expect(result).toBeVisible({ timeout: 45_000 });
   await expect(result).toContainText("Axial stiffness E·A");
+  await expect(result).toContainText(/\d MN/); // the demo engineer reads SI
   await expect(result).toContainText("Fit: RMS residual / R²");
   await expect(result).toContainText("Emberline: clean pick-up");
   await expect(page.getByTestId("save-calibration")).toBeVisible();

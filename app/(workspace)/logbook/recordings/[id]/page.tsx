@@ -83,6 +83,7 @@ export default async function RecordingPage({ params }: { params: Promise<{ id: 
         canSave={can(user.role, "calibration:save")}
         liftVersion={lift?.version ?? 0}
         lengthUnit={user.units === "us" ? "in" : "mm"}
+        units={user.units}
       />
     </>
   );
