@@ -85,7 +85,11 @@ export function ScenarioRunView({
     setSaving(true);
     setSaveMsg(null);
     try {
-      const res = await sendJson<{ run: RunJson }>(`/api/scenarios/${scenarioId}/runs`, "POST", overrides ? { overrides } : {});
+      const res = await sendJson<{ run: RunJson }>(`/api/scenarios/${scenarioId}/runs`, "POST", {
+        ...(overrides ? { overrides } : {}),
+        // The chain mesh picked for the browser run is a run setting the API takes as it is.
+        ...(segments ? { segments } : {}),
+      });
       router.push(`/runs/${res.run.id}`);
     } catch (err) {
       setSaveMsg({ tone: "error", text: err instanceof ApiError ? err.message : String(err) });
