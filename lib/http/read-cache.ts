@@ -55,8 +55,11 @@ const computing = new Map<string, { since: number; body: Promise<string> }>();
 
 function computeOnce(key: string, compute: () => Promise<unknown>, writtenElsewhere: readonly string[]): Promise<string> {
   const inFlight = computing.get(key);
-  // Joined only if nothing at all was written since it started, so nobody gets an answer older than their request.
-  if (inFlight && inFlight.since === currentTick()) return inFlight.body;
+  // Joined only if nothing it reads was written since it started, so nobody gets an answer older than their
+  // request. What it reads is known from the previous answer for the key (the same code reads the same
+  // tables); without one, any write at all since it started means a computation of one's own.
+  const reads = entries.get(key)?.tables;
+  if (inFlight && (reads ? !writtenSince(reads, inFlight.since) : inFlight.since === currentTick())) return inFlight.body;
   const since = currentTick();
   const body = (async () => {
     const { value, tables } = await withReadTracking(compute);

@@ -68,14 +68,19 @@ describe("answers kept until a table they read is written", () => {
     let release!: () => void;
     const gate = new Promise<void>((r) => (release = r));
     let computed = 0;
+    let hasRead!: () => void;
+    const read = new Promise<void>((r) => (hasRead = r));
     const compute = async () => {
-      computed++;
+      const first = ++computed === 1;
       const page = await listLifts(eng, { pageSize: 100 });
-      if (computed === 1) await gate; // the write below lands between this read and the answer
+      if (first) {
+        hasRead();
+        await gate; // the write below lands between this read and the answer
+      }
       return page;
     };
     const slow = cachedJson(`test lifts mid-write ${eng.id}`, compute);
-    await new Promise((r) => setTimeout(r, 50));
+    await read;
     await updateLift(eng, lift.id, { version: lift.version, name: "Cache lift B renamed" });
     release();
     const stale = JSON.parse(await (await slow).text());
@@ -95,6 +100,55 @@ describe("answers kept until a table they read is written", () => {
     const b = counted(`test together ${viewer.id}`, () => listLifts(viewer, {}));
     await b.read();
     expect(b.computed).toBe(1);
+  });
+
+  it("lets a request share a computation in flight only while nothing that computation reads has been written", async () => {
+    const eng = org.as.engineer;
+    const lift = await createLift(eng, liftBody({ name: "Cache lift C" }));
+    const key = `test join ${eng.id}`;
+    let computed = 0;
+    let gate: Promise<void> | null = null;
+    let hasRead: () => void = () => undefined;
+    const compute = async () => {
+      computed++;
+      const held = gate;
+      const page = await listLifts(eng, { pageSize: 100 });
+      hasRead();
+      if (held) await held;
+      return page;
+    };
+    const readDone = () => new Promise<void>((r) => (hasRead = r));
+    const nameIn = async (r: Promise<Response>) =>
+      (JSON.parse(await (await r).text()) as { items: { id: number; name: string }[] }).items.find((l) => l.id === lift.id)!.name;
+    await cachedJson(key, compute); // the key's answer is known to read lifts and lift_revisions
+    let v = (await updateLift(eng, lift.id, { version: lift.version, name: "Cache lift C 2" })).version;
+
+    // A write to another table while a computation is in flight: the next request shares it.
+    let release!: () => void;
+    gate = new Promise<void>((r) => (release = r));
+    let read = readDone();
+    const first = cachedJson(key, compute);
+    await read;
+    await createTrain(eng, trainBody({ name: "Cache train C" }));
+    const shared = cachedJson(key, compute);
+    release();
+    expect(await nameIn(first)).toBe("Cache lift C 2");
+    expect(await nameIn(shared)).toBe("Cache lift C 2");
+    expect(computed).toBe(2);
+
+    // A write to a table it reads while it is in flight: the next request computes its own, fresh answer.
+    v = (await updateLift(eng, lift.id, { version: v, name: "Cache lift C 3" })).version;
+    gate = new Promise<void>((r) => (release = r));
+    read = readDone();
+    const slow = cachedJson(key, compute);
+    await read;
+    await updateLift(eng, lift.id, { version: v, name: "Cache lift C 4" });
+    gate = null;
+    const own = cachedJson(key, compute);
+    expect(await nameIn(own)).toBe("Cache lift C 4");
+    release();
+    expect(await nameIn(slow)).toBe("Cache lift C 3");
+    expect(computed).toBe(4);
   });
 
   it("never keeps an error", async () => {
