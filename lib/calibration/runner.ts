@@ -6,8 +6,8 @@ import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Calibration } from "@/models/Calibration";
 import { getJobPool, type Slot } from "@/lib/jobs/pool";
-import type { CalibrationOutcome, CalibrationTask, WorkerMessage } from "@/lib/jobs/protocol";
-import { isDbConnectionError } from "@/lib/db/health";
+import type { CalibrationOutcome, CalibrationTask } from "@/lib/jobs/protocol";
+import { persistFinal, trackJob } from "@/lib/jobs/tracking";
 import { ACTIVE_CALIBRATION_STATUSES, type CalibrationStatus } from "./status";
 
 /** Wall-time guard of one fit (CALIBRATION_BUDGET_SECONDS, default 120 s; a fit takes a few seconds). */
@@ -32,20 +32,6 @@ async function updateActive(id: number, values: Partial<Record<keyof Calibration
   return count;
 }
 
-/** The fit exists only in this process's memory: keep trying while the database is briefly unreachable. */
-async function persistFinal(write: () => Promise<unknown>): Promise<void> {
-  const deadline = Date.now() + 5 * 60_000;
-  for (let wait = 250; ; wait = Math.min(wait * 2, 5_000)) {
-    try {
-      await write();
-      return;
-    } catch (err) {
-      if (!isDbConnectionError(err) || Date.now() > deadline) throw err;
-      await new Promise((r) => setTimeout(r, wait));
-    }
-  }
-}
-
 function storeOutcome(id: number, outcome: CalibrationOutcome) {
   const finishedAt = new Date();
   if (!outcome.ok) {
@@ -64,35 +50,24 @@ export type CalibrationInputs = Pick<CalibrationTask, "scenario" | "trace" | "op
  */
 export function dispatchCalibration(cal: { id: number; inputs: Record<string, unknown> }, slot: Slot): Promise<void> {
   const jobs = activeJobs();
-  const controller = new AbortController();
   const budgetSeconds = calibrationBudgetSeconds();
-  let writes: Promise<unknown> = Promise.resolve();
-  const queueWrite = (fn: () => Promise<unknown>) => {
-    writes = writes.then(fn).catch((err) => console.error(`calibration ${cal.id}: progress write failed`, err));
-  };
-  let lastProgressWrite = 0;
-  let budgetTimer: NodeJS.Timeout | undefined;
-
-  const onMessage = (m: WorkerMessage) => {
-    if (m.type === "started") {
-      queueWrite(() => updateActive(cal.id, { status: "running", startedAt: new Date() }, ["queued"]));
-      budgetTimer = setTimeout(() => controller.abort("budget"), budgetSeconds * 1000);
-    } else if (m.type === "progress") {
-      const now = Date.now();
-      if (now - lastProgressWrite < PROGRESS_WRITE_MS) return;
-      lastProgressWrite = now;
-      queueWrite(() => updateActive(cal.id, { progress: m.value }, ["running"]));
-    }
-  };
+  const tracking = trackJob({
+    label: `calibration ${cal.id}`,
+    budgetMs: budgetSeconds * 1000,
+    progressWriteMs: PROGRESS_WRITE_MS,
+    markRunning: () => updateActive(cal.id, { status: "running", startedAt: new Date() }, ["queued"]),
+    writeProgress: (value) => updateActive(cal.id, { progress: value }, ["running"]),
+  });
+  const { controller, onMessage } = tracking;
 
   const inputs = (typeof cal.inputs === "string" ? JSON.parse(cal.inputs) : cal.inputs) as CalibrationInputs;
   const done = (async () => {
     try {
       const outcome = await getJobPool().calibrate({ kind: "calibration", calibrationId: cal.id, ...inputs }, { signal: controller.signal, onMessage });
-      await writes;
+      await tracking.written();
       await persistFinal(() => storeOutcome(cal.id, outcome));
     } catch (err) {
-      await writes;
+      await tracking.written();
       const budget = controller.signal.aborted;
       if (!budget) console.error(`calibration ${cal.id}: job failed`, err);
       const message = budget
@@ -100,7 +75,7 @@ export function dispatchCalibration(cal: { id: number; inputs: Record<string, un
         : `The calibration's worker stopped unexpectedly: ${err instanceof Error ? err.message : String(err)}`;
       await persistFinal(() => updateActive(cal.id, { status: "failed", error: message, errorCode: budget ? "budget" : "worker-error", finishedAt: new Date() }));
     } finally {
-      if (budgetTimer) clearTimeout(budgetTimer);
+      tracking.stop();
       slot.release();
       jobs.delete(cal.id);
     }

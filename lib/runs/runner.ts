@@ -2,8 +2,8 @@ import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
 import { getJobPool, type Slot } from "@/lib/jobs/pool";
-import { isDbConnectionError } from "@/lib/db/health";
-import type { SimulationOutcome, WorkerMessage } from "@/lib/jobs/protocol";
+import type { SimulationOutcome } from "@/lib/jobs/protocol";
+import { persistFinal, trackJob } from "@/lib/jobs/tracking";
 import { runConfig } from "./config";
 import { ACTIVE_RUN_STATUSES, type RunStatus } from "./status";
 import { RESULT_FORMAT } from "./result-format";
@@ -88,26 +88,6 @@ async function storeOutcome(runId: number, outcome: SimulationOutcome): Promise<
   });
 }
 
-/** How long a finished run keeps trying to store its outcome while the database is unreachable. */
-const FINAL_WRITE_RETRY_MS = 5 * 60_000;
-
-/**
- * The outcome exists only in this process's memory: when the database is briefly gone (restarting,
- * failing over) keep trying instead of leaving the run queued/running for good. Other errors throw.
- */
-async function persistFinal(write: () => Promise<unknown>): Promise<void> {
-  const deadline = Date.now() + FINAL_WRITE_RETRY_MS;
-  for (let wait = 250; ; wait = Math.min(wait * 2, 5_000)) {
-    try {
-      await write();
-      return;
-    } catch (err) {
-      if (!isDbConnectionError(err) || Date.now() > deadline) throw err;
-      await new Promise((r) => setTimeout(r, wait));
-    }
-  }
-}
-
 /**
  * Runs a queued run in the job pool and records every step: running (when a worker picks it up),
  * progress (throttled), then done / failed / cancelled. Resolves when the run's row is final.
@@ -115,27 +95,16 @@ async function persistFinal(write: () => Promise<unknown>): Promise<void> {
  */
 export function dispatchRun(run: Pick<Run, "id" | "inputs">, solver: SolverSettings, slot: Slot): Promise<void> {
   const jobs = activeJobs();
-  const controller = new AbortController();
   const cfg = runConfig();
-  let writes: Promise<unknown> = Promise.resolve();
-  const queueWrite = (fn: () => Promise<unknown>) => {
-    writes = writes.then(fn).catch((err) => console.error(`run ${run.id}: progress write failed`, err));
-  };
-  let lastProgressWrite = 0;
-  let budgetTimer: NodeJS.Timeout | undefined;
-
-  const onMessage = (m: WorkerMessage) => {
-    if (m.type === "started") {
-      queueWrite(() => updateActive(run.id, { status: "running", startedAt: new Date() }, ["queued"]));
-      // The engine keeps its own budget; this guard stops the thread if the engine overruns it anyway.
-      budgetTimer = setTimeout(() => controller.abort("budget" satisfies AbortReason), solver.budgetSeconds * 1000 + cfg.budgetGraceMs);
-    } else if (m.type === "progress") {
-      const now = Date.now();
-      if (now - lastProgressWrite < cfg.progressWriteMs) return;
-      lastProgressWrite = now;
-      queueWrite(() => updateActive(run.id, { progress: m.value }, ["running"]));
-    }
-  };
+  // The engine keeps its own budget; the tracker's guard stops the thread if the engine overruns it anyway.
+  const tracking = trackJob({
+    label: `run ${run.id}`,
+    budgetMs: solver.budgetSeconds * 1000 + cfg.budgetGraceMs,
+    progressWriteMs: cfg.progressWriteMs,
+    markRunning: () => updateActive(run.id, { status: "running", startedAt: new Date() }, ["queued"]),
+    writeProgress: (value) => updateActive(run.id, { progress: value }, ["running"]),
+  });
+  const { controller, onMessage } = tracking;
 
   const done = (async () => {
     try {
@@ -143,10 +112,10 @@ export function dispatchRun(run: Pick<Run, "id" | "inputs">, solver: SolverSetti
         { runId: run.id, scenario: run.inputs, frameBudget: solver.frameBudget, budgetMs: solver.budgetSeconds * 1000 },
         { signal: controller.signal, onMessage },
       );
-      await writes;
+      await tracking.written();
       await persistFinal(() => storeOutcome(run.id, outcome));
     } catch (err) {
-      await writes;
+      await tracking.written();
       const reason = controller.signal.aborted ? (controller.signal.reason as AbortReason) : null;
       if (reason === "cancel") {
         await persistFinal(() => updateActive(run.id, { status: "cancelled", finishedAt: new Date() }));
@@ -172,7 +141,7 @@ export function dispatchRun(run: Pick<Run, "id" | "inputs">, solver: SolverSetti
         );
       }
     } finally {
-      if (budgetTimer) clearTimeout(budgetTimer);
+      tracking.stop();
       slot.release();
       jobs.delete(run.id);
     }
