@@ -1,6 +1,7 @@
 import { cookies } from "next/headers";
 import { forbidden, notFound, unauthorized } from "@/lib/http/errors";
 import { getModels } from "@/models";
+import { readCacheMaxAgeMs } from "@/lib/http/read-cache";
 import { cachesUsable, currentTick, noteDatabaseAnswered, stampOf, writtenSince } from "@/lib/db/change-tracker";
 import { isRole } from "./roles";
 import { can, type Action } from "./permissions";
@@ -28,8 +29,7 @@ export async function getCurrentUser(): Promise<CurrentUser | null> {
 // made by this process, invalidates them all; lib/db/change-tracker.ts) or a few seconds pass, which bounds
 // how long a change made outside the app (SQL by hand) takes to apply.
 // READ_CACHE_MS=0 (several app servers on one database) turns this off too.
-const READ_CACHE_MS = Number(process.env.READ_CACHE_MS ?? 10_000);
-const USER_ROW_MAX_AGE_MS = Number.isFinite(READ_CACHE_MS) ? Math.min(5_000, Math.max(0, READ_CACHE_MS)) : 5_000;
+const USER_ROW_MAX_AGE_MS = Math.min(5_000, readCacheMaxAgeMs());
 const userRows = new Map<number, KnownUser>();
 
 /** The user row behind a session claim, or null if it is gone, inactive or its session was revoked. */

@@ -21,22 +21,20 @@ const MAX_ENTRIES = 2_000;
 const MAX_BODY_CHARS = 512 * 1024;
 const entries = new Map<string, Entry>();
 
-export interface ReadCacheOptions {
-  /** Tables that another process writes (job workers): answers that read them are not kept. */
-  writtenElsewhere?: readonly string[];
-  maxAgeMs?: number;
+/** How long an answer may be kept at most (READ_CACHE_MS, default 10 s; 0 keeps nothing). */
+export function readCacheMaxAgeMs(env: Readonly<Record<string, string | undefined>> = process.env): number {
+  const ms = Number(env.READ_CACHE_MS ?? 10_000);
+  return Number.isFinite(ms) ? Math.max(0, ms) : 10_000;
 }
 
-function defaults(): Required<ReadCacheOptions> {
-  // With REDIS_URL the engine runs in separate worker processes that write runs and studies themselves.
-  const elsewhere = process.env.REDIS_URL ? ["runs", "studies", "study_cases", "calibrations"] : [];
-  const maxAgeMs = Number(process.env.READ_CACHE_MS ?? 10_000);
-  return { writtenElsewhere: elsewhere, maxAgeMs: Number.isFinite(maxAgeMs) ? maxAgeMs : 10_000 };
+/** Tables that another process writes: with REDIS_URL the engine's worker processes write runs and studies. */
+function tablesWrittenElsewhere(): readonly string[] {
+  return process.env.REDIS_URL ? ["runs", "studies", "study_cases", "calibrations"] : [];
 }
 
 /** The JSON answer for `key` from the cache, or computed by `compute` (and kept when it may be). */
-export async function cachedJson(key: string, compute: () => Promise<unknown>, options: ReadCacheOptions = {}): Promise<NextResponse> {
-  const { writtenElsewhere, maxAgeMs } = { ...defaults(), ...options };
+export async function cachedJson(key: string, compute: () => Promise<unknown>): Promise<NextResponse> {
+  const maxAgeMs = readCacheMaxAgeMs();
   const now = Date.now();
   const hit = entries.get(key);
   if (hit && cachesUsable() && now - hit.storedAt < maxAgeMs && stampOf(hit.tables) === hit.stamp) {
@@ -46,7 +44,7 @@ export async function cachedJson(key: string, compute: () => Promise<unknown>, o
     return jsonResponse(hit.body);
   }
   if (maxAgeMs <= 0) return jsonResponse(JSON.stringify(await compute()));
-  return jsonResponse(await computeOnce(key, compute, writtenElsewhere));
+  return jsonResponse(await computeOnce(key, compute, tablesWrittenElsewhere()));
 }
 
 // One computation per key at a time: when an entry expires or goes stale under load, the requests that
