@@ -4,9 +4,9 @@ import { getModels } from "@/models";
 import type { AuditEntry } from "@/models/AuditEntry";
 import { AUDIT_ACTIONS } from "@/models/AuditEntry";
 import type { User } from "@/models/User";
-import { assertCan, type Actor } from "@/lib/api/actor";
-import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/api/list-query";
-import { validate } from "@/lib/api/validate";
+import { assertCan, type Actor } from "@/lib/http/actor";
+import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/http/list-query";
+import { validate } from "@/lib/http/validate";
 import { diffValues, type FieldChange } from "@/lib/lifts/diff";
 
 const isoDate = (name: string) =>

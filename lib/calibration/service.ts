@@ -4,8 +4,8 @@
  * (status, progress, the fit once done). The fit itself runs in a worker thread (lib/jobs/run-worker.ts).
  */
 import type { Scenario as EngineScenario } from "@/sim";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
-import { validate } from "@/lib/api/validate";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
+import { validate } from "@/lib/http/validate";
 import { badRequest, HttpError, notFound, unavailable } from "@/lib/http/errors";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { dispatchCalibrationJob } from "@/lib/jobs/dispatch";

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { chainSchema } from "@/sim/schema";
-import { nameField, optionalText } from "@/lib/api/text";
+import { nameField, optionalText } from "@/lib/http/text";
 
 /** The physical values a catalogue entry holds: the same field rules as the engine's chain section. */
 export const CHAIN_VALUE_FIELDS = ["pitch", "massPerLength", "axialStiffness", "breakingStrength"] as const;

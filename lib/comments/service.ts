@@ -5,9 +5,9 @@ import { getModels } from "@/models";
 import type { Comment } from "@/models/Comment";
 import type { User } from "@/models/User";
 import { badRequest, forbidden, notFound } from "@/lib/http/errors";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
-import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/api/list-query";
-import { validate } from "@/lib/api/validate";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
+import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/http/list-query";
+import { validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 
 export const commentInputSchema = z

@@ -2,8 +2,8 @@ import type { Transaction } from "sequelize";
 import { crossFieldIssues } from "@/sim/schema";
 import { getModels } from "@/models";
 import { zodIssues, type FieldIssue } from "@/lib/http/errors";
-import type { Actor } from "@/lib/api/actor";
-import { throwIfIssues } from "@/lib/api/validate";
+import type { Actor } from "@/lib/http/actor";
+import { throwIfIssues } from "@/lib/http/validate";
 import { CHAIN_VALUE_FIELDS } from "@/lib/chains/schema";
 import { liftChainInputSchema, liftRevisionSchema, SECTION_KEYS, type LiftRevisionData } from "./schema";
 

@@ -8,8 +8,8 @@ import {
   limitsSchema,
   takeUpSchema,
 } from "@/sim/schema";
-import { nameField, optionalText } from "@/lib/api/text";
-import { versionField } from "@/lib/api/version";
+import { nameField, optionalLine, optionalText } from "@/lib/http/text";
+import { versionField } from "@/lib/http/version";
 
 /**
  * What one lift revision holds: the engine's sections (same schemas as `sim/`, so a revision always
@@ -19,7 +19,7 @@ import { versionField } from "@/lib/api/version";
 export const liftRevisionSchema = z
   .object({
     name: nameField("name"),
-    site: optionalText("site", 120),
+    site: optionalLine("site", 120),
     notes: optionalText("notes", 5000),
     chainSpecId: z.number().int().positive().nullable(),
     lift: liftSchema,

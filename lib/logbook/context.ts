@@ -6,8 +6,8 @@
  */
 import { Op } from "sequelize";
 import { designStatics } from "@/sim";
-import type { Actor } from "@/lib/api/actor";
-import { ownOr404 } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
+import { ownOr404 } from "@/lib/http/actor";
 import { resolveEngineScenario } from "@/lib/scenarios/engine";
 import { getModels, type Lift, type LiftRevision } from "@/models";
 

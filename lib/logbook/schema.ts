@@ -1,5 +1,6 @@
 /** One zod schema per logbook concept, shared by the API, the forms and the tests. SI units. */
 import { z } from "zod";
+import { oneLineText } from "@/lib/http/text";
 
 const when = z.coerce.date({ error: "a date and time, e.g. 2026-05-01T08:00" }).optional();
 const notes = z.string().trim().max(2000).optional().nullable();
@@ -37,7 +38,7 @@ export const entryInputSchema = z.discriminatedUnion("kind", [
     liftId: z.number().int().positive(),
     measuredAt: when,
     notes,
-    lubricant: z.string().trim().max(200).optional(),
+    lubricant: oneLineText("lubricant", 200).optional(),
   }),
   z.object({
     kind: z.literal("inspection"),

@@ -4,9 +4,9 @@
  * first, another organisation's lift is 404, every problem listed with its field path, nothing stored on 400.
  */
 import { Op, type WhereOptions } from "sequelize";
-import { assertCan, type Actor } from "@/lib/api/actor";
-import { assertVersion } from "@/lib/api/concurrency";
-import { validate, throwIfIssues } from "@/lib/api/validate";
+import { assertCan, type Actor } from "@/lib/http/actor";
+import { assertVersion } from "@/lib/http/concurrency";
+import { validate, throwIfIssues } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { getSequelize } from "@/lib/db/sequelize";
 import { evaluateAlerts } from "@/lib/alerts/evaluate";

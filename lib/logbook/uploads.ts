@@ -4,8 +4,9 @@
  * a user of the same organisation.
  */
 import crypto from "node:crypto";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { badRequest, HttpError } from "@/lib/http/errors";
+import { clipText } from "@/lib/http/text";
 import { getObject, newStorageKey, putObject } from "@/lib/storage/client";
 import { sniffImage } from "@/lib/storage/sniff";
 import { getModels, type Upload } from "@/models";
@@ -28,7 +29,7 @@ export function uploadView(u: Upload): UploadView {
 /** A display name only (never used as a key or a path): no control characters, at most 200 characters. */
 export function safeName(name: string): string {
   const s = name.replace(/[\u0000-\u001f\u007f"\\/]/g, "_").trim();
-  return (s || "file").slice(0, 200);
+  return clipText(s || "file", 200);
 }
 
 export async function storePhoto(actor: Actor, liftId: number, file: { name: string; bytes: Buffer }): Promise<UploadView> {

@@ -1,5 +1,6 @@
 /** The logger-upload request: the CSV text, which column is which, and the units they are in. */
 import { z } from "zod";
+import { nameField, oneLineText } from "@/lib/http/text";
 
 export const CHANNELS = ["takeUpPosition", "chainTension", "driveCurrent", "trainPosition", "trainSpeed"] as const;
 export type Channel = (typeof CHANNELS)[number];
@@ -38,8 +39,8 @@ export type Units = z.infer<typeof unitsSchema>;
 
 export const recordingInputSchema = z.object({
   liftId: z.number().int().positive(),
-  name: z.string().trim().min(1).max(200),
-  fileName: z.string().trim().max(200).optional(),
+  name: nameField("name", 200),
+  fileName: oneLineText("fileName", 200).optional(),
   csv: z.string().min(1, "the file is empty"),
   mapping: mappingSchema,
   units: unitsSchema.default({ time: "s", length: "m", force: "N", speed: "m/s", takeUpDirection: "down" }),

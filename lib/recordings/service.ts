@@ -3,8 +3,8 @@
  * storage and the parsed rows to MariaDB, attached to the lift's current revision. Also the overlay on a
  * run, and saving fitted values as a new revision (the fit itself is a job: lib/calibration/service.ts).
  */
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
-import { validate } from "@/lib/api/validate";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
+import { validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { getSequelize } from "@/lib/db/sequelize";
 import { badRequest, HttpError } from "@/lib/http/errors";

@@ -5,7 +5,7 @@
 import { getModels } from "@/models";
 import type { Report } from "@/models/Report";
 import { z } from "zod";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { badRequest, conflict, fromZod } from "@/lib/http/errors";
 import { buildReportContent, contentHash } from "./content";

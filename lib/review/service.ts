@@ -7,7 +7,7 @@
 import { Op } from "sequelize";
 import { z } from "zod";
 import { getModels } from "@/models";
-import { assertCan, type Actor } from "@/lib/api/actor";
+import { assertCan, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { conflict, forbidden, fromZod } from "@/lib/http/errors";
 import { sendMail } from "@/lib/mail/send";

@@ -1,5 +1,5 @@
 import { notFound } from "@/lib/http/errors";
-import { parseJsonBody } from "@/lib/http/request";
+import { parseJsonBody, readBodyText } from "@/lib/http/request";
 import { startRunSchema, type StartRunInput } from "./schema";
 
 export interface IdParams {
@@ -19,8 +19,9 @@ export async function parseStartRunBody(req: Request): Promise<StartRunInput> {
   const length = req.headers.get("content-length");
   if (!req.body || length === "0") return {};
   if (!req.headers.get("content-type")) {
-    const text = await req.clone().text();
+    const text = await readBodyText(req);
     if (text.trim() === "") return {};
+    return parseJsonBody(new Request(req.url, { method: "POST", headers: { "content-type": "application/json" }, body: text }), startRunSchema);
   }
   return parseJsonBody(req, startRunSchema);
 }

@@ -147,7 +147,7 @@ export async function getRun(user: Actor, runId: number): Promise<RunView> {
   return toRunView(await findOwnRun(user, runId), { inputs: true });
 }
 
-/** One page of runs, in the project's list shape (lib/api/list-query.ts). */
+/** One page of runs, in the project's list shape (lib/http/list-query.ts). */
 export interface RunPage {
   items: RunView[];
   total: number;

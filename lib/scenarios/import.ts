@@ -2,7 +2,8 @@ import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
 import { getSequelize } from "@/lib/db/sequelize";
 import { getModels } from "@/models";
 import { badRequest, zodIssues } from "@/lib/http/errors";
-import { assertCan, type Actor } from "@/lib/api/actor";
+import { clipText } from "@/lib/http/text";
+import { assertCan, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { createLiftIn, type LiftView } from "@/lib/lifts/service";
 import { liftRevisionSchema } from "@/lib/lifts/schema";
@@ -21,7 +22,7 @@ const IMPORTED_TRAIN_NOTE =
   "Imported from a scenario file, which gives one car mass: it is stored as the empty car mass with no seats " +
   "(scenario loading: empty), so the engine sees exactly the file's car mass. Add seats and rider mass to model loading cases.";
 
-const clip = (text: string, max: number) => (text.length <= max ? text : `${text.slice(0, max - 1)}…`);
+const clip = clipText;
 
 /**
  * Imports a `tautline-scenario/1` file: validates it completely (400 with every problem at once,

@@ -1,8 +1,8 @@
 import { z } from "zod";
 import { runSettingsSchema, trainSchema } from "@/sim/schema";
 import { LOADINGS } from "./loading";
-import { nameField, optionalText } from "@/lib/api/text";
-import { versionField } from "@/lib/api/version";
+import { nameField, optionalText } from "@/lib/http/text";
+import { versionField } from "@/lib/http/version";
 
 const id = (field: string) =>
   z

@@ -8,11 +8,12 @@ import type { LiftRevision } from "@/models/LiftRevision";
 import type { Train } from "@/models/Train";
 import { LOADINGS } from "@/models/Scenario";
 import { conflict, zodIssues, type FieldIssue } from "@/lib/http/errors";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
-import { assertVersion } from "@/lib/api/concurrency";
-import { archivedFilter, likePattern, listQuerySchema, pageOptions, queryBoolean, queryId, toPage, type Page } from "@/lib/api/list-query";
-import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/api/outcome";
-import { throwIfIssues, validate } from "@/lib/api/validate";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
+import { assertVersion } from "@/lib/http/concurrency";
+import { archivedFilter, likePattern, listQuerySchema, pageOptions, queryBoolean, queryId, toPage, type Page } from "@/lib/http/list-query";
+import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/http/outcome";
+import { throwIfIssues, validate } from "@/lib/http/validate";
+import { clipText } from "@/lib/http/text";
 import { recordAudit } from "@/lib/audit/record";
 import { carMassFor, ridersFor } from "@/lib/trains/mass";
 import { resolveEngineScenario, toEngineScenario, toScenarioIssue } from "./resolve";
@@ -304,7 +305,7 @@ export async function copyScenario(actor: Actor, id: number, input: unknown = {}
   const { scenario } = await loadScenarioParts(actor, id);
   const { name } = validate(scenarioCopySchema, input);
   const raw: Record<string, unknown> = {
-    name: name ?? `${scenario.name.slice(0, 193)} (copy)`,
+    name: name ?? `${clipText(scenario.name, 193)} (copy)`,
     notes: scenario.notes,
     liftId: scenario.liftId,
     liftRevisionId: scenario.liftRevisionId,

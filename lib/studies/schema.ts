@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { nameField } from "@/lib/http/text";
 import { startRunSchema } from "@/lib/runs/schema";
 
 /**
@@ -87,7 +88,7 @@ export type StudySettings = z.output<typeof studySettingsSchema>;
 export const createStudySchema = z
   .object({
     scenarioId: z.number({ error: "scenarioId must be a whole number" }).int().positive(),
-    name: z.string({ error: "name must be text" }).trim().min(1, { error: "name must not be empty" }).max(200),
+    name: nameField("name", 200),
     parameters: z
       .array(studyParameterSchema)
       .min(1, { error: "vary one or two parameters" })

@@ -6,7 +6,7 @@ import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Study } from "@/models/Study";
 import type { StudyCase } from "@/models/StudyCase";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { badRequest, conflict } from "@/lib/http/errors";
 import { fromZod } from "@/lib/http/errors";

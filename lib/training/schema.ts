@@ -1,25 +1,26 @@
 import { z } from "zod";
+import { nameField, oneLineText } from "@/lib/http/text";
 
 export const captionSchema = z.object({
   at: z.number({ error: "a time in seconds" }).finite().min(0).max(600),
-  text: z.string().trim().min(1, "write the caption").max(500),
+  text: oneLineText("caption", 500).refine((v) => v.length > 0, "write the caption"),
 });
 
 export const itemSchema = z.object({
   runId: z.number().int().positive(),
-  title: z.string().trim().max(200).optional().nullable(),
+  title: oneLineText("title", 200).optional().nullable(),
   captions: z.array(captionSchema).max(50).default([]),
 });
 
 export const sessionCreateSchema = z.object({
-  title: z.string().trim().min(1, "give the session a title").max(200),
+  title: oneLineText("title", 200).refine((v) => v.length > 0, "give the session a title"),
   description: z.string().trim().max(4000).optional().nullable(),
   items: z.array(itemSchema).max(30).optional(),
 });
 
 export const sessionUpdateSchema = z.object({
   version: z.number().int().min(0),
-  title: z.string().trim().min(1).max(200).optional(),
+  title: nameField("title", 200).optional(),
   description: z.string().trim().max(4000).optional().nullable(),
   /** The whole ordered list (replaces the previous one). */
   items: z.array(itemSchema).max(30).optional(),

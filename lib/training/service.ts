@@ -4,9 +4,9 @@
  * and their progress is recorded. A draft, or any session of another organisation, is 404 to them.
  */
 import { Op, type Transaction } from "sequelize";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
-import { assertVersion } from "@/lib/api/concurrency";
-import { throwIfIssues, validate } from "@/lib/api/validate";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
+import { assertVersion } from "@/lib/http/concurrency";
+import { throwIfIssues, validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { can } from "@/lib/auth/permissions";
 import { getSequelize } from "@/lib/db/sequelize";

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { trainSchema } from "@/sim/schema";
-import { nameField, optionalText } from "@/lib/api/text";
+import { nameField, optionalText } from "@/lib/http/text";
 
 /** Mass of one rider when none is given: 75 kg, an assumption the user can change (no source). */
 export const DEFAULT_RIDER_MASS = 75;

@@ -3,14 +3,14 @@ import { z } from "zod";
 import { getSequelize } from "@/lib/db/sequelize";
 import { getModels } from "@/models";
 import type { Train } from "@/models/Train";
-import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
-import { assertVersion, versionField } from "@/lib/api/concurrency";
-import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/api/list-query";
-import { validate } from "@/lib/api/validate";
+import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
+import { assertVersion, versionField } from "@/lib/http/concurrency";
+import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/http/list-query";
+import { validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { trainInputSchema, type TrainData } from "./schema";
 import { loadedCarMass } from "./mass";
-import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/api/outcome";
+import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/http/outcome";
 
 export interface TrainView extends TrainData {
   id: number;

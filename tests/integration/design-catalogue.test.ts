@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createChainSpec, deleteChainSpec, getChainSpec, listChainSpecs, updateChainSpec } from "@/lib/chains/service";
 import { createLift } from "@/lib/lifts/service";
 import type { Role } from "@/lib/auth/roles";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, designCounts, expectHttpError, liftBody, makeOrganisation } from "./design-fixtures";
 
 let org: { organisationId: number; as: Record<Role, Actor> };

@@ -2,7 +2,7 @@ import crypto from "node:crypto";
 import { getModels } from "@/models";
 import { getSequelize } from "@/lib/db/sequelize";
 import { ROLES, type Role } from "@/lib/auth/roles";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { HttpError } from "@/lib/http/errors";
 
 /** A fresh organisation with one user per role, unique names so test runs never collide. Seeded rows are left alone. */

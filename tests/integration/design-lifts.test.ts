@@ -5,7 +5,7 @@ import { createTrain } from "@/lib/trains/service";
 import { createScenario } from "@/lib/scenarios/service";
 import { listAudit } from "@/lib/audit/list";
 import type { Role } from "@/lib/auth/roles";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, designCounts, expectHttpError, liftBody, makeOrganisation, scenarioBody, trainBody } from "./design-fixtures";
 
 let org: { organisationId: number; as: Record<Role, Actor> };

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { can, type Action } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { HttpError } from "@/lib/http/errors";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { createLift, getLift, getRevision, listLifts, listRevisions, updateLift, deleteLift } from "@/lib/lifts/service";
 import { createChainSpec, getChainSpec, listChainSpecs, updateChainSpec, deleteChainSpec } from "@/lib/chains/service";
 import { createTrain, getTrain, listTrains, updateTrain, deleteTrain } from "@/lib/trains/service";

@@ -18,7 +18,7 @@ import { importScenario } from "@/lib/scenarios/import";
 import { createComment, deleteComment, listComments, updateComment } from "@/lib/comments/service";
 import { listAudit } from "@/lib/audit/list";
 import type { Role } from "@/lib/auth/roles";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, designCounts, expectHttpError, liftBody, makeOrganisation, scenarioBody, trainBody } from "./design-fixtures";
 
 let org: { organisationId: number; as: Record<Role, Actor> };

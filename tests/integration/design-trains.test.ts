@@ -3,7 +3,7 @@ import { createTrain, deleteTrain, getTrain, listTrains, updateTrain } from "@/l
 import { createLift } from "@/lib/lifts/service";
 import { createScenario } from "@/lib/scenarios/service";
 import type { Role } from "@/lib/auth/roles";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, designCounts, expectHttpError, liftBody, makeOrganisation, scenarioBody, trainBody } from "./design-fixtures";
 
 let org: { organisationId: number; as: Record<Role, Actor> };

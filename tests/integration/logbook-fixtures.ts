@@ -11,7 +11,7 @@ import { startS3Fake } from "@/lib/storage/fake-server";
 import { startRun } from "@/lib/runs/service";
 import { finished, importForRuns, shortScenarioFile } from "./runs-fixtures";
 import { makeOrganisation } from "./design-fixtures";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 
 export async function opsFakes() {
   const dir = await mkdtemp(path.join(os.tmpdir(), "tautline-ops-"));

@@ -9,7 +9,7 @@ import { createTrain } from "@/lib/trains/service";
 import { getSequelize } from "@/lib/db/sequelize";
 import { getModels } from "@/models";
 import type { Role } from "@/lib/auth/roles";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, liftBody, makeOrganisation, trainBody } from "./design-fixtures";
 
 let org: { organisationId: number; as: Record<Role, Actor> };

@@ -5,7 +5,7 @@ import { closeJobPool } from "@/lib/jobs/pool";
 import { startRun } from "@/lib/runs/service";
 import { decodeResult } from "@/lib/runs/result-format";
 import { HttpError } from "@/lib/http/errors";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, shortScenarioFile } from "./runs-fixtures";
 

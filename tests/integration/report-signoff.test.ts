@@ -14,7 +14,7 @@ import { approveReport, OWN_REPORT_MESSAGE, returnReport, submitReport } from "@
 import { FROZEN_RUN_MESSAGE } from "@/lib/review/freeze";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, shortScenarioFile } from "./runs-fixtures";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
 let engineer: Actor;

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { getModels } from "@/models";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { importScenario } from "@/lib/scenarios/import";
 import { waitForJob } from "@/lib/runs/runner";
 

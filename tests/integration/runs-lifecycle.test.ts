@@ -9,7 +9,7 @@ import { decodeResult } from "@/lib/runs/result-format";
 import { recoverInterruptedRuns, INTERRUPTED_MESSAGE } from "@/lib/runs/recover";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, runCount, shortScenarioFile, waitForRow } from "./runs-fixtures";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
 let other: Awaited<ReturnType<typeof makeOrganisation>>;

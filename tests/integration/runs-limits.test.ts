@@ -6,7 +6,7 @@ import { runConfig } from "@/lib/runs/config";
 import { cancelRun, getRun, startRun } from "@/lib/runs/service";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, runCount, shortScenarioFile, waitForRow } from "./runs-fixtures";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
 let operator: Actor;

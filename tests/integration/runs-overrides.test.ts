@@ -5,7 +5,7 @@ import { parseStartRunBody } from "@/lib/runs/http";
 import { getRun, getRunResult, listRuns, startRun } from "@/lib/runs/service";
 import { createReport } from "@/lib/reports/service";
 import { buildReportContent } from "@/lib/reports/content";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, runCount, shortScenarioFile } from "./runs-fixtures";
 

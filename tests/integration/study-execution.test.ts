@@ -14,7 +14,7 @@ import { storedSettings } from "@/lib/studies/driver";
 import type { StudyParameter } from "@/lib/studies/schema";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finishedStudy, studyScenario, waitForStudy } from "./study-fixtures";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
 let engineer: Actor;

@@ -1,5 +1,5 @@
 import { getModels } from "@/models";
-import type { Actor } from "@/lib/api/actor";
+import type { Actor } from "@/lib/http/actor";
 import { getStudy, type StudyView } from "@/lib/studies/service";
 import { importForRuns, shortScenarioFile } from "./runs-fixtures";
 

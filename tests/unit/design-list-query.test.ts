@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { likePattern, listQuerySchema, pageOptions, MAX_PAGE_SIZE } from "@/lib/api/list-query";
+import { likePattern, listQuerySchema, pageOptions, MAX_PAGE_SIZE } from "@/lib/http/list-query";
 
 const schema = listQuerySchema({ sortFields: ["name", "createdAt"], defaultSort: "name", filters: {} });
 

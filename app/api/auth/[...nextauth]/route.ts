@@ -1,9 +1,11 @@
 import NextAuth from "next-auth/next";
-import type { NextRequest } from "next/server";
+import { NextRequest } from "next/server";
 import { getAuthOptions } from "@/lib/auth/options";
 import { clientIp } from "@/lib/auth/rate-limit";
 import { signInAllowed, RATE_LIMITED_ERROR } from "@/lib/auth/sign-in";
 import { emailSchema } from "@/lib/auth/schemas";
+import { readBodyBytes } from "@/lib/http/request";
+import { respondError } from "@/lib/http/errors";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -21,7 +23,13 @@ export const GET = handle;
  * failed sign-in limit, before next-auth runs. The body keeps next-auth's `{ url }` shape so the sign-in
  * form (next-auth/react `signIn`) reads `error=RateLimited` from it.
  */
-export async function POST(req: NextRequest, ctx: Ctx) {
+export async function POST(original: NextRequest, ctx: Ctx) {
+  let req: NextRequest;
+  try {
+    req = await boundedCopy(original);
+  } catch (err) {
+    return respondError(err);
+  }
   const { nextauth } = await ctx.params;
   if (nextauth[0] === "callback" && nextauth[1] === "credentials") {
     const form = await req.clone().formData().catch(() => null);
@@ -40,4 +48,15 @@ export async function POST(req: NextRequest, ctx: Ctx) {
     }
   }
   return handle(req, ctx);
+}
+
+// Sign-in forms are a few hundred bytes; the body is read within a limit before next-auth reads it whole.
+const AUTH_BODY_MAX_BYTES = 16 * 1024;
+
+async function boundedCopy(req: NextRequest): Promise<NextRequest> {
+  const body = await readBodyBytes(req, AUTH_BODY_MAX_BYTES);
+  const headers = new Headers(req.headers);
+  headers.delete("content-length");
+  headers.delete("transfer-encoding");
+  return new NextRequest(req.url, { method: req.method, headers, body });
 }

@@ -2,9 +2,9 @@ import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
 import { cachedRead } from "@/lib/http/read-cache";
-import { readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { deleteLift, getLift, updateLift } from "@/lib/lifts/service";
 
 export const runtime = "nodejs";
@@ -18,7 +18,7 @@ export const GET = route(async (req, ctx: RouteContext) => {
 export const PATCH = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("design:write");
   const id = parseId((await ctx.params).id, "Lift not found.");
-  return NextResponse.json(await updateLift(actor, id, await readObjectBody(req)));
+  return NextResponse.json(await updateLift(actor, id, await parseJsonBody(req)));
 });
 
 /** Deletes an unused lift; archives one that scenarios use. */

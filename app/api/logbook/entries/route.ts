@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { queryOf, readObjectBody } from "@/lib/api/body";
+import { parseJsonBody, parseQuery } from "@/lib/http/request";
 import { createEntry, listEntries } from "@/lib/logbook/service";
 
 export const runtime = "nodejs";
@@ -9,11 +9,11 @@ export const runtime = "nodejs";
 /** Entries of one lift: ?liftId=&kind=&from=&to=&page=&pageSize= */
 export const GET = route(async (req) => {
   const actor = await requirePermission("logbook:read");
-  return NextResponse.json(await listEntries(actor, queryOf(req)));
+  return NextResponse.json(await listEntries(actor, parseQuery(req)));
 });
 
 /** A new entry; the answer names any alerts it raised (those are e-mailed once). */
 export const POST = route(async (req) => {
   const actor = await requirePermission("logbook:write");
-  return NextResponse.json(await createEntry(actor, await readObjectBody(req)), { status: 201 });
+  return NextResponse.json(await createEntry(actor, await parseJsonBody(req)), { status: 201 });
 });

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readJsonBody } from "@/lib/api/body";
+import { anyJson, parseJsonBody } from "@/lib/http/request";
 import { importScenario } from "@/lib/scenarios/import";
 
 export const runtime = "nodejs";
@@ -12,5 +12,5 @@ export const runtime = "nodejs";
  */
 export const POST = route(async (req) => {
   const actor = await requirePermission("design:write");
-  return NextResponse.json(await importScenario(actor, await readJsonBody(req)), { status: 201 });
+  return NextResponse.json(await importScenario(actor, await parseJsonBody(req, anyJson)), { status: 201 });
 });

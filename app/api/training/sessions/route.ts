@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
+import { parseJsonBody } from "@/lib/http/request";
 import { createSession, listSessions } from "@/lib/training/service";
 
 export const runtime = "nodejs";
@@ -14,5 +14,5 @@ export const GET = route(async () => {
 
 export const POST = route(async (req) => {
   const actor = await requirePermission("training:manage");
-  return NextResponse.json(await createSession(actor, await readObjectBody(req)), { status: 201 });
+  return NextResponse.json(await createSession(actor, await parseJsonBody(req)), { status: 201 });
 });

@@ -1,7 +1,7 @@
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { downloadHeaders, readUpload } from "@/lib/logbook/uploads";
 
 export const runtime = "nodejs";

@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { startCalibration } from "@/lib/calibration/service";
 
 export const runtime = "nodejs";
@@ -16,7 +16,7 @@ export const runtime = "nodejs";
 export const POST = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("run:start");
   const id = parseId((await ctx.params).id, "Recording not found.");
-  const calibration = await startCalibration(actor, id, await readObjectBody(req));
+  const calibration = await startCalibration(actor, id, await parseJsonBody(req));
   return NextResponse.json(
     { calibration },
     { status: 202, headers: { Location: `/api/recordings/${id}/calibration?calibrationId=${calibration.id}` } },

@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { queryOf, readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody, parseQuery } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { getCalibration, latestCalibration } from "@/lib/calibration/service";
 import { saveCalibration } from "@/lib/recordings/service";
 
@@ -13,7 +13,7 @@ export const runtime = "nodejs";
 export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("logbook:read");
   const id = parseId((await ctx.params).id, "Recording not found.");
-  const which = queryOf(req).calibrationId;
+  const which = parseQuery(req).calibrationId;
   const calibration =
     which === undefined ? await latestCalibration(actor, id) : await getCalibration(actor, id, parseId(String(which), "Calibration not found."));
   return NextResponse.json({ calibration });
@@ -23,5 +23,5 @@ export const GET = route(async (req, ctx: RouteContext) => {
 export const POST = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("calibration:save");
   const id = parseId((await ctx.params).id, "Recording not found.");
-  return NextResponse.json(await saveCalibration(actor, id, await readObjectBody(req)), { status: 201 });
+  return NextResponse.json(await saveCalibration(actor, id, await parseJsonBody(req)), { status: 201 });
 });

@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { queryOf } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseQuery } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { overlay } from "@/lib/recordings/service";
 
 export const runtime = "nodejs";
@@ -12,5 +12,5 @@ export const runtime = "nodejs";
 export const GET = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("logbook:read");
   const id = parseId((await ctx.params).id, "Recording not found.");
-  return NextResponse.json(await overlay(actor, id, queryOf(req).runId));
+  return NextResponse.json(await overlay(actor, id, parseQuery(req).runId));
 });

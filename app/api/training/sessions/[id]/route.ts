@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { deleteSession, getSession, updateSession } from "@/lib/training/service";
 
 export const runtime = "nodejs";
@@ -18,7 +18,7 @@ export const GET = route(async (_req, ctx: RouteContext) => {
 /** Title, description and the whole ordered list of runs with their captions; `version` required. */
 export const PATCH = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("training:manage");
-  return NextResponse.json(await updateSession(actor, await id(ctx), await readObjectBody(req)));
+  return NextResponse.json(await updateSession(actor, await id(ctx), await parseJsonBody(req)));
 });
 
 export const DELETE = route(async (_req, ctx: RouteContext) => {

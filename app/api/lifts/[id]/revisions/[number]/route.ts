@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { queryOf } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseQuery } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { getRevision } from "@/lib/lifts/service";
 
 export const runtime = "nodejs";
@@ -13,6 +13,6 @@ export const GET = route(async (req, ctx: RouteContext<{ id: string; number: str
   const actor = await requirePermission("design:read");
   const p = await ctx.params;
   return NextResponse.json(
-    await getRevision(actor, parseId(p.id, "Lift not found."), parseId(p.number, "Revision not found."), queryOf(req)),
+    await getRevision(actor, parseId(p.id, "Lift not found."), parseId(p.number, "Revision not found."), parseQuery(req)),
   );
 });

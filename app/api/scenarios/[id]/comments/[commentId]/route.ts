@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { deleteComment, updateComment } from "@/lib/comments/service";
 
 export const runtime = "nodejs";
@@ -14,7 +14,7 @@ type Ctx = RouteContext<{ id: string; commentId: string }>;
 export const PATCH = route(async (req, ctx: Ctx) => {
   const actor = await requirePermission("comment:write");
   const p = await ctx.params;
-  const body = await readObjectBody(req);
+  const body = await parseJsonBody(req);
   return NextResponse.json(
     await updateComment(actor, parseId(p.id, "Scenario not found."), parseId(p.commentId, "Comment not found."), body),
   );

@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { shareSession } from "@/lib/training/service";
 
 export const runtime = "nodejs";
@@ -12,5 +12,5 @@ export const runtime = "nodejs";
 export const POST = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("training:manage");
   const id = parseId((await ctx.params).id, "Session not found.");
-  return NextResponse.json(await shareSession(actor, id, await readObjectBody(req)));
+  return NextResponse.json(await shareSession(actor, id, await parseJsonBody(req)));
 });

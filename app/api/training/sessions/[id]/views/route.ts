@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { requirePermission } from "@/lib/auth/session";
 import { route } from "@/lib/http/route";
-import { readObjectBody } from "@/lib/api/body";
-import { parseId } from "@/lib/api/ids";
-import type { RouteContext } from "@/lib/api/params";
+import { parseJsonBody } from "@/lib/http/request";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 import { recordView, sessionProgress } from "@/lib/training/service";
 
 export const runtime = "nodejs";
@@ -18,5 +18,5 @@ export const GET = route(async (_req, ctx: RouteContext) => {
 export const POST = route(async (req, ctx: RouteContext) => {
   const actor = await requirePermission("training:watch");
   const id = parseId((await ctx.params).id, "Session not found.");
-  return NextResponse.json(await recordView(actor, id, await readObjectBody(req)));
+  return NextResponse.json(await recordView(actor, id, await parseJsonBody(req)));
 });
