@@ -10,12 +10,7 @@ import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { validate, type FieldErrors } from "@/components/ui/form-errors";
 import { signInErrorText } from "./messages";
-
-/** Only paths on this site: a callbackUrl pointing elsewhere is ignored. */
-function safeCallback(url: string | undefined): string {
-  if (!url || !url.startsWith("/") || url.startsWith("//")) return "/dashboard";
-  return url;
-}
+import { safeCallbackPath } from "@/lib/security/redirect";
 
 export function SignInForm({ callbackUrl, initialError, initialEmail }: { callbackUrl?: string; initialError?: string | null; initialEmail?: string }) {
   const [values, setValues] = useState({ email: initialEmail ?? "", password: "" });
@@ -30,7 +25,8 @@ export function SignInForm({ callbackUrl, initialError, initialEmail }: { callba
     if (checked.errors) return setErrors(checked.errors);
     setErrors({});
     setBusy(true);
-    const target = safeCallback(callbackUrl);
+    // Only paths on this site: a callbackUrl pointing elsewhere is ignored.
+    const target = safeCallbackPath(callbackUrl);
     const res = await signIn("credentials", { redirect: false, email: checked.data.email, password: checked.data.password, callbackUrl: target });
     if (res?.ok && !res.error) {
       // A full navigation so the server renders the workspace with the new session cookie.

@@ -3,6 +3,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { authSecret } from "./secret";
 import { checkCredentials, RATE_LIMITED_ERROR } from "./sign-in";
 import { clientIp } from "./rate-limit";
+import { safeCallbackPath } from "@/lib/security/redirect";
 
 const SESSION_HOURS = 12;
 
@@ -51,6 +52,11 @@ export function getAuthOptions(): NextAuthOptions {
       },
     },
     callbacks: {
+      // next-auth's own redirects (after sign-in and sign-out) stay on this site, by the same rule as the sign-in page.
+      async redirect({ url, baseUrl }) {
+        if (url.startsWith(baseUrl)) url = url.slice(baseUrl.length) || "/";
+        return `${baseUrl}${safeCallbackPath(url)}`;
+      },
       async jwt({ token, user }) {
         if (user) {
           const u = user as unknown as { uid: number; sv: number };

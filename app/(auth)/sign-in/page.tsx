@@ -4,6 +4,7 @@ import { AuthCard } from "@/components/auth/AuthCard";
 import { SignInForm } from "@/components/auth/SignInForm";
 import { Alert } from "@/components/ui/Alert";
 import { getCurrentUserIfAvailable } from "@/lib/auth/session";
+import { safeCallbackPath } from "@/lib/security/redirect";
 
 export const metadata: Metadata = { title: "Sign in" };
 
@@ -16,7 +17,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Searc
   const callbackUrl = one(q.callbackUrl);
   // Someone with a valid, active session has nothing to do here.
   if (await getCurrentUserIfAvailable()) {
-    redirect(callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/dashboard");
+    redirect(safeCallbackPath(callbackUrl));
   }
   const notice = q.passwordChanged
     ? "Your password was changed. Sign in with the new one."
