@@ -5,7 +5,7 @@ import { inviteMail, passwordChangedMail, resetMail } from "@/lib/mail/templates
 import { getModels } from "@/models";
 import type { CurrentUser } from "./current-user";
 import { hashPassword, verifyPassword } from "./password";
-import { RESET_PER_ACCOUNT, RESET_PER_IP, SIGN_IN_PER_ACCOUNT, rateLimiter } from "./rate-limit";
+import { accountPrefix, RESET_PER_ACCOUNT, RESET_PER_IP, SIGN_IN_PER_ACCOUNT, SIGN_IN_PER_PAIR, rateLimiter } from "./rate-limit";
 import type { Role } from "./roles";
 import { consumeToken, issueToken, TOKEN_LIFETIME_MS } from "./tokens";
 import type {
@@ -198,7 +198,7 @@ export async function resetPassword(input: { token: string; password: string }):
     return { email: user.email };
   });
   // Someone who proved they own the mailbox should not stay locked out by earlier failed guesses.
-  await rateLimiter().clear(SIGN_IN_PER_ACCOUNT, result.email);
+  await rateLimiter().clearPrefix(SIGN_IN_PER_PAIR, accountPrefix(result.email));
   return result;
 }
 

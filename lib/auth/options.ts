@@ -2,7 +2,7 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { authSecret } from "./secret";
 import { checkCredentials, RATE_LIMITED_ERROR } from "./sign-in";
-import { clientIp } from "./rate-limit";
+import { claimedAddress, clientAddress } from "@/lib/security/client-address";
 import { safeCallbackPath } from "@/lib/security/redirect";
 
 const SESSION_HOURS = 12;
@@ -27,7 +27,8 @@ export function getAuthOptions(): NextAuthOptions {
         name: "Tautline account",
         credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
         async authorize(credentials, req) {
-          const result = await checkCredentials(credentials ?? {}, clientIp(req.headers ?? {}));
+          const headers = req.headers ?? {};
+          const result = await checkCredentials(credentials ?? {}, { address: clientAddress(headers), claimed: claimedAddress(headers) });
           if (result.ok) {
             const u = result.user;
             return { id: String(u.id), email: u.email, name: u.name, uid: u.id, sv: u.sessionVersion };

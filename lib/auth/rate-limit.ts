@@ -1,3 +1,4 @@
+import { createHash } from "node:crypto";
 import { Op } from "sequelize";
 import { getModels } from "@/models";
 
@@ -17,10 +18,13 @@ export interface RateDecision {
 
 const MINUTE = 60_000;
 
-// Failed sign-ins: a handful per account stops password guessing on one account; the wider per-IP limit
-// stops spraying many accounts from one address without locking out a shared office.
-export const SIGN_IN_PER_ACCOUNT: RateRule = { bucket: "signin:account", limit: 5, windowMs: 15 * MINUTE };
+// Failed sign-ins. The lockout is per (account, address) pair, so wrong passwords sent from other
+// addresses (or with a forged X-Forwarded-For) never lock the real user out; the wider per-address limit,
+// on the address the request really came from, caps guessing across accounts and across forged pairs.
+export const SIGN_IN_PER_PAIR: RateRule = { bucket: "signin:pair", limit: 5, windowMs: 15 * MINUTE };
 export const SIGN_IN_PER_IP: RateRule = { bucket: "signin:ip", limit: 30, windowMs: 15 * MINUTE };
+// Wrong current passwords when a signed-in user changes theirs (the account is known, the session proves it).
+export const SIGN_IN_PER_ACCOUNT: RateRule = { bucket: "signin:account", limit: 5, windowMs: 15 * MINUTE };
 // Reset e-mails: enough for a typo or two, not enough to flood someone's inbox.
 export const RESET_PER_ACCOUNT: RateRule = { bucket: "reset:account", limit: 3, windowMs: 60 * MINUTE };
 export const RESET_PER_IP: RateRule = { bucket: "reset:ip", limit: 20, windowMs: 60 * MINUTE };
@@ -42,6 +46,8 @@ export interface RateStore {
   hitsSince(bucket: string, key: string, since: Date): Promise<Date[]>;
   add(bucket: string, key: string, at: Date): Promise<void>;
   clear(bucket: string, key: string): Promise<void>;
+  /** Drops every key of `bucket` that starts with `prefix`. */
+  clearPrefix(bucket: string, prefix: string): Promise<void>;
   prune(before: Date): Promise<void>;
 }
 
@@ -56,6 +62,9 @@ export class MemoryRateStore implements RateStore {
   }
   async clear(bucket: string, key: string) {
     this.hits.delete(`${bucket}\u0000${key}`);
+  }
+  async clearPrefix(bucket: string, prefix: string) {
+    for (const k of [...this.hits.keys()]) if (k.startsWith(`${bucket}\u0000${prefix}`)) this.hits.delete(k);
   }
   async prune(before: Date) {
     for (const [k, v] of this.hits) this.hits.set(k, v.filter((d) => d >= before));
@@ -77,6 +86,9 @@ export class DbRateStore implements RateStore {
   }
   async clear(bucket: string, key: string) {
     await getModels().RateLimitHit.destroy({ where: { bucket, key } });
+  }
+  async clearPrefix(bucket: string, prefix: string) {
+    await getModels().RateLimitHit.destroy({ where: { bucket, key: { [Op.like]: `${prefix.replace(/[\\%_]/g, (c) => `\\${c}`)}%` } } });
   }
   async prune(before: Date) {
     await getModels().RateLimitHit.destroy({ where: { hitAt: { [Op.lt]: before } } });
@@ -113,6 +125,10 @@ export class RateLimiter {
   async clear(rule: RateRule, key: string): Promise<void> {
     await this.store.clear(rule.bucket, normaliseKey(key));
   }
+
+  async clearPrefix(rule: RateRule, prefix: string): Promise<void> {
+    await this.store.clearPrefix(rule.bucket, normaliseKey(prefix));
+  }
 }
 
 function normaliseKey(key: string): string {
@@ -126,23 +142,7 @@ export function rateLimiter(): RateLimiter {
   return shared;
 }
 
-/**
- * The client's address for the per-IP limit. Next sets X-Forwarded-For to the socket's address only when
- * the request has none, so the header can come from the client itself. The rightmost entry is the one
- * added by the nearest proxy (or by Next), which is the hardest to forge: behind a reverse proxy that
- * appends to X-Forwarded-For it is the real client. Served directly, a client can still forge it; the
- * per-account limit holds regardless. Falls back to a fixed key so the per-IP limit always applies.
- */
-export function clientIp(headers: Headers | Record<string, string | string[] | undefined>): string {
-  const get = (name: string): string | undefined => {
-    if (headers instanceof Headers) return headers.get(name) ?? undefined;
-    const v = headers[name];
-    return Array.isArray(v) ? v.join(",") : v;
-  };
-  const forwarded = get("x-forwarded-for")
-    ?.split(",")
-    .map((p) => p.trim())
-    .filter(Boolean)
-    .pop();
-  return forwarded || get("x-real-ip")?.trim() || "unknown";
-}
+/** The key prefix of every pair of one account (a digest, so long e-mails and addresses fit the column). */
+export const accountPrefix = (email: string) => `${createHash("sha256").update(email.trim().toLowerCase()).digest("hex").slice(0, 32)}|`;
+/** The key of an (account, address) pair. */
+export const pairKey = (email: string, address: string) => `${accountPrefix(email)}${address.slice(0, 120)}`;

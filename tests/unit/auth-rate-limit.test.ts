@@ -1,5 +1,7 @@
+import http from "node:http";
 import { describe, expect, it } from "vitest";
-import { clientIp, decide, MemoryRateStore, RateLimiter, SIGN_IN_PER_ACCOUNT, type RateRule } from "@/lib/auth/rate-limit";
+import { claimedAddress, clientAddress, installPeerStamp } from "@/lib/security/client-address";
+import { decide, MemoryRateStore, RateLimiter, SIGN_IN_PER_ACCOUNT, type RateRule } from "@/lib/auth/rate-limit";
 
 const MIN = 60_000;
 const rule: RateRule = { bucket: "test", limit: 3, windowMs: 10 * MIN };
@@ -74,12 +76,31 @@ describe("RateLimiter", () => {
   });
 });
 
-describe("clientIp", () => {
-  it("takes the X-Forwarded-For entry the nearest proxy appended, then X-Real-IP, then a fixed key", () => {
-    // A client-sent "203.0.113.7" followed by the address the proxy saw: the proxy's entry counts.
-    expect(clientIp(new Headers({ "x-forwarded-for": "203.0.113.7, 198.51.100.20" }))).toBe("198.51.100.20");
-    expect(clientIp({ "x-forwarded-for": "::ffff:127.0.0.1" })).toBe("::ffff:127.0.0.1");
-    expect(clientIp({ "x-real-ip": "198.51.100.2" })).toBe("198.51.100.2");
-    expect(clientIp({})).toBe("unknown");
+describe("clientAddress", () => {
+  it("ignores forwarding headers unless TRUSTED_PROXIES names the proxy", () => {
+    const forged = new Headers({ "x-forwarded-for": "203.0.113.7, 198.51.100.20", "x-real-ip": "198.51.100.2" });
+    // Without a stamped socket address and without a trusted proxy, every such request shares one key.
+    expect(clientAddress(forged, {})).toBe("direct");
+    expect(clientAddress(forged, { TRUSTED_PROXIES: "loopback" })).toBe("198.51.100.20");
+    // Past our own proxies to the client they saw.
+    expect(clientAddress(new Headers({ "x-forwarded-for": "198.51.100.20, 10.0.0.5" }), { TRUSTED_PROXIES: "10.0.0.5" })).toBe("198.51.100.20");
+    expect(claimedAddress(forged, {})).toBe("198.51.100.20");
+  });
+
+  it("uses the socket's address, stamped at start-up, over anything the client sends", async () => {
+    await installPeerStamp();
+    const server = http.createServer((req, res) => {
+      res.end(JSON.stringify({ address: clientAddress(req.headers, {}), viaProxy: clientAddress(req.headers, { TRUSTED_PROXIES: "loopback" }) }));
+    });
+    await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+    try {
+      const { port } = server.address() as { port: number };
+      const res = await fetch(`http://127.0.0.1:${port}/`, { headers: { "x-forwarded-for": "203.0.113.99" } });
+      const body = (await res.json()) as { address: string; viaProxy: string };
+      expect(body.address).toMatch(/^(::ffff:)?127\.0\.0\.1$/);
+      expect(body.viaProxy).toBe("203.0.113.99");
+    } finally {
+      await new Promise((resolve) => server.close(resolve));
+    }
   });
 });

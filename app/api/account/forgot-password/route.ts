@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
 import { appBaseUrl, FORGOT_PASSWORD_ANSWER, requestPasswordReset } from "@/lib/auth/accounts";
-import { clientIp } from "@/lib/auth/rate-limit";
+import { clientAddress } from "@/lib/security/client-address";
 import { forgotPasswordSchema } from "@/lib/auth/schemas";
 import { tooManyRequests } from "@/lib/http/errors";
 import { parseJsonBody } from "@/lib/http/request";
@@ -11,7 +11,7 @@ export const runtime = "nodejs";
 /** Always the same answer whether or not the address has an account. */
 export const POST = route(async (req) => {
   const { email } = await parseJsonBody(req, forgotPasswordSchema);
-  const result = await requestPasswordReset(email, clientIp(req.headers), appBaseUrl(req));
+  const result = await requestPasswordReset(email, clientAddress(req.headers), appBaseUrl(req));
   if (!result.allowed) {
     throw tooManyRequests("Too many reset requests from this address. Try again later.", result.retryAfterSeconds);
   }

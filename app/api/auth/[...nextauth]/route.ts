@@ -1,7 +1,7 @@
 import NextAuth from "next-auth/next";
 import { NextRequest } from "next/server";
 import { getAuthOptions } from "@/lib/auth/options";
-import { clientIp } from "@/lib/auth/rate-limit";
+import { claimedAddress, clientAddress } from "@/lib/security/client-address";
 import { signInAllowed, RATE_LIMITED_ERROR } from "@/lib/auth/sign-in";
 import { emailSchema } from "@/lib/auth/schemas";
 import { readBodyBytes } from "@/lib/http/request";
@@ -34,7 +34,7 @@ export async function POST(original: NextRequest, ctx: Ctx) {
   if (nextauth[0] === "callback" && nextauth[1] === "credentials") {
     const form = await req.clone().formData().catch(() => null);
     const email = emailSchema.safeParse(form?.get("email") ?? "");
-    const decision = await signInAllowed(email.success ? email.data : "", clientIp(req.headers));
+    const decision = await signInAllowed(email.success ? email.data : "", { address: clientAddress(req.headers), claimed: claimedAddress(req.headers) });
     if (!decision.allowed) {
       const url = new URL("/sign-in", req.nextUrl.origin);
       url.searchParams.set("error", RATE_LIMITED_ERROR);
