@@ -1,5 +1,6 @@
 import { z } from "zod";
 import type { Order } from "sequelize";
+import { toId } from "./ids";
 
 export const MAX_PAGE_SIZE = 100;
 export const DEFAULT_PAGE_SIZE = 20;
@@ -8,12 +9,16 @@ export const DEFAULT_PAGE_SIZE = 20;
 export const queryBoolean = (name: string) =>
   z.enum(["true", "false", "1", "0"], { error: `${name} must be true or false` }).transform((v) => v === "true" || v === "1");
 
-/** A positive whole-number id from a query string. */
+/** A positive whole-number id from a query string (the same rule as path ids, lib/http/ids.ts). */
 export const queryId = (name: string) =>
-  z.coerce
-    .number({ error: `${name} must be a whole number` })
-    .int({ error: `${name} must be a whole number` })
-    .positive({ error: `${name} must be a positive id` });
+  z.preprocess(
+    (v) => (typeof v === "number" ? String(v) : v),
+    z.string({ error: `${name} must be a whole number` }).transform((v, ctx) => {
+      const id = toId(v);
+      if (id === null) ctx.addIssue({ code: "custom", message: `${name} must be a positive whole-number id in plain digits (like 12)` });
+      return id ?? 0;
+    }),
+  );
 
 /** Archived rows are hidden by default; `archived=true` shows only archived rows, `archived=all` both. */
 export const archivedFilter = z

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { toId } from "@/lib/http/ids";
 import { ScenarioTable } from "@/components/scenario/ScenarioTable";
 import { ButtonLink } from "@/components/ui/Button";
 import { PageHeader } from "@/components/ui/PageHeader";
@@ -10,7 +11,7 @@ export const metadata: Metadata = { title: "Scenarios" };
 export default async function ScenariosPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await pageUser("/scenarios");
   const sp = await searchParams;
-  const liftId = typeof sp.liftId === "string" && /^\d+$/.test(sp.liftId) ? Number(sp.liftId) : undefined;
+  const liftId = toId(sp.liftId) ?? undefined;
   return (
     <>
       <PageHeader

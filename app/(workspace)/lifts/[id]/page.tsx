@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { LiftEditor } from "@/components/lift/LiftEditor";
 import { RevisionHistory } from "@/components/lift/RevisionHistory";
 import { NEW_LIFT, type LiftJson } from "@/components/lift/types";
@@ -15,8 +16,8 @@ export const metadata: Metadata = { title: "Lift" };
 
 export default async function LiftPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/lifts/[id]");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let lift: LiftJson;
   try {
     lift = JSON.parse(JSON.stringify(await getLift(user, id))) as LiftJson;

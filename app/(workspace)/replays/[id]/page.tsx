@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { SessionPlayer } from "@/components/training/SessionPlayer";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
@@ -10,8 +11,8 @@ export const metadata: Metadata = { title: "Replay session" };
 
 export default async function SessionPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/replays/[id]");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let session;
   try {
     session = await getSession(user, id);

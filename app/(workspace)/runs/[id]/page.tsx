@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { SavedRunView } from "@/components/run/SavedRunView";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
@@ -18,8 +19,8 @@ export default async function RunPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const user = await pageUser("/runs/[id]");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let scenarioName = "";
   try {
     const run = await getRun(user, id);

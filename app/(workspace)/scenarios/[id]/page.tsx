@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { ScenarioRunView } from "@/components/run/ScenarioRunView";
 import { ScenarioEditor } from "@/components/scenario/ScenarioEditor";
 import { LOADING_LABELS, type ScenarioJson } from "@/components/scenario/types";
@@ -23,8 +24,8 @@ export default async function ScenarioPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const user = await pageUser("/scenarios/[id]");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let view: ScenarioJson;
   let engine: Scenario | null = null;
   try {

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { StudyDetail } from "@/components/study/StudyDetail";
 import { pageUser } from "@/lib/auth/page-guard";
@@ -11,9 +12,9 @@ export const dynamic = "force-dynamic";
 
 export default async function StudyPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/studies/[id]");
-  const { id } = await params;
-  if (!/^\d{1,10}$/.test(id)) notFound();
-  const study = await getModels().Study.findByPk(Number(id), { attributes: ["id", "organisationId", "name"] });
+  const id = toId((await params).id);
+  if (id === null) notFound();
+  const study = await getModels().Study.findByPk(id, { attributes: ["id", "organisationId", "name"] });
   if (!study || study.organisationId !== user.organisationId) notFound();
   return (
     <>

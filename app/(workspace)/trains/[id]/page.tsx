@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { TrainEditor, type TrainJson } from "@/components/train/TrainEditor";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
@@ -11,8 +12,8 @@ export const metadata: Metadata = { title: "Train" };
 
 export default async function TrainPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/trains/[id]");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let train: TrainJson;
   try {
     train = JSON.parse(JSON.stringify(await getTrain(user, id))) as TrainJson;

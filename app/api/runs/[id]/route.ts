@@ -3,22 +3,23 @@ import { route } from "@/lib/http/route";
 import { cachedRead } from "@/lib/http/read-cache";
 import { requirePermission } from "@/lib/auth/session";
 import { deleteRun, getRun } from "@/lib/runs/service";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** Status, progress, summary and the stored inputs of one run (poll this, or follow /events). */
-export const GET = route<IdParams>(async (req, ctx) => {
+export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const id = await idFrom(ctx, "No such run.");
+  const id = parseId((await ctx.params).id, "No such run.");
   return cachedRead(req, user, () => getRun(user, id));
 });
 
 /** Deletes a run: DELETE /api/runs/{id}?version={the version you loaded} (409 when stale). */
-export const DELETE = route<IdParams>(async (req, ctx) => {
+export const DELETE = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:delete");
   const version = new URL(req.url).searchParams.get("version");
-  await deleteRun(user, await idFrom(ctx, "No such run."), version);
+  await deleteRun(user, parseId((await ctx.params).id, "No such run."), version);
   return new NextResponse(null, { status: 204 });
 });

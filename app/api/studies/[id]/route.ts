@@ -4,15 +4,16 @@ import { parseQuery } from "@/lib/http/request";
 import { requirePermission } from "@/lib/auth/session";
 import { getStudy } from "@/lib/studies/service";
 import { unitsQuerySchema } from "@/lib/studies/http";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** The study with progress, time left, every case and the operating window (?units=si|us for the sentence). */
-export const GET = route<IdParams>(async (req, ctx) => {
+export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("study:read");
-  const id = await idFrom(ctx, "No such study.");
+  const id = parseId((await ctx.params).id, "No such study.");
   const { units } = parseQuery(req, unitsQuerySchema);
   return NextResponse.json({ study: await getStudy(user, id, { units }) });
 });

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { RecordingView } from "@/components/recording/RecordingView";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
@@ -14,8 +15,8 @@ export const metadata: Metadata = { title: "Recording" };
 
 export default async function RecordingPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/logbook/recordings/[id]");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let rec;
   try {
     rec = await getRecording(user, id);

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { toId } from "@/lib/http/ids";
 import { SessionBuilder } from "@/components/training/SessionBuilder";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
@@ -11,8 +12,8 @@ export const metadata: Metadata = { title: "Edit replay session" };
 
 export default async function EditSessionPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/replays/[id]/edit");
-  const id = Number((await params).id);
-  if (!Number.isInteger(id) || id <= 0) notFound();
+  const id = toId((await params).id);
+  if (id === null) notFound();
   let session;
   try {
     session = await getSession(user, id);

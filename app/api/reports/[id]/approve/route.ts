@@ -4,14 +4,15 @@ import { parseJsonBody } from "@/lib/http/request";
 import { route } from "@/lib/http/route";
 import { requirePermission } from "@/lib/auth/session";
 import { approveReport } from "@/lib/review/service";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** A reviewer who is not the author approves: stamps, stores the PDF, freezes the scenario, e-mails the author. Body { comment? } */
-export const POST = route<IdParams>(async (req, ctx) => {
+export const POST = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("report:review");
-  const id = await idFrom(ctx, "No such report.");
+  const id = parseId((await ctx.params).id, "No such report.");
   return NextResponse.json({ report: await approveReport(user, id, await parseJsonBody(req, z.unknown())) });
 });

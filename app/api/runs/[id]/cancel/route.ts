@@ -2,13 +2,14 @@ import { NextResponse } from "next/server";
 import { route } from "@/lib/http/route";
 import { requirePermission } from "@/lib/auth/session";
 import { cancelRun } from "@/lib/runs/service";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** Cancels a queued or running run (409 when it has already finished). */
-export const POST = route<IdParams>(async (_req, ctx) => {
+export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("run:cancel");
-  return NextResponse.json(await cancelRun(user, await idFrom(ctx, "No such run.")));
+  return NextResponse.json(await cancelRun(user, parseId((await ctx.params).id, "No such run.")));
 });

@@ -4,7 +4,8 @@ import { parseQuery } from "@/lib/http/request";
 import { requirePermission } from "@/lib/auth/session";
 import { getRunResult, getRunResultBlob } from "@/lib/runs/service";
 import { resultQuerySchema } from "@/lib/runs/schema";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -13,9 +14,9 @@ export const dynamic = "force-dynamic";
  * The result of a finished run. Default: JSON { runId, format, summary, result: { series, frames, notes } }.
  * `?format=binary` (or Accept: application/octet-stream): the stored gzipped tautline-result/1 blob.
  */
-export const GET = route<IdParams>(async (req, ctx) => {
+export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const runId = await idFrom(ctx, "No such run.");
+  const runId = parseId((await ctx.params).id, "No such run.");
   const { format } = parseQuery(req, resultQuerySchema);
   const wantsBinary = format === "binary" || (!format && (req.headers.get("accept") ?? "").includes("application/octet-stream"));
   if (wantsBinary) {

@@ -5,15 +5,17 @@ import { parseQuery } from "@/lib/http/request";
 import { requirePermission } from "@/lib/auth/session";
 import { assertOwnScenario, listRuns, startRun } from "@/lib/runs/service";
 import { listRunsQuerySchema } from "@/lib/runs/schema";
-import { idFrom, parseStartRunBody, type IdParams } from "@/lib/runs/http";
+import { parseStartRunBody } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** Runs of one scenario, newest first: ?page=&pageSize=&status=&sort=newest|oldest */
-export const GET = route<IdParams>(async (req, ctx) => {
+export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const scenarioId = await idFrom(ctx, "No such scenario.");
+  const scenarioId = parseId((await ctx.params).id, "No such scenario.");
   const query = parseQuery(req, listRunsQuerySchema);
   return cachedRead(req, user, () => listRuns(user, scenarioId, query));
 });
@@ -22,9 +24,9 @@ export const GET = route<IdParams>(async (req, ctx) => {
  * Starts a run off the request thread; answers 202 with `{ run }` (the queued run) and its Location
  * (503 + Retry-After when the queue is full).
  */
-export const POST = route<IdParams>(async (req, ctx) => {
+export const POST = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:start");
-  const scenarioId = await idFrom(ctx, "No such scenario.");
+  const scenarioId = parseId((await ctx.params).id, "No such scenario.");
   await assertOwnScenario(user, scenarioId);
   const body = await parseStartRunBody(req);
   const run = await startRun(user, scenarioId, body);

@@ -2,13 +2,14 @@ import { NextResponse } from "next/server";
 import { route } from "@/lib/http/route";
 import { requirePermission } from "@/lib/auth/session";
 import { cancelStudy } from "@/lib/studies/service";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** Cancels the study's waiting and running cases; finished cases are kept. 409 when already finished. */
-export const POST = route<IdParams>(async (_req, ctx) => {
+export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("study:run");
-  return NextResponse.json({ study: await cancelStudy(user, await idFrom(ctx, "No such study.")) });
+  return NextResponse.json({ study: await cancelStudy(user, parseId((await ctx.params).id, "No such study.")) });
 });

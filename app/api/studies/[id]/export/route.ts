@@ -5,15 +5,16 @@ import { requirePermission } from "@/lib/auth/session";
 import { getStudy } from "@/lib/studies/service";
 import { exportQuerySchema } from "@/lib/studies/http";
 import { studyCsv, studyXlsx } from "@/lib/studies/export";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** The case table as a download: ?format=csv|xlsx&units=si|us */
-export const GET = route<IdParams>(async (req, ctx) => {
+export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("study:read");
-  const id = await idFrom(ctx, "No such study.");
+  const id = parseId((await ctx.params).id, "No such study.");
   const q = parseQuery(req, exportQuerySchema);
   const units = q.units ?? user.units;
   const format = q.format;

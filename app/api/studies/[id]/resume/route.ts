@@ -2,13 +2,14 @@ import { NextResponse } from "next/server";
 import { route } from "@/lib/http/route";
 import { requirePermission } from "@/lib/auth/session";
 import { resumeStudy } from "@/lib/studies/service";
-import { idFrom, type IdParams } from "@/lib/runs/http";
+import { parseId } from "@/lib/http/ids";
+import type { RouteContext } from "@/lib/http/params";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** Runs the unfinished cases of a cancelled or interrupted study again; finished cases are kept. */
-export const POST = route<IdParams>(async (_req, ctx) => {
+export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("study:run");
-  return NextResponse.json({ study: await resumeStudy(user, await idFrom(ctx, "No such study.")) });
+  return NextResponse.json({ study: await resumeStudy(user, parseId((await ctx.params).id, "No such study.")) });
 });
