@@ -7,14 +7,8 @@ import type { User } from "@/models/User";
 import { assertCan, type Actor } from "@/lib/http/actor";
 import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/http/list-query";
 import { validate } from "@/lib/http/validate";
+import { isoDateField } from "@/lib/http/dates";
 import { diffValues, type FieldChange } from "@/lib/lifts/diff";
-
-const isoDate = (name: string) =>
-  z
-    .string()
-    .trim()
-    .refine((v) => !Number.isNaN(Date.parse(v)), { error: `${name} must be a date and time (ISO 8601)` })
-    .transform((v) => new Date(v));
 
 export const auditListQuery = listQuerySchema({
   sortFields: ["at", "entity", "action"],
@@ -25,8 +19,8 @@ export const auditListQuery = listQuerySchema({
     entityId: z.string().trim().max(64, { error: "entityId must be at most 64 characters" }).optional(),
     action: z.enum(AUDIT_ACTIONS, { error: `action must be one of ${AUDIT_ACTIONS.join(", ")}` }).optional(),
     userId: queryId("userId").optional(),
-    from: isoDate("from").optional(),
-    to: isoDate("to").optional(),
+    from: isoDateField("from").optional(),
+    to: isoDateField("to").optional(),
   },
 });
 export type AuditListQuery = z.input<typeof auditListQuery>;

@@ -1,8 +1,10 @@
 /** One zod schema per logbook concept, shared by the API, the forms and the tests. SI units. */
 import { z } from "zod";
 import { oneLineText } from "@/lib/http/text";
+import { isoDateField } from "@/lib/http/dates";
+import { queryId } from "@/lib/http/list-query";
 
-const when = z.coerce.date({ error: "a date and time, e.g. 2026-05-01T08:00" }).optional();
+const when = isoDateField("measuredAt").optional();
 const notes = z.string().trim().max(2000).optional().nullable();
 const metres = (max: number) => z.number({ error: "a number in metres" }).finite().min(0).max(max);
 
@@ -62,10 +64,10 @@ export const settingsInputSchema = z
   .refine((s) => s.elongationWarning <= s.elongationLimit, { path: ["elongationWarning"], message: "must not exceed the limit" });
 
 export const entryListQuery = z.object({
-  liftId: z.coerce.number().int().positive(),
+  liftId: queryId("liftId"),
   kind: z.enum(["elongation", "take-up", "links-removed", "lubrication", "inspection"]).optional(),
-  from: z.coerce.date().optional(),
-  to: z.coerce.date().optional(),
+  from: isoDateField("from").optional(),
+  to: isoDateField("to").optional(),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
 });

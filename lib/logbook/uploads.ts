@@ -7,7 +7,7 @@ import crypto from "node:crypto";
 import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { badRequest, HttpError } from "@/lib/http/errors";
 import { clipText } from "@/lib/http/text";
-import { getObject, newStorageKey, putObject } from "@/lib/storage/client";
+import { deleteObject, getObject, newStorageKey, putObject } from "@/lib/storage/client";
 import { sniffImage } from "@/lib/storage/sniff";
 import { getModels, type Upload } from "@/models";
 
@@ -59,6 +59,12 @@ export async function storePhoto(actor: Actor, liftId: number, file: { name: str
 }
 
 /** Stores a file as received for a recording (already validated by the caller). */
+/** Removes a stored file and its row (a write that failed after the file was stored). */
+export async function discardUpload(upload: Upload): Promise<void> {
+  await upload.destroy();
+  await deleteObject(upload.storageKey);
+}
+
 export async function storeRecordingFile(actor: Actor, liftId: number, name: string, bytes: Buffer): Promise<Upload> {
   const key = newStorageKey("recordings", actor.organisationId);
   await putObject(key, bytes, "text/csv");

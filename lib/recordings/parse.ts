@@ -31,6 +31,26 @@ export function readHeaders(csv: string): string[] {
   return (r.data[0] ?? []).map((h) => String(h).trim());
 }
 
+// Largest magnitude of a reading in SI units: far beyond any chain lift (assumption), far below overflow,
+// so differences of two readings stay finite too. Time allows logger clocks in Unix seconds.
+const MAX_SI: Record<Channel | "time", number> = {
+  time: 1e11,
+  takeUpPosition: 1e6,
+  chainTension: 1e9,
+  driveCurrent: 1e6,
+  trainPosition: 1e6,
+  trainSpeed: 1e4,
+};
+const SI_UNIT: Record<Channel, string> = { takeUpPosition: "m", chainTension: "N", driveCurrent: "A", trainPosition: "m", trainSpeed: "m/s" };
+const withinRange = (v: number, max: number) => Number.isFinite(v) && Math.abs(v) <= max;
+
+function unitOf(c: Channel, u: Units): string {
+  if (c === "takeUpPosition" || c === "trainPosition") return u.length;
+  if (c === "chainTension") return u.force;
+  if (c === "trainSpeed") return u.speed;
+  return "A";
+}
+
 function factorFor(c: Channel, u: Units): number {
   if (c === "takeUpPosition" || c === "trainPosition") return FACTORS.length[u.length];
   if (c === "chainTension") return FACTORS.force[u.force];
@@ -85,6 +105,10 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
       const values = Object.fromEntries(channels.map((c) => [c, num(c)])) as Record<Channel, number | null | undefined>;
       if (t === undefined || t === null) return;
       const ts = t * tf;
+      if (!withinRange(ts, MAX_SI.time)) {
+        add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} ${units.time} is beyond ${MAX_SI.time} s once converted` });
+        return;
+      }
       if (ts <= lastT) add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} does not increase (previous ${lastT / tf})` });
       lastT = Math.max(lastT, ts);
       if (channels.some((c) => values[c] === undefined)) return;
@@ -93,6 +117,11 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
         const v = values[c];
         if (v === null || v === undefined) continue;
         const si = v * factorFor(c, units);
+        // A reading that overflows (or is absurd) once in SI units is an error, not Infinity in the database.
+        if (!withinRange(si, MAX_SI[c])) {
+          add({ path: `rows.${line}.${c}`, message: `line ${line}, column "${headers[index[c]!]}": ${v} ${unitOf(c, units)} is beyond ${MAX_SI[c]} ${SI_UNIT[c]} once converted to SI units` });
+          continue;
+        }
         if (c === "takeUpPosition") {
           // Kept as the drop from the first reading, positive down: the engine's convention.
           if (takeUp0 === null) takeUp0 = si;

@@ -45,7 +45,7 @@ export const recordingInputSchema = z.object({
   mapping: mappingSchema,
   units: unitsSchema.default({ time: "s", length: "m", force: "N", speed: "m/s", takeUpDirection: "down" }),
   /** Engagement (dog picks up the train) in recording time, s; detected from the train speed when left out. */
-  engagementTime: z.number().finite().min(0).optional(),
+  engagementTime: z.number({ error: "engagementTime must be a number of seconds" }).finite().min(0).max(1e11, { error: "engagementTime must be within the recording" }).optional(),
   dryRun: z.boolean().optional(),
 });
 export type RecordingInput = z.infer<typeof recordingInputSchema>;

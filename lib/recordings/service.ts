@@ -8,7 +8,7 @@ import { validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { getSequelize } from "@/lib/db/sequelize";
 import { badRequest, HttpError } from "@/lib/http/errors";
-import { storeRecordingFile } from "@/lib/logbook/uploads";
+import { discardUpload, storeRecordingFile } from "@/lib/logbook/uploads";
 import { updateLift } from "@/lib/lifts/service";
 import { findOwnRun, getRunResult } from "@/lib/runs/service";
 import { getModels, type Recording } from "@/models";
@@ -71,6 +71,13 @@ export async function createRecording(actor: Actor, input: unknown): Promise<{ r
     throw new HttpError(413, `The file is ${bytes} bytes; at most ${RECORDING_MAX_BYTES}.`, [{ path: "csv", message: `at most ${RECORDING_MAX_BYTES} bytes` }]);
   const report = parseRecordingCsv(body.csv, body.mapping, body.units);
   if (report.issues.length) throw badRequest(`The file has ${report.issues.length} problem(s); nothing was stored.`, report.issues);
+  const first = report.samples[0].t;
+  const last = report.samples[report.samples.length - 1].t;
+  if (body.engagementTime !== undefined && (body.engagementTime < first || body.engagementTime > last)) {
+    throw badRequest("The engagement time is outside the recording; nothing was stored.", [
+      { path: "engagementTime", message: `must be within the recording, ${first} s to ${last} s (got ${body.engagementTime} s)` },
+    ]);
+  }
   const engagementTime = body.engagementTime ?? detectEngagement(report.samples);
   if (body.dryRun)
     return { ok: true, headers: report.headers, rowCount: report.rowCount, channels: report.channels, engagementTime, preview: report.samples.slice(0, 20) };
@@ -78,7 +85,9 @@ export async function createRecording(actor: Actor, input: unknown): Promise<{ r
   if (!revisionId) throw new Error(`Lift ${lift.id} has no current revision.`);
   const upload = await storeRecordingFile(actor, lift.id, body.fileName ?? `${body.name}.csv`, Buffer.from(body.csv, "utf8"));
   const s = report.samples;
-  const rec = await getSequelize().transaction(async (transaction) => {
+  // The file is stored first (object storage is not in the transaction): if the rows are refused, it goes too.
+  const rec = await getSequelize()
+    .transaction(async (transaction) => {
     const r = await RecordingModel.create(
       {
         organisationId: actor.organisationId,
@@ -99,7 +108,11 @@ export async function createRecording(actor: Actor, input: unknown): Promise<{ r
       await RecordingSample.bulkCreate(s.slice(i, i + 2000).map((x, k) => ({ recordingId: r.id, idx: i + k, ...x })), { transaction });
     await recordAudit({ transaction, actor, entity: "recording", entityId: r.id, action: "create", after: { name: r.name, liftId: r.liftId, samples: s.length } });
     return r;
-  });
+  })
+    .catch(async (err: unknown) => {
+      await discardUpload(upload).catch((cleanup: unknown) => console.error("recording upload cleanup:", (cleanup as Error).message));
+      throw err;
+    });
   return { recording: view(rec) };
 }
 
