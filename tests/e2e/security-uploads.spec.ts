@@ -11,11 +11,8 @@ import { query } from "./support/db";
  * serve with safe headers) — from memory.
  */
 
-// A valid 1×1 PNG (signature, IHDR, IDAT, IEND).
-const PNG = Buffer.from(
-  "89504e470d0a1a0a0000000d4948445200000001000000010806000000" + "1f15c4890000000d49444154789c6360000002000100e221bc330000000049454e44ae426082",
-  "hex",
-);
+// A valid 1×1 PNG (signature, IHDR, IDAT that inflates to one row, IEND; every CRC right).
+const PNG = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==", "base64");
 
 async function uploadCount(): Promise<number> {
   const [r] = await query<{ n: number }>("SELECT COUNT(*) AS n FROM uploads");
@@ -32,6 +29,8 @@ test.describe("photo uploads", () => {
       ["HTML named .png", { name: "take-up.png", mimeType: "image/png", buffer: Buffer.from("<html><script>alert(1)</script></html>") }],
       ["SVG with script", { name: "x.svg", mimeType: "image/svg+xml", buffer: Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>') }],
       ["truncated PNG signature", { name: "a.png", mimeType: "image/png", buffer: PNG.subarray(0, 5) }],
+      ["bare PNG signature", { name: "b.png", mimeType: "image/png", buffer: PNG.subarray(0, 8) }],
+      ["PNG signature followed by HTML", { name: "c.png", mimeType: "image/png", buffer: Buffer.concat([PNG.subarray(0, 8), Buffer.from("<html><script>alert(1)</script></html>")]) }],
       ["empty file", { name: "empty.jpg", mimeType: "image/jpeg", buffer: Buffer.alloc(0) }],
       ["executable", { name: "tool.exe", mimeType: "application/octet-stream", buffer: Buffer.from("MZ\x90\x00") }],
     ];
