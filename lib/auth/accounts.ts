@@ -1,7 +1,7 @@
 import { getSequelize } from "@/lib/db/sequelize";
 import { badRequest, conflict, HttpError, notFound } from "@/lib/http/errors";
 import { sendMail } from "@/lib/mail/send";
-import { inviteMail, passwordChangedMail, resetMail } from "@/lib/mail/templates";
+import { inviteElsewhereMail, inviteMail, passwordChangedMail, resetMail } from "@/lib/mail/templates";
 import { getModels } from "@/models";
 import type { CurrentUser } from "./current-user";
 import { hashPassword, verifyPassword } from "./password";
@@ -64,18 +64,36 @@ export async function listUsers(admin: CurrentUser): Promise<UserSummary[]> {
 const mailFailed = (err: unknown) =>
   new HttpError(502, `Nothing was saved: ${(err as Error).message} Check SMTP_URL and try again.`);
 
+/** What the inviting administrator is told: the same for a new address and for another organisation's. */
+export interface InvitationSummary {
+  email: string;
+  name: string;
+  role: Role;
+  status: "invited";
+}
+
 /**
  * Creates an invited user (no password yet) and e-mails a one-time link. The mail is sent inside the
  * transaction, so when it fails nothing is stored and the admin can simply try again.
+ *
+ * An address that already belongs to another organisation gets the same answer as a new one (so an
+ * administrator cannot learn which addresses have accounts elsewhere); nothing is stored, and the address's
+ * owner gets a note that someone tried. An address already in the admin's own organisation answers 409:
+ * the admin sees those users anyway.
  */
-export async function inviteUser(admin: CurrentUser, input: InviteUserInput, baseUrl: string): Promise<UserSummary> {
+export async function inviteUser(admin: CurrentUser, input: InviteUserInput, baseUrl: string): Promise<InvitationSummary> {
   const { User, Organisation } = getModels();
-  if (await User.findOne({ where: { email: input.email } })) {
-    throw new HttpError(409, "This e-mail address already has a Tautline account.", [
-      { path: "email", message: "This e-mail address already has a Tautline account." },
-    ]);
-  }
+  const answer: InvitationSummary = { email: input.email, name: input.name, role: input.role, status: "invited" };
+  const existing = await User.findOne({ where: { email: input.email } });
+  if (existing && existing.organisationId === admin.organisationId) throw alreadyInvited();
   const org = await Organisation.findByPk(admin.organisationId);
+  const organisationName = org?.name ?? "your organisation";
+  if (existing) {
+    await sendMail(existing.email, inviteElsewhereMail({ inviterName: admin.name, organisationName })).catch((err) =>
+      console.error("invitation notice:", (err as Error).message),
+    );
+    return answer;
+  }
   const sequelize = getSequelize();
   try {
     return await sequelize.transaction(async (transaction) => {
@@ -89,7 +107,7 @@ export async function inviteUser(admin: CurrentUser, input: InviteUserInput, bas
         inviteMail({
           inviteeName: user.name,
           inviterName: admin.name,
-          organisationName: org?.name ?? "your organisation",
+          organisationName,
           role: input.role,
           link: `${baseUrl}/accept-invite?token=${token}`,
           validForMs: TOKEN_LIFETIME_MS.invite,
@@ -97,14 +115,19 @@ export async function inviteUser(admin: CurrentUser, input: InviteUserInput, bas
       ).catch((err) => {
         throw mailFailed(err);
       });
-      return summary(user);
+      return answer;
     });
   } catch (err) {
     // Two admins inviting the same address at once: the unique index decides.
-    if ((err as Error).name === "SequelizeUniqueConstraintError") throw conflict("This e-mail address already has a Tautline account.");
+    if ((err as Error).name === "SequelizeUniqueConstraintError") throw alreadyInvited();
     throw err;
   }
 }
+
+const alreadyInvited = () =>
+  new HttpError(409, "This person is already a user of your organisation.", [
+    { path: "email", message: "This person is already a user of your organisation." },
+  ]);
 
 /** Sends a fresh invite link to someone who has not accepted yet (older links stop working). */
 export async function resendInvite(admin: CurrentUser, userId: number, baseUrl: string): Promise<UserSummary> {

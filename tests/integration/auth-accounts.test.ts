@@ -93,6 +93,21 @@ describe("invitations", () => {
     expect(await getModels().User.count()).toBe(before);
   });
 
+  it("answer an address of another organisation exactly like a new one, store nothing, and tell the owner", async () => {
+    const elsewhere = demoAccount("engineer", "cardlevane").email;
+    const before = await getModels().User.count();
+    const fresh = await inviteUser(admin, { email: "brand.new@lanternfell.example", name: "Ada Brenn", role: "viewer" }, BASE);
+    const taken = await inviteUser(admin, { email: elsewhere, name: "Ada Brenn", role: "viewer" }, BASE);
+    expect(Object.keys(taken).sort()).toEqual(Object.keys(fresh).sort());
+    expect({ ...taken, email: "x" }).toEqual({ ...fresh, email: "x" });
+    expect(await getModels().User.count()).toBe(before + 1);
+    const owner = await getModels().User.findOne({ where: { email: elsewhere } });
+    expect(owner?.organisationId).not.toBe(admin.organisationId);
+    const notice = await waitFor(async () => (await world.messages()).find((m) => m.to.includes(elsewhere)));
+    expect(notice.subject).toContain("Lanternfell Park");
+    expect(notice.text).not.toContain("token=");
+  });
+
   it("store nothing when the e-mail cannot be sent", async () => {
     const smtp = process.env.SMTP_URL;
     process.env.SMTP_URL = "smtp://127.0.0.1:9"; // discard port: nothing listens
