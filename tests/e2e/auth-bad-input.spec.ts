@@ -86,7 +86,7 @@ test("the invite form shows field errors inline and a taken address from the ser
   await form.getByLabel("E-mail").fill("viewer@lanternfell.example");
   await form.getByLabel("Name").fill("Someone");
   await form.getByRole("button", { name: "Send invitation" }).click();
-  await expect(form.getByTestId("error-email")).toHaveText("This e-mail address already has a Tautline account.");
+  await expect(form.getByTestId("error-email")).toHaveText("This person is already a user of your organisation.");
 });
 
 test("settings: units persist, a wrong current password is named, a new password signs in", async ({ page }) => {
