@@ -1,4 +1,5 @@
 /** The run's series as plot panels in the user's units, and their CSV export (pure). */
+import { toCsv } from "@/lib/csv/write";
 import type { Series } from "@/sim";
 import { toDisplay, unitOf, type Quantity, type UnitSystem } from "@/lib/client/units";
 
@@ -112,18 +113,16 @@ export function seriesCsv(series: Series, chainSpeed: number[], units: UnitSyste
         },
       });
     }
-  const esc = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
-  const lines = [cols.map((c) => esc(c.head)).join(",")];
-  for (let i = 0; i < series.t.length; i++)
-    lines.push(
-      cols
-        .map((c) => {
-          const v = c.values(i);
-          return v === null ? "" : Number(v.toPrecision(7));
-        })
-        .join(","),
-    );
-  return lines.join("\n") + "\n";
+  const rows = series.t.map((_, i) =>
+    cols.map((c) => {
+      const v = c.values(i);
+      return v === null ? null : Number(v.toPrecision(7));
+    }),
+  );
+  return toCsv(
+    cols.map((c) => c.head),
+    rows,
+  );
 }
 
 /** Index of the sample nearest to t (series on an even grid, searched anyway). */

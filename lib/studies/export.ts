@@ -2,6 +2,7 @@
  * A study's case table as CSV or XLSX (exceljs), in the reader's units, with the window and the caution.
  */
 import ExcelJS from "exceljs";
+import { toCsv } from "@/lib/csv/write";
 import { display, type Quantity, type UnitSystem } from "@/sim/units";
 import { PARAMETER_LABELS, type StudyParameterKey } from "./schema";
 import type { StudyView } from "./service";
@@ -61,20 +62,15 @@ export function studyColumns(study: StudyView, units: UnitSystem): Column[] {
   ];
 }
 
-function csvCell(v: string | number | null): string {
-  if (v === null) return "";
-  const s = String(v);
-  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
 export const EXPORT_CAUTION =
   "Results support, and never replace, review by a qualified engineer; the governing standards, the ride's manufacturer data and licensed practice govern.";
 
 export function studyCsv(study: StudyView, units: UnitSystem): string {
   const cols = studyColumns(study, units);
-  const lines = [cols.map((c) => csvCell(c.header)).join(",")];
-  for (const c of study.cases ?? []) lines.push(cols.map((col) => csvCell(col.get(c))).join(","));
-  return lines.join("\r\n") + "\r\n";
+  return toCsv(
+    cols.map((c) => c.header),
+    (study.cases ?? []).map((c) => cols.map((col) => col.get(c))),
+  );
 }
 
 export async function studyXlsx(study: StudyView, units: UnitSystem): Promise<Buffer> {
