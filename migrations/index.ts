@@ -18,6 +18,7 @@ import * as m0040 from "./0040_logbook";
 import * as m0041 from "./0041_recordings";
 import * as m0042 from "./0042_training";
 import * as m0043 from "./0043_calibrations";
+import * as m0044 from "./0044_logbook_idempotency";
 
 export interface Migration {
   name: string;
@@ -47,4 +48,5 @@ export const migrations: Migration[] = [
   { name: "0041_recordings", ...m0041 },
   { name: "0042_training", ...m0042 },
   { name: "0043_calibrations", ...m0043 },
+  { name: "0044_logbook_idempotency", ...m0044 },
 ];

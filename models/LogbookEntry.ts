@@ -16,6 +16,8 @@ export class LogbookEntry extends Model<InferAttributes<LogbookEntry>, InferCrea
   declare elongationPercent: number | null;
   declare takeUpPosition: number | null;
   declare notes: string | null;
+  /** The client's Idempotency-Key for the write that made this row (lib/http/idempotency.ts). */
+  declare idempotencyKey: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -34,6 +36,7 @@ export function initLogbookEntry(sequelize: Sequelize): typeof LogbookEntry {
       elongationPercent: { type: DataTypes.DOUBLE, allowNull: true },
       takeUpPosition: { type: DataTypes.DOUBLE, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: true },
+      idempotencyKey: { type: DataTypes.STRING(100), allowNull: true },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -42,7 +42,7 @@ export async function seedDemoLogbook(sequelize: Sequelize): Promise<void> {
   if (!rev) return;
   const pitch = (rev.chain as { pitch: number }).pitch;
   const start = Date.UTC(2025, 10, 3, 7, 30);
-  const base = { organisationId: org.id, liftId: lift.id, liftRevisionId: rev.id, userId: operator?.id ?? null, notes: null };
+  const base = { organisationId: org.id, liftId: lift.id, liftRevisionId: rev.id, userId: operator?.id ?? null, notes: null, idempotencyKey: null };
   const rows: Omit<InferCreationAttributes<LogbookEntry>, "id" | "createdAt" | "updatedAt">[] = [];
   for (let k = 0; k < 12; k++) {
     const at = new Date(start + k * 30 * DAY);

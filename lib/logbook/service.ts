@@ -6,6 +6,7 @@
 import { Op, type WhereOptions } from "sequelize";
 import { assertCan, type Actor } from "@/lib/http/actor";
 import { assertVersion } from "@/lib/http/concurrency";
+import { conflict } from "@/lib/http/errors";
 import { validate, throwIfIssues } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { getSequelize } from "@/lib/db/sequelize";
@@ -150,13 +151,29 @@ export async function getTrend(actor: Actor, liftId: number): Promise<Trend> {
   return buildTrend(await loadLiftContext(actor, liftId), actor.organisationId);
 }
 
-export async function createEntry(actor: Actor, input: unknown): Promise<{ entry: EntryView; alerts: AlertView[]; computed: Record<string, unknown> }> {
+type CreatedEntry = { entry: EntryView; alerts: AlertView[]; computed: Record<string, unknown>; replayed?: true };
+
+/** A retried write (same Idempotency-Key) answered from the row the first one committed. */
+async function replayOf(actor: Actor, key: string | undefined, liftId: number, kind: string): Promise<CreatedEntry | null> {
+  if (!key) return null;
+  const row = await getModels().LogbookEntry.findOne({ where: { userId: actor.id, idempotencyKey: key } });
+  if (!row) return null;
+  if (row.liftId !== liftId || row.kind !== kind)
+    throw conflict("This Idempotency-Key was already used for a different logbook entry; send a new key for a new entry.");
+  const [view] = await entryViews([row]);
+  return { entry: view, alerts: [], computed: row.data, replayed: true };
+}
+
+export async function createEntry(actor: Actor, input: unknown, options: { idempotencyKey?: string } = {}): Promise<CreatedEntry> {
   assertCan(actor, "logbook:write");
   const liftId = (input as { liftId?: unknown } | null)?.liftId;
   // Another organisation's lift is 404 whatever else the body says.
   const ctx = typeof liftId === "number" && Number.isInteger(liftId) && liftId > 0 ? await loadLiftContext(actor, liftId) : null;
   const body = validate(entryInputSchema, input);
   if (!ctx) throw new Error("unreachable: liftId validated");
+  const key = options.idempotencyKey;
+  const replay = await replayOf(actor, key, ctx.lift.id, body.kind);
+  if (replay) return replay;
   const { LogbookEntry, Upload } = getModels();
   const measuredAt = body.measuredAt ?? new Date();
   if (measuredAt.getTime() > Date.now() + 5 * 60_000) throwIfIssues([{ path: "measuredAt", message: "must not be in the future" }]);
@@ -197,27 +214,36 @@ export async function createEntry(actor: Actor, input: unknown): Promise<{ entry
       break;
     }
   }
-  const entry = await getSequelize().transaction(async (transaction) => {
-    const row = await LogbookEntry.create(
-      {
-        organisationId: actor.organisationId,
-        liftId: ctx.lift.id,
-        liftRevisionId: ctx.revision.id,
-        kind: body.kind,
-        measuredAt,
-        userId: actor.id,
-        data,
-        elongationPercent: elong,
-        takeUpPosition: pos,
-        notes: body.notes ?? null,
-      },
-      { transaction },
-    );
-    if (body.kind === "inspection" && body.photoIds?.length)
-      await Upload.update({ entryId: row.id, liftId: ctx.lift.id }, { where: { id: body.photoIds, organisationId: actor.organisationId }, transaction });
-    await recordAudit({ transaction, actor, entity: "logbook-entry", entityId: row.id, action: "create", after: { kind: row.kind, liftId: row.liftId, data } });
-    return row;
-  });
+  let entry: LogbookEntry;
+  try {
+    entry = await getSequelize().transaction(async (transaction) => {
+      const row = await LogbookEntry.create(
+        {
+          idempotencyKey: key ?? null,
+          organisationId: actor.organisationId,
+          liftId: ctx.lift.id,
+          liftRevisionId: ctx.revision.id,
+          kind: body.kind,
+          measuredAt,
+          userId: actor.id,
+          data,
+          elongationPercent: elong,
+          takeUpPosition: pos,
+          notes: body.notes ?? null,
+        },
+        { transaction },
+      );
+      if (body.kind === "inspection" && body.photoIds?.length)
+        await Upload.update({ entryId: row.id, liftId: ctx.lift.id }, { where: { id: body.photoIds, organisationId: actor.organisationId }, transaction });
+      await recordAudit({ transaction, actor, entity: "logbook-entry", entityId: row.id, action: "create", after: { kind: row.kind, liftId: row.liftId, data } });
+      return row;
+    });
+  } catch (err) {
+    // The same key sent twice at once: the unique index lets one through; the other answers from it.
+    const raced = (err as Error).name === "SequelizeUniqueConstraintError" ? await replayOf(actor, key, ctx.lift.id, body.kind) : null;
+    if (raced) return raced;
+    throw err;
+  }
   if (body.kind === "links-removed") await clearAlerts(ctx.lift.id, ["take-up-limit", "take-up-warning", "take-up-forecast"]);
   const trend = await buildTrend(ctx, actor.organisationId);
   const candidates = evaluateAlerts({
