@@ -7,7 +7,8 @@ import { DataTypes, type QueryInterface } from "sequelize";
  */
 export async function up({ context: q }: { context: QueryInterface }): Promise<void> {
   await q.addColumn("logbook_entries", "idempotency_key", { type: DataTypes.STRING(100), allowNull: true });
-  await q.addIndex("logbook_entries", ["user_id", "idempotency_key"], { unique: true, name: "logbook_entries_idempotency" });
+  // Key first, so this index never stands in for the one behind the user_id foreign key (down can drop it).
+  await q.addIndex("logbook_entries", ["idempotency_key", "user_id"], { unique: true, name: "logbook_entries_idempotency" });
 }
 
 export async function down({ context: q }: { context: QueryInterface }): Promise<void> {
