@@ -19,6 +19,7 @@ import * as m0041 from "./0041_recordings";
 import * as m0042 from "./0042_training";
 import * as m0043 from "./0043_calibrations";
 import * as m0044 from "./0044_logbook_idempotency";
+import * as m0045 from "./0045_seed_steps";
 
 export interface Migration {
   name: string;
@@ -49,4 +50,5 @@ export const migrations: Migration[] = [
   { name: "0042_training", ...m0042 },
   { name: "0043_calibrations", ...m0043 },
   { name: "0044_logbook_idempotency", ...m0044 },
+  { name: "0045_seed_steps", ...m0045 },
 ];

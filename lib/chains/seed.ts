@@ -23,7 +23,8 @@ export async function seedStandardChains(sequelize: Sequelize): Promise<void> {
   });
 }
 
-export const standardChainsSeed: SeedStep = { name: "standard chain catalogue", run: seedStandardChains };
+// Reference data no one edits (shared rows): kept current on every start.
+export const standardChainsSeed: SeedStep = { name: "standard chain catalogue", run: seedStandardChains, everyStart: true };
 
 /**
  * The demo park's own catalogue entry: the kind of chain an operator types in from its manufacturer's

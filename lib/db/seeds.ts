@@ -7,10 +7,15 @@ import { demoLogbookSeed } from "@/lib/logbook/seed";
 import { demoTrainingSeed } from "@/lib/training/seed";
 import { demoStudySeed } from "@/lib/studies/seed";
 
-/** One idempotent seed step: running it twice leaves the same rows as running it once. */
+/**
+ * One idempotent seed step: running it twice leaves the same rows as running it once. A step runs once per
+ * database (recorded in seed_steps), so demo data people edited is never written again; `everyStart` steps
+ * (reference data, start-up repairs) run on every start.
+ */
 export interface SeedStep {
   name: string;
   run: (sequelize: Sequelize) => Promise<void>;
+  everyStart?: boolean;
 }
 
 // Demo data, in dependency order. To add a step: import it and append it here.

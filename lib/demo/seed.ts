@@ -155,6 +155,7 @@ export const demoRunsSeed: SeedStep = { name: "demo park: finished runs", run: s
 /** Not demo data, but it belongs before every start: runs of a process that is gone are marked failed. */
 export const interruptedRunsSeed: SeedStep = {
   name: "runs interrupted by a restart",
+  everyStart: true,
   run: async (sequelize) => {
     await recoverInterruptedRuns(initModels(sequelize));
   },

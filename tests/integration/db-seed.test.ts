@@ -5,6 +5,8 @@ import { MIGRATIONS_TABLE, migrateUp } from "@/lib/db/migrate";
 import { runSeeds } from "@/lib/db/seed";
 import { seedSteps } from "@/lib/db/seeds";
 import { createScratchDatabase } from "./db-scratch";
+import { DEMO_REVIEW_COMMENT } from "@/lib/comments/seed";
+import { initModels } from "@/models";
 
 let sequelize: Sequelize;
 let drop: () => Promise<void>;
@@ -43,6 +45,22 @@ describe("seed", () => {
     // The steps must write through the instance they are given (here: the scratch database).
     const total = Object.values(once).reduce((a, b) => a + b, 0);
     if (seedSteps.length > 0) expect(total).toBeGreaterThan(0);
+  });
+
+  it("does not write demo data again over edits when the server restarts", async () => {
+    await runSeeds(sequelize);
+    const { Comment, Lift } = initModels(sequelize);
+    const comment = await Comment.findOne({ where: { body: DEMO_REVIEW_COMMENT } });
+    expect(comment).not.toBeNull();
+    await comment!.update({ body: "Reworded by the reviewer after the first look." });
+    const lift = await Lift.findOne({ order: [["id", "ASC"]] });
+    const liftName = lift!.name;
+    await lift!.update({ name: `${liftName} (renamed)` });
+    const before = await rowCounts();
+    await runSeeds(sequelize); // a restart
+    expect(await rowCounts()).toEqual(before);
+    expect(await Comment.count({ where: { body: DEMO_REVIEW_COMMENT } })).toBe(0);
+    expect(await Lift.count({ where: { name: liftName } })).toBe(0);
   });
 
   it("names the step that failed", async () => {
