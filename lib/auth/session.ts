@@ -104,16 +104,3 @@ export async function requirePermission(action: Action): Promise<CurrentUser> {
 export function scopeToOrg(user: Pick<CurrentUser, "organisationId">): { organisationId: number } {
   return { organisationId: user.organisationId };
 }
-
-/**
- * Guards a row loaded by id: missing rows and rows of another organisation both answer 404,
- * so nobody learns that another organisation's row exists.
- */
-export function ownRowOr404<T extends { organisationId: number }>(
-  row: T | null | undefined,
-  user: Pick<CurrentUser, "organisationId">,
-  what = "Not found.",
-): T {
-  if (!row || row.organisationId !== user.organisationId) throw notFound(what);
-  return row;
-}

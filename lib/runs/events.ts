@@ -1,10 +1,9 @@
 import { getModels } from "@/models";
-import type { CurrentUser } from "@/lib/auth/session";
+import type { Actor } from "@/lib/http/actor";
 import { findOwnRun } from "./service";
 import { isFinished } from "./status";
 import { toRunView } from "./serialize";
 
-type Actor = Pick<CurrentUser, "id" | "organisationId">;
 
 const POLL_MS = 500;
 const KEEPALIVE_MS = 15_000;

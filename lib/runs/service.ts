@@ -1,7 +1,7 @@
 import { Op, type WhereOptions } from "sequelize";
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
-import { ownRowOr404, type CurrentUser } from "@/lib/auth/session";
+import { ownOr404, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { engineScenarioInput } from "@/lib/scenarios/resolve";
 import { badRequest, conflict, HttpError, notFound, unavailable } from "@/lib/http/errors";
@@ -19,10 +19,7 @@ import { applyOverrides, overridableValues } from "./overrides";
 import { ACTIVE_RUN_STATUSES, isFinished } from "./status";
 import { json, toRunView, type OverrideValues, type RunView } from "./serialize";
 
-type Actor = Pick<CurrentUser, "id" | "organisationId">;
 
-const RUN_NOT_FOUND = "No such run.";
-const SCENARIO_NOT_FOUND = "No such scenario.";
 
 /** The scenario, its pinned lift revision and train as one validated engine scenario, with overrides applied. */
 export async function resolveRunInputs(
@@ -37,7 +34,7 @@ export async function resolveRunInputs(
   overridesFrom: OverrideValues | null;
 }> {
   const { Scenario, LiftRevision, Train } = getModels();
-  const scenario = ownRowOr404(await Scenario.findByPk(scenarioId), user, SCENARIO_NOT_FOUND);
+  const scenario = ownOr404(await Scenario.findByPk(scenarioId), user, "Scenario");
   if (scenario.archivedAt) throw conflict("This scenario is archived; restore it before starting a run.");
   const [revision, train] = await Promise.all([
     LiftRevision.findByPk(scenario.liftRevisionId),
@@ -132,14 +129,14 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
 /** 404 unless the scenario exists in the user's organisation (checked before the body is read). */
 export async function assertOwnScenario(user: Actor, scenarioId: number): Promise<void> {
   const { Scenario } = getModels();
-  ownRowOr404(await Scenario.findByPk(scenarioId, { attributes: ["id", "organisationId"] }), user, SCENARIO_NOT_FOUND);
+  ownOr404(await Scenario.findByPk(scenarioId, { attributes: ["id", "organisationId"] }), user, "Scenario");
 }
 
 /** Loads a run of the user's organisation (404 for another organisation's). */
 export async function findOwnRun(user: Actor, runId: number, opts: { withResult?: boolean } = {}): Promise<Run> {
   const { Run } = getModels();
   const model = opts.withResult ? Run.scope("withResult") : Run;
-  return ownRowOr404(await model.findByPk(runId), user, RUN_NOT_FOUND);
+  return ownOr404(await model.findByPk(runId), user, "Run");
 }
 
 export async function getRun(user: Actor, runId: number): Promise<RunView> {

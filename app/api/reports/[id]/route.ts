@@ -11,5 +11,5 @@ export const dynamic = "force-dynamic";
 /** The report with its review trail (submit, return with comments, approve). */
 export const GET = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("report:read");
-  return NextResponse.json({ report: await getReport(user, parseId((await ctx.params).id, "No such report.")) });
+  return NextResponse.json({ report: await getReport(user, parseId((await ctx.params).id, "Report not found.")) });
 });

@@ -12,7 +12,7 @@ export const dynamic = "force-dynamic";
 /** Status, progress, summary and the stored inputs of one run (poll this, or follow /events). */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const id = parseId((await ctx.params).id, "No such run.");
+  const id = parseId((await ctx.params).id, "Run not found.");
   return cachedRead(req, user, () => getRun(user, id));
 });
 
@@ -20,6 +20,6 @@ export const GET = route<RouteContext>(async (req, ctx) => {
 export const DELETE = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:delete");
   const version = new URL(req.url).searchParams.get("version");
-  await deleteRun(user, parseId((await ctx.params).id, "No such run."), version);
+  await deleteRun(user, parseId((await ctx.params).id, "Run not found."), version);
   return new NextResponse(null, { status: 204 });
 });

@@ -13,7 +13,7 @@ export const dynamic = "force-dynamic";
 /** The study with progress, time left, every case and the operating window (?units=si|us for the sentence). */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("study:read");
-  const id = parseId((await ctx.params).id, "No such study.");
+  const id = parseId((await ctx.params).id, "Study not found.");
   const { units } = parseQuery(req, unitsQuerySchema);
   return NextResponse.json({ study: await getStudy(user, id, { units }) });
 });

@@ -13,6 +13,6 @@ export const dynamic = "force-dynamic";
 /** A reviewer who is not the author approves: stamps, stores the PDF, freezes the scenario, e-mails the author. Body { comment? } */
 export const POST = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("report:review");
-  const id = parseId((await ctx.params).id, "No such report.");
+  const id = parseId((await ctx.params).id, "Report not found.");
   return NextResponse.json({ report: await approveReport(user, id, await parseJsonBody(req, z.unknown())) });
 });

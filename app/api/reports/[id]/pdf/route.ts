@@ -11,7 +11,7 @@ export const dynamic = "force-dynamic";
 /** The PDF: the stamped file of an approved report, else drawn from the current content. */
 export const GET = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("report:read");
-  const { pdf, filename } = await reportPdf(user, parseId((await ctx.params).id, "No such report."));
+  const { pdf, filename } = await reportPdf(user, parseId((await ctx.params).id, "Report not found."));
   return new NextResponse(new Uint8Array(pdf), {
     headers: { "Content-Type": "application/pdf", "Content-Disposition": `inline; filename="${filename}"` },
   });

@@ -11,6 +11,6 @@ export const dynamic = "force-dynamic";
 /** The author submits a draft or returned report for review. */
 export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("report:write");
-  const id = parseId((await ctx.params).id, "No such report.");
+  const id = parseId((await ctx.params).id, "Report not found.");
   return NextResponse.json({ report: await submitReport(user, id) });
 });

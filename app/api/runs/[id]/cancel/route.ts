@@ -11,5 +11,5 @@ export const dynamic = "force-dynamic";
 /** Cancels a queued or running run (409 when it has already finished). */
 export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("run:cancel");
-  return NextResponse.json(await cancelRun(user, parseId((await ctx.params).id, "No such run.")));
+  return NextResponse.json(await cancelRun(user, parseId((await ctx.params).id, "Run not found.")));
 });

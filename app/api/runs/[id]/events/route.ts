@@ -10,7 +10,7 @@ export const dynamic = "force-dynamic";
 /** Server-sent events: `progress` while the run is queued or running, then one `end` with the run. */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const stream = await runEventStream(user, parseId((await ctx.params).id, "No such run."), req.signal);
+  const stream = await runEventStream(user, parseId((await ctx.params).id, "Run not found."), req.signal);
   return new Response(stream, {
     headers: {
       "Content-Type": "text/event-stream; charset=utf-8",

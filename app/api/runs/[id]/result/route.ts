@@ -16,7 +16,7 @@ export const dynamic = "force-dynamic";
  */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const runId = parseId((await ctx.params).id, "No such run.");
+  const runId = parseId((await ctx.params).id, "Run not found.");
   const { format } = parseQuery(req, resultQuerySchema);
   const wantsBinary = format === "binary" || (!format && (req.headers.get("accept") ?? "").includes("application/octet-stream"));
   if (wantsBinary) {

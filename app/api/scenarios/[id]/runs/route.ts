@@ -15,7 +15,7 @@ export const dynamic = "force-dynamic";
 /** Runs of one scenario, newest first: ?page=&pageSize=&status=&sort=newest|oldest */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
-  const scenarioId = parseId((await ctx.params).id, "No such scenario.");
+  const scenarioId = parseId((await ctx.params).id, "Scenario not found.");
   const query = parseQuery(req, listRunsQuerySchema);
   return cachedRead(req, user, () => listRuns(user, scenarioId, query));
 });
@@ -26,7 +26,7 @@ export const GET = route<RouteContext>(async (req, ctx) => {
  */
 export const POST = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:start");
-  const scenarioId = parseId((await ctx.params).id, "No such scenario.");
+  const scenarioId = parseId((await ctx.params).id, "Scenario not found.");
   await assertOwnScenario(user, scenarioId);
   const body = await parseStartRunBody(req);
   const run = await startRun(user, scenarioId, body);

@@ -11,5 +11,5 @@ export const dynamic = "force-dynamic";
 /** Cancels the study's waiting and running cases; finished cases are kept. 409 when already finished. */
 export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("study:run");
-  return NextResponse.json({ study: await cancelStudy(user, parseId((await ctx.params).id, "No such study.")) });
+  return NextResponse.json({ study: await cancelStudy(user, parseId((await ctx.params).id, "Study not found.")) });
 });

@@ -14,7 +14,7 @@ export const dynamic = "force-dynamic";
 /** The case table as a download: ?format=csv|xlsx&units=si|us */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("study:read");
-  const id = parseId((await ctx.params).id, "No such study.");
+  const id = parseId((await ctx.params).id, "Study not found.");
   const q = parseQuery(req, exportQuerySchema);
   const units = q.units ?? user.units;
   const format = q.format;

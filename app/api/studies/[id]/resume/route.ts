@@ -11,5 +11,5 @@ export const dynamic = "force-dynamic";
 /** Runs the unfinished cases of a cancelled or interrupted study again; finished cases are kept. */
 export const POST = route<RouteContext>(async (_req, ctx) => {
   const user = await requirePermission("study:run");
-  return NextResponse.json({ study: await resumeStudy(user, parseId((await ctx.params).id, "No such study.")) });
+  return NextResponse.json({ study: await resumeStudy(user, parseId((await ctx.params).id, "Study not found.")) });
 });
