@@ -1,5 +1,5 @@
 import { cookies } from "next/headers";
-import { forbidden, notFound, unauthorized } from "@/lib/http/errors";
+import { forbidden, unauthorized } from "@/lib/http/errors";
 import { getModels } from "@/models";
 import { readCacheMaxAgeMs } from "@/lib/http/read-cache";
 import { cachesUsable, currentTick, noteDatabaseAnswered, stampOf, writtenSince } from "@/lib/db/change-tracker";
