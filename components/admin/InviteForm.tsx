@@ -9,7 +9,8 @@ import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input, Select } from "@/components/ui/Field";
-import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+import { validate, type FieldErrors } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 
 const EMPTY = { email: "", name: "", role: "viewer" as Role };
 
@@ -27,7 +28,7 @@ export function InviteForm({ showMailbox }: { showMailbox: boolean }) {
     if (checked.errors) return setErrors(checked.errors);
     setErrors({});
     setBusy(true);
-    const res = await sendJson<{ user: { email: string } }>("/api/admin/users", "POST", checked.data);
+    const res = await submitJson<{ user: { email: string } }>("/api/admin/users", "POST", checked.data);
     setBusy(false);
     if (!res.ok) {
       setErrors(res.errors);

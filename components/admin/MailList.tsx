@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import type { FakeMessage } from "@/lib/mail/mailbox";
 import { Button } from "@/components/ui/Button";
-import { sendJson } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 import { cx } from "@/components/ui/cx";
 
 /** Turns URLs in plain text into links, leaving everything else as text (no HTML from the message runs). */
@@ -33,7 +33,7 @@ export function MailList({ messages }: { messages: FakeMessage[] }) {
 
   async function clear() {
     setBusy(true);
-    await sendJson("/api/admin/mail", "DELETE");
+    await submitJson("/api/admin/mail", "DELETE");
     setBusy(false);
     router.refresh();
   }

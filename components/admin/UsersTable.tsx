@@ -8,7 +8,7 @@ import { Alert } from "@/components/ui/Alert";
 import { Badge, type Tone } from "@/components/ui/Badge";
 import { Button } from "@/components/ui/Button";
 import { Select } from "@/components/ui/Field";
-import { sendJson } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 import { Table, Td, Th, THead, Tr } from "@/components/ui/Table";
 import { useHydrated } from "@/components/ui/ClientForm";
 
@@ -24,10 +24,10 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
   const [busyId, setBusyId] = useState<number | null>(null);
   const [message, setMessage] = useState<{ tone: "success" | "error"; text: string } | null>(null);
 
-  async function act(id: number, url: string, method: string, body: unknown, done: string) {
+  async function act(id: number, url: string, method: "POST" | "PATCH" | "DELETE", body: unknown, done: string) {
     setBusyId(id);
     setMessage(null);
-    const res = await sendJson(url, method, body);
+    const res = await submitJson(url, method, body);
     setBusyId(null);
     if (!res.ok) return setMessage({ tone: "error", text: Object.values(res.errors)[0] ?? res.error ?? "Not changed." });
     setMessage({ tone: "success", text: done });

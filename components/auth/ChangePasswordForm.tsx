@@ -7,7 +7,8 @@ import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
-import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+import { validate, type FieldErrors } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 
 export function ChangePasswordForm() {
   const [values, setValues] = useState({ currentPassword: "", newPassword: "", confirm: "" });
@@ -24,7 +25,7 @@ export function ChangePasswordForm() {
     if (Object.keys(errs).length || !checked.data) return setErrors(errs);
     setErrors({});
     setBusy(true);
-    const res = await sendJson("/api/me/password", "POST", checked.data);
+    const res = await submitJson("/api/me/password", "POST", checked.data);
     if (!res.ok) {
       setBusy(false);
       setErrors(res.errors);

@@ -6,7 +6,8 @@ import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
-import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+import { validate, type FieldErrors } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 
 export function ForgotPasswordForm() {
   const [email, setEmail] = useState("");
@@ -22,7 +23,7 @@ export function ForgotPasswordForm() {
     if (checked.errors) return setErrors(checked.errors);
     setErrors({});
     setBusy(true);
-    const res = await sendJson<{ message: string }>("/api/account/forgot-password", "POST", checked.data);
+    const res = await submitJson<{ message: string }>("/api/account/forgot-password", "POST", checked.data);
     setBusy(false);
     if (!res.ok) {
       setErrors(res.errors);

@@ -7,7 +7,8 @@ import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
-import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+import { validate, type FieldErrors } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 
 /**
  * Chooses a password from a one-time link: the invitation form (with a name) or the reset form.
@@ -35,7 +36,7 @@ export function NewPasswordForm({ mode, token, email, name = "" }: { mode: "invi
     setErrors({});
     setBusy(true);
     const url = mode === "invite" ? "/api/account/accept-invite" : "/api/account/reset-password";
-    const res = await sendJson(url, "POST", checked.data);
+    const res = await submitJson(url, "POST", checked.data);
     if (!res.ok) {
       setBusy(false);
       setErrors(res.errors);

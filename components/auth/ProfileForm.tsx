@@ -7,7 +7,8 @@ import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
-import { sendJson, validate, type FieldErrors } from "@/components/ui/form-errors";
+import { validate, type FieldErrors } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 import { cx } from "@/components/ui/cx";
 
 export function ProfileForm({ name, units }: { name: string; units: "si" | "us" }) {
@@ -24,7 +25,7 @@ export function ProfileForm({ name, units }: { name: string; units: "si" | "us" 
     if (checked.errors) return setErrors(checked.errors);
     setErrors({});
     setBusy(true);
-    const res = await sendJson("/api/me", "PATCH", checked.data);
+    const res = await submitJson("/api/me", "PATCH", checked.data);
     setBusy(false);
     if (!res.ok) {
       setErrors(res.errors);

@@ -13,7 +13,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Input, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
-import { ApiError, getJson, issueMap, queryString, sendJson } from "@/lib/client/fetch";
+import { ApiError, getJson, issueMap, newIdempotencyKey, queryString, sendJson } from "@/lib/client/fetch";
 import type { UnitSystem } from "@/lib/client/units";
 import { TrendChart } from "./TrendChart";
 import { KIND_LABELS, type AlertJson, type EntryJson, type TrendJson } from "./types";
@@ -263,6 +263,8 @@ function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; trend: Tre
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const [photo, setPhoto] = useState<File | null>(null);
+  // One key per entry being written: Save pressed again after a lost answer cannot store it twice.
+  const [writeKey, setWriteKey] = useState(newIdempotencyKey);
   const num = (k: string) => (v[k] === undefined || v[k] === "" ? undefined : Number(v[k]));
   const set = (k: string) => (e: { target: { value: string } }) => setV({ ...v, [k]: e.target.value });
 
@@ -288,7 +290,8 @@ function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; trend: Tre
           body.photoIds = [j.id];
         }
       }
-      const r = await sendJson<{ alerts: AlertJson[]; computed: Record<string, number | null> }>("/api/logbook/entries", "POST", body);
+      const r = await sendJson<{ alerts: AlertJson[]; computed: Record<string, number | null> }>("/api/logbook/entries", "POST", body, { idempotencyKey: writeKey });
+      setWriteKey(newIdempotencyKey());
       if (kind === "links-removed") setMessage(`Saved. The take-up should rise ${((r.computed.rise ?? 0) * len.scale).toFixed(len.digits)} ${len.unit}.`);
       else setMessage("Saved.");
       setV({ pitches: "20" });

@@ -6,18 +6,10 @@ import type { ReportView } from "@/lib/reports/service";
 import { Badge } from "@/components/ui/Badge";
 import { Button, buttonClass } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-
-const fetcher = (url: string) => fetch(url).then((r) => r.json());
+import { getJson, submitJson } from "@/lib/client/fetch";
 
 async function post(url: string, body?: unknown): Promise<string | null> {
-  const r = await fetch(url, {
-    method: "POST",
-    headers: body === undefined ? {} : { "Content-Type": "application/json" },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  });
-  if (r.ok) return null;
-  const j = await r.json().catch(() => ({}));
-  return j.error ?? `HTTP ${r.status}`;
+  return (await submitJson(url, "POST", body)).error;
 }
 
 /** Design-check reports of a scenario: create from a finished run, open the PDF, submit, approve or return. */
@@ -38,7 +30,7 @@ export function ReportPanel({
   userId: number;
   units: UnitSystem;
 }) {
-  const { data, mutate } = useSWR<{ items: ReportView[] }>(`/api/reports?scenarioId=${scenarioId}`, fetcher);
+  const { data, mutate } = useSWR<{ items: ReportView[] }>(`/api/reports?scenarioId=${scenarioId}`, getJson);
   const [runId, setRunId] = useState<number | null>(runIds[0]?.id ?? null);
   const [comment, setComment] = useState("");
   const [error, setError] = useState<string | null>(null);

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { signOut } from "next-auth/react";
 import { useEffect, useRef, useState } from "react";
-import { sendJson } from "@/components/ui/form-errors";
+import { submitJson } from "@/lib/client/fetch";
 import { cx } from "@/components/ui/cx";
 import { useHydrated } from "@/components/ui/ClientForm";
 
@@ -46,7 +46,7 @@ export function UserMenu({
     if (next === units) return;
     setSaving(true);
     setError(null);
-    const res = await sendJson("/api/me", "PATCH", { units: next });
+    const res = await submitJson("/api/me", "PATCH", { units: next });
     setSaving(false);
     if (!res.ok) setError(res.error);
     else router.refresh();

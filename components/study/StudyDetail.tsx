@@ -11,12 +11,7 @@ import { SAFETY_CAUTION } from "@/components/ui/SafetyNote";
 import { ReportPanel } from "@/components/report/ReportPanel";
 import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
 import { StudyLinePlots, StudyMap } from "./StudyCharts";
-
-const fetcher = async (url: string) => {
-  const r = await fetch(url);
-  if (!r.ok) throw new Error((await r.json().catch(() => ({}))).error ?? `HTTP ${r.status}`);
-  return r.json();
-};
+import { getJson } from "@/lib/client/fetch";
 
 function duration(s: number | null): string {
   if (s === null) return "estimating…";
@@ -41,7 +36,7 @@ export function StudyDetail({
   canReadReports: boolean;
   userId: number;
 }) {
-  const { data, error, mutate } = useSWR<{ study: StudyView }>(`/api/studies/${id}?units=${units}`, fetcher, {
+  const { data, error, mutate } = useSWR<{ study: StudyView }>(`/api/studies/${id}?units=${units}`, getJson, {
     refreshInterval: (d) => (d && (d.study.status === "running" || d.study.status === "queued") ? 1000 : 0),
   });
   const [sort, setSort] = useState<{ key: string; dir: 1 | -1 }>({ key: "idx", dir: 1 });

@@ -9,8 +9,7 @@ import type { StudyView } from "@/lib/studies/service";
 import { Badge } from "@/components/ui/Badge";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-
-const fetcher = (url: string) => fetch(url).then((r) => r.json());
+import { getJson } from "@/lib/client/fetch";
 
 interface ParamDraft {
   key: StudyParameterKey | "";
@@ -73,8 +72,8 @@ function ParamFields({ n, p, set, units }: { n: number; p: ParamDraft; set: (p: 
 
 export function StudyList({ units, canRun }: { units: UnitSystem; canRun: boolean }) {
   const router = useRouter();
-  const { data } = useSWR<{ items: StudyView[] }>("/api/studies?pageSize=50", fetcher, { refreshInterval: 3000 });
-  const { data: scenarios } = useSWR<{ items: { id: number; name: string }[] }>(canRun ? "/api/scenarios?pageSize=100" : null, fetcher);
+  const { data } = useSWR<{ items: StudyView[] }>("/api/studies?pageSize=50", getJson, { refreshInterval: 3000 });
+  const { data: scenarios } = useSWR<{ items: { id: number; name: string }[] }>(canRun ? "/api/scenarios?pageSize=100" : null, getJson);
   const [scenarioId, setScenarioId] = useState<number | "">("");
   const [name, setName] = useState("");
   const [p1, setP1] = useState<ParamDraft>({ ...empty, key: "entrySpeed" });

@@ -36,13 +36,24 @@ export async function getJson<T>(url: string): Promise<T> {
   return (await res.json()) as T;
 }
 
-/** Sends JSON with any method; throws ApiError with the field issues on 4xx/5xx. */
-export async function sendJson<T>(url: string, method: "POST" | "PATCH" | "PUT" | "DELETE", body?: unknown): Promise<T> {
+/**
+ * Sends JSON with any method; throws ApiError with the field issues on 4xx/5xx. `idempotencyKey` (e.g. one
+ * crypto.randomUUID() per form submission, reused on retry) lets a write that was committed be answered
+ * from its row instead of being written twice.
+ */
+export async function sendJson<T>(
+  url: string,
+  method: "POST" | "PATCH" | "PUT" | "DELETE",
+  body?: unknown,
+  options: { idempotencyKey?: string } = {},
+): Promise<T> {
   let res: Response;
+  const headers: Record<string, string> = body === undefined ? { accept: "application/json" } : { "content-type": "application/json", accept: "application/json" };
+  if (options.idempotencyKey) headers["idempotency-key"] = options.idempotencyKey;
   try {
     res = await fetch(url, {
       method,
-      headers: body === undefined ? { accept: "application/json" } : { "content-type": "application/json", accept: "application/json" },
+      headers,
       body: body === undefined ? undefined : JSON.stringify(body),
     });
   } catch {
@@ -51,6 +62,31 @@ export async function sendJson<T>(url: string, method: "POST" | "PATCH" | "PUT" 
   if (!res.ok) throw await readError(res);
   if (res.status === 204) return undefined as T;
   return (await res.json().catch(() => undefined)) as T;
+}
+
+/** The outcome of a form's request as data (for forms that show the error beside their fields). */
+export interface ApiAnswer<T> {
+  ok: boolean;
+  /** The HTTP status of a refusal (0: the server could not be reached); 0 on success. */
+  status: number;
+  data: T | null;
+  error: string | null;
+  errors: Record<string, string>;
+}
+
+/** sendJson, with a refusal returned as `{ ok: false, error, errors }` instead of thrown. */
+export async function submitJson<T = unknown>(url: string, method: "POST" | "PATCH" | "PUT" | "DELETE", body?: unknown): Promise<ApiAnswer<T>> {
+  try {
+    return { ok: true, status: 0, data: await sendJson<T>(url, method, body), error: null, errors: {} };
+  } catch (err) {
+    if (!(err instanceof ApiError)) throw err;
+    return { ok: false, status: err.status, data: null, error: err.message, errors: issueMap(err.issues) };
+  }
+}
+
+/** A fresh Idempotency-Key (randomUUID needs a secure context; plain-http hosts get a random fallback). */
+export function newIdempotencyKey(): string {
+  return globalThis.crypto?.randomUUID?.() ?? `${Date.now().toString(36)}-${Math.random().toString(36).slice(2)}-${Math.random().toString(36).slice(2)}`;
 }
 
 /** Field path → first message. */
