@@ -8,6 +8,8 @@ export interface FuzzCase {
   headers: Record<string, string>;
   body?: string | Buffer;
   field?: string;
+  /** Sent as a stream without Content-Length (Transfer-Encoding: chunked), this many bytes. */
+  chunkedBytes?: number;
 }
 
 const INF = "\u0000INF\u0000";
@@ -67,6 +69,16 @@ function hostileNumbers(key: string): unknown[] {
 }
 
 const CONTROL = ["\u0000", "\u0007bell", "a\u001b[31mred", "tab\there", "line\nbreak", "\u007f", "\u0085next"];
+// Refused in every text field, free text included (which keeps tab and line breaks).
+const CONTROL_ANYWHERE = ["nul\u0000here", "esc\u001b[2Jclear"];
+// Lone UTF-16 surrogates: JSON can carry them (as \ud800 escapes), MariaDB's utf8mb4 cannot store them.
+const LONE_SURROGATES = ["a\ud800b", "\udc00", "end\ud83c"];
+// Fields that name one line of text: every control character is refused there.
+const ONE_LINE = /name|designation|title|caption|site|lubricant/i;
+// Dates that are not dates: a number, a boolean, SQL-looking text, a year past 9999, a day that does not exist.
+const NON_DATES: unknown[] = [-8.64e15, true, "1; DROP TABLE lifts", "2001 OR 1=1", "275760-09-13", "2026-02-30", ""];
+// Write routes whose body takes an optional date the base body may leave out: [url pattern, field].
+const DATE_FIELDS: [RegExp, string][] = [[/\/api\/logbook\/entries$/, "measuredAt"]];
 
 /**
  * Every malformed request for one write route: generic ones (content type, broken JSON, size, shapes),
@@ -112,11 +124,33 @@ export function casesFor(
     }
     if (typeof leaf.value === "string") {
       add(`huge text at ${field}`, jsonText(setAt(base, leaf.path, "é".repeat(70_000))), json, field);
-      if (/name|designation|title/i.test(key)) {
-        for (const c of CONTROL) add(`control characters at ${field}`, jsonText(setAt(base, leaf.path, `Lift ${c}`)), json, field);
+      for (const c of ONE_LINE.test(key) ? [...CONTROL, ...CONTROL_ANYWHERE] : CONTROL_ANYWHERE) {
+        add(`control characters at ${field}`, jsonText(setAt(base, leaf.path, `Lift ${c}`)), json, field);
+      }
+      for (const lone of LONE_SURROGATES) add(`lone surrogate at ${field}`, jsonText(setAt(base, leaf.path, lone)), json, field);
+      if (key === "csv") {
+        // Readings that overflow once converted to SI (1e308 lbf is Infinity in newtons), or whose
+        // difference from the first reading does.
+        const header = leaf.value.split(/\r?\n/)[0] ?? "";
+        const width = header.split(",").length;
+        const rows = [Array(width).fill("0").join(","), Array(width).fill("1e308").join(","), ["0.2", ...Array(width - 1).fill("-1e308")].join(",")];
+        const withLbf = setAt(base, leaf.path, [header, ...rows].join("\n"));
+        const units = (withLbf as { units?: Record<string, unknown> }).units;
+        add(`values overflowing after conversion at ${field}`, jsonText(units ? { ...(withLbf as object), units: { ...units, force: "lbf", length: "ft" } } : withLbf));
       }
     }
+    if (DATE_FIELDS.some(([, name]) => name === key)) {
+      for (const d of NON_DATES) add(`non-date ${JSON.stringify(d)} at ${field}`, jsonText(setAt(base, leaf.path, d)), json, field);
+    }
   }
+  const isObject = base !== null && typeof base === "object" && !Array.isArray(base);
+  for (const [pattern, field] of DATE_FIELDS) {
+    if (!isObject || !pattern.test(new URL(url, "http://x").pathname) || field in (base as object)) continue;
+    for (const d of NON_DATES) add(`non-date ${JSON.stringify(d)} at ${field}`, jsonText({ ...(base as object), [field]: d }), json, field);
+  }
+  // Bodies without Content-Length (chunked): refused once past the limit, not read whole first.
+  cases.push({ kind: "chunked body without Content-Length (3 MB)", url, method, headers: json, chunkedBytes: 3_000_000 });
+  cases.push({ kind: "chunked broken JSON without Content-Length", url, method, headers: json, chunkedBytes: 2_000 });
   // Structural damage on the top level: an extra field of the wrong kind combined with a removed one.
   const top = targets.filter((l) => l.path.length === 1);
   top.slice(0, 6).forEach((leaf, i) => {

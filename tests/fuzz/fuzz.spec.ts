@@ -110,7 +110,7 @@ async function send(c: FuzzCase): Promise<void> {
   let status = 0;
   let body: { error?: unknown; issues?: { path?: string }[] } | null = null;
   try {
-    const res = await api.fetch(c.url, { method: c.method, headers: c.headers, data: c.body, maxRedirects: 0, timeout: 15_000 });
+    const res = c.chunkedBytes ? await sendChunked(c, c.chunkedBytes) : await api.fetch(c.url, { method: c.method, headers: c.headers, data: c.body, maxRedirects: 0, timeout: 15_000 });
     status = res.status();
     const text = await res.text();
     try {
@@ -130,6 +130,36 @@ async function send(c: FuzzCase): Promise<void> {
   else if (status === 400 && c.field && !names(body.issues, c.field)) {
     failures.push(`${what}: 400 does not name ${c.field}: ${JSON.stringify(body.issues)?.slice(0, 200)}`);
   }
+}
+
+/**
+ * A body streamed in 64 KiB chunks without Content-Length (Playwright's client always sets one), signed in
+ * with the admin's cookies; the bytes are "{" then spaces, never valid JSON.
+ */
+async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => number; text: () => Promise<string> }> {
+  const cookie = (await api.storageState()).cookies.map((k) => `${k.name}=${k.value}`).join("; ");
+  const target = new URL(c.url, baseURL);
+  let sent = 0;
+  const body = new ReadableStream<Uint8Array>({
+    pull(controller) {
+      if (sent >= bytes) return controller.close();
+      const n = Math.min(64 * 1024, bytes - sent);
+      const chunk = new Uint8Array(n).fill(0x20);
+      if (sent === 0) chunk[0] = 0x7b;
+      sent += n;
+      controller.enqueue(chunk);
+    },
+  });
+  const res = await fetch(target, {
+    method: c.method,
+    headers: { ...c.headers, cookie, origin: target.origin },
+    body,
+    duplex: "half",
+    redirect: "manual",
+    signal: AbortSignal.timeout(15_000),
+  } as RequestInit);
+  const text = await res.text();
+  return { status: () => res.status, text: async () => text };
 }
 
 async function sendAll(cases: FuzzCase[]): Promise<void> {
