@@ -174,6 +174,12 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
       ...(scenario.loading !== "empty"
         ? [{ key: "riderMass", label: "Mass of one rider", value: fmtQ(train.riderMass, "mass", report.units, 0), source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." }]
         : []),
+      {
+        key: "gravity",
+        label: "Standard gravity (accelerations in g)",
+        value: report.units === "si" ? "9.81 m/s²" : "32.17 ft/s²",
+        source: "Standard acceleration of gravity 9.806 65 m/s² (3rd CGPM, 1901; NIST SP 811).",
+      },
       { key: "model", label: "Chain model", value: `${inputs.run.segments} spring segments, ${inputs.run.integrator} integrator`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
     ],
     case: caseText,

@@ -25,7 +25,7 @@ const FONT_FILES: Record<string, string> = {
   [MONO]: "DejaVuSansMono.ttf",
 };
 
-const LOADING_WORDS: Record<string, string> = { empty: "empty train (no riders)", full: "full train (every seat taken)", riders: "some riders" };
+const LOADING_WORDS: Record<string, string> = { empty: "empty train", full: "full train (every seat taken)", riders: "some riders" };
 
 export interface ReportReviewLine {
   action: string;
@@ -98,17 +98,19 @@ function titleBlock(doc: Doc, c: ReportContent, stamp: ReportStamp) {
     ["Reviewer", stamp.reviewer ? `${stamp.reviewer}, approved ${stamp.approvedAt?.slice(0, 10) ?? ""}` : "not yet approved"],
   ];
   const colW = w / 2;
-  const rowH = 26;
   let y = doc.y + 6;
   doc.lineWidth(0.6).strokeColor(INK);
   for (let i = 0; i < cells.length; i += 2) {
+    // Each cell wraps; the row is as tall as its taller cell (nothing is cut).
+    doc.font(BODY).fontSize(9);
+    const rowH = 16 + Math.max(...[cells[i], cells[i + 1]].filter(Boolean).map((cell) => doc.heightOfString(cell![1], { width: colW - 10 })));
     for (let j = 0; j < 2; j++) {
       const cell = cells[i + j];
       if (!cell) continue;
       const x = MARGIN + j * colW;
       doc.rect(x, y, colW, rowH).stroke();
       doc.font(BODY).fontSize(7).fillColor(MUTED).text(cell[0].toUpperCase(), x + 5, y + 3, { width: colW - 10 });
-      doc.font(BODY).fontSize(9).fillColor(INK).text(cell[1], x + 5, y + 12, { width: colW - 10, height: 12, ellipsis: true });
+      doc.font(BODY).fontSize(9).fillColor(INK).text(cell[1], x + 5, y + 12, { width: colW - 10 });
     }
     y += rowH;
   }
@@ -275,6 +277,7 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     ["Drive pull / sprocket torque", `${fmtQ(st.drivePull, "force", u)} / ${fmtQ(st.torque, "torque", u, 0)}`],
     ["Chordal speed variation", `${(st.chordalSpeedVariation * 100).toFixed(2)} %`],
     ["Static safety factor", fmtN(st.safetyFactor)],
+    ["Longitudinal wave speed in the chain, √(E·A ÷ mass per length)", fmtQ(st.waveSpeed, "speed", u, 0)],
   ]);
 
   heading(doc, "4. Dynamic results");
