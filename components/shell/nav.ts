@@ -53,5 +53,19 @@ export const NAV_ITEMS: NavItem[] = [
     action: "run:read",
     group: "operate",
   },
+  {
+    href: "/reports",
+    label: "Reviews",
+    purpose: "Design-check reports: the queue awaiting review, returns with comments, approvals.",
+    action: "report:read",
+    group: "design",
+  },
+  {
+    href: "/audit",
+    label: "Audit trail",
+    purpose: "Who changed what and when, by lift, person and date, with each change shown field by field.",
+    action: "audit:read",
+    group: "admin",
+  },
   { href: "/admin/users", label: "Admin", purpose: "People, roles and invitations.", action: "users:manage", group: "admin" },
 ];

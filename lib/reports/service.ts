@@ -256,3 +256,14 @@ export async function reportPdf(actor: Actor, id: number): Promise<{ pdf: Buffer
   }
   return { pdf: (await renderReport(r)).pdf, filename };
 }
+
+/** The approved report that froze a scenario (the latest, if several), for the scenario page's banner. */
+export async function approvingReport(actor: Actor, scenarioId: number): Promise<{ id: number; title: string } | null> {
+  const { Report } = getModels();
+  const r = await Report.findOne({
+    where: { organisationId: actor.organisationId, scenarioId, status: "approved" },
+    order: [["approvedAt", "DESC"]],
+    attributes: ["id", "title"],
+  });
+  return r ? { id: r.id, title: r.title } : null;
+}

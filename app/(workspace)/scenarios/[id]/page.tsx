@@ -3,6 +3,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ScenarioRunView } from "@/components/run/ScenarioRunView";
 import { ScenarioEditor } from "@/components/scenario/ScenarioEditor";
+import { FrozenScenarioBanner } from "@/components/report/FrozenScenarioBanner";
+import { approvingReport } from "@/lib/reports/service";
 import { LOADING_LABELS, type ScenarioJson } from "@/components/scenario/types";
 import { Badge } from "@/components/ui/Badge";
 import { PageHeader } from "@/components/ui/PageHeader";
@@ -41,6 +43,7 @@ export default async function ScenarioPage({
   const sp = await searchParams;
   const t = typeof sp.t === "string" ? Number(sp.t) : undefined;
   const canWrite = can(user.role, "design:write") && !view.archivedAt && !view.frozenAt;
+  const frozenBy = view.frozenAt && can(user.role, "report:read") ? await approvingReport(user, view.id) : null;
   return (
     <>
       <PageHeader
@@ -67,6 +70,14 @@ export default async function ScenarioPage({
         }
       />
       <div className="space-y-5">
+        {view.frozenAt && (
+          <FrozenScenarioBanner
+            scenarioId={view.id}
+            frozenAt={String(view.frozenAt)}
+            report={frozenBy}
+            canCopy={can(user.role, "design:write")}
+          />
+        )}
         {canWrite && (
           <details className="rounded-lg border border-steel-300/70 bg-white" data-testid="edit-scenario">
             <summary className="cursor-pointer px-4 py-2.5 text-[13px] font-semibold text-ink-900">Edit the scenario</summary>
