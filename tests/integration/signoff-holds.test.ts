@@ -14,6 +14,7 @@ import { createReport, getReport, listReports, reportPdf } from "@/lib/reports/s
 import { approveReport, MISSING_RETURN_COMMENT, returnReport, SUMMARY_CHANGED, submitReport } from "@/lib/review/service";
 import { createComment } from "@/lib/comments/service";
 import { createStudy } from "@/lib/studies/service";
+import { listAudit } from "@/lib/audit/list";
 import { closeDb, expectHttpError, liftBody, makeOrganisation } from "./design-fixtures";
 import { finished, importForRuns, shortScenarioFile } from "./runs-fixtures";
 import { finishedStudy, waitForStudy } from "./study-fixtures";
@@ -239,6 +240,30 @@ describe("study cases stay with their study", () => {
     expect(cases.items.every((r) => r.studyCase?.studyId === study.id && r.studyCase.studyName === "Entry speeds")).toBe(true);
     const all = await listRuns(engineer, scenarioId, page);
     expect(all.items.find((r) => r.id === run.id)!.studyCase).toBeNull();
+  });
+});
+
+describe("the audit trail", () => {
+  it("filters by lift (the lift, its scenarios, runs and reports), by person and by date, with each update as a diff", async () => {
+    const a = await finishedRunOf(engineer, "Holds: audit A");
+    const b = await finishedRunOf(engineer, "Holds: audit B");
+    const report = await createReport(engineer, { scenarioId: a.scenarioId, runId: a.run.id });
+    await submitReport(engineer, report.id);
+    const byLift = await listAudit(reviewer, { liftId: String(a.liftId), pageSize: "100" });
+    const keys = byLift.items.map((e) => `${e.entity}:${e.entityId}`);
+    expect(keys).toContain(`scenario:${a.scenarioId}`);
+    expect(keys).toContain(`run:${a.run.id}`);
+    expect(keys).toContain(`report:${report.id}`);
+    expect(keys).not.toContain(`scenario:${b.scenarioId}`);
+    expect(keys).not.toContain(`run:${b.run.id}`);
+    const submit = byLift.items.find((e) => e.entity === "report" && e.action === "update")!;
+    expect(submit.changes).toContainEqual({ path: "status", before: "draft", after: "submitted" });
+    // By person: the reviewer did nothing here yet.
+    expect((await listAudit(reviewer, { liftId: String(a.liftId), userId: String(reviewer.id) })).items).toEqual([]);
+    // By date: nothing before yesterday (the organisation was made in this test run).
+    const yesterday = new Date(Date.now() - 86_400_000).toISOString();
+    expect((await listAudit(reviewer, { liftId: String(a.liftId), to: yesterday })).items).toEqual([]);
+    expect((await listAudit(reviewer, { liftId: String(a.liftId), from: yesterday })).total).toBe(byLift.total);
   });
 });
 
