@@ -165,7 +165,7 @@ export interface RunPage {
 const STUDY_RUN_IDS = "(SELECT sc.run_id FROM study_cases sc WHERE sc.run_id IS NOT NULL)";
 
 export async function listRuns(user: Actor, scenarioId: number, q: Omit<ListRunsQuery, "source"> & Partial<Pick<ListRunsQuery, "source">>): Promise<RunPage> {
-  const { Run, StudyCase, Study } = getModels();
+  const { Run } = getModels();
   await recoverOnce();
   await assertOwnScenario(user, scenarioId);
   const bySource =
@@ -182,17 +182,24 @@ export async function listRuns(user: Actor, scenarioId: number, q: Omit<ListRuns
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  const cases = rows.length ? await StudyCase.findAll({ where: { runId: rows.map((r) => r.id) }, attributes: ["runId", "studyId", "idx"] }) : [];
-  const studies = new Map(
-    (cases.length ? await Study.findAll({ where: { id: [...new Set(cases.map((c) => c.studyId))] }, attributes: ["id", "name"] }) : []).map((st) => [st.id, st.name]),
-  );
-  const caseOf = new Map(cases.map((c) => [c.runId, { studyId: c.studyId, studyName: studies.get(c.studyId) ?? `Study ${c.studyId}`, index: c.idx + 1 }]));
+  const caseOf = await studyCaseLabels(rows.map((r) => r.id));
   return {
     items: rows.map((r) => ({ ...toRunView(r), studyCase: caseOf.get(r.id) ?? null })),
     total: count,
     page: q.page,
     pageSize: q.pageSize,
   };
+}
+
+/** Run id → its study-case label, for lists that show runs of every kind. */
+export async function studyCaseLabels(runIds: number[]): Promise<Map<number, StudyCaseLabel>> {
+  const { StudyCase, Study } = getModels();
+  if (!runIds.length) return new Map();
+  const cases = await StudyCase.findAll({ where: { runId: runIds }, attributes: ["runId", "studyId", "idx"] });
+  const names = new Map(
+    (cases.length ? await Study.findAll({ where: { id: [...new Set(cases.map((c) => c.studyId))] }, attributes: ["id", "name"] }) : []).map((st) => [st.id, st.name]),
+  );
+  return new Map(cases.map((c) => [c.runId!, { studyId: c.studyId, studyName: names.get(c.studyId) ?? `Study ${c.studyId}`, index: c.idx + 1 }]));
 }
 
 /** The study a run is a case of (for the run page's label), or null. */
