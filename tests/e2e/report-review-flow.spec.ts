@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { expect, test, type APIRequestContext } from "@playwright/test";
+import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { apiAs, signInUi } from "./support/auth";
 import { linkIn, waitForMail } from "./support/mail";
 
@@ -22,6 +22,13 @@ test.afterAll(async () => {
   await engineerApi?.dispose();
 });
 
+/** Clicks a review button and waits for the server's answer to its POST (submit, return, approve). */
+async function post(page: Page, testId: string, action: string): Promise<number> {
+  const answered = page.waitForResponse((r) => r.request().method() === "POST" && new URL(r.url()).pathname.endsWith(`/${action}`), { timeout: 60_000 });
+  await page.getByTestId(testId).click();
+  return (await answered).status();
+}
+
 async function finishedScenario(api: APIRequestContext, name: string): Promise<number> {
   const imported = await api.post("/api/scenarios/import", { data: { ...example, name, run: { ...example.run, duration: 8, segments: 16 } } });
   expect(imported.status()).toBe(201);
@@ -34,7 +41,7 @@ async function finishedScenario(api: APIRequestContext, name: string): Promise<n
 }
 
 test("engineer creates and submits a report; reviewer returns it from the queue with a comment; engineer resubmits; reviewer approves after the summary", async ({ browser }) => {
-  test.setTimeout(120_000);
+  test.setTimeout(240_000);
   const name = `Review flow ${Date.now()}`;
   const scenarioId = await finishedScenario(engineerApi, name);
 
@@ -46,15 +53,17 @@ test("engineer creates and submits a report; reviewer returns it from the queue 
     // Engineer: create the report from the scenario page, open it, submit it.
     await signInUi(eng, "engineer@lanternfell.example");
     await eng.goto(`/scenarios/${scenarioId}`);
+    const created = eng.waitForResponse((r) => new URL(r.url()).pathname === "/api/reports" && r.request().method() === "POST");
     await eng.getByTestId("report-create").click();
+    expect((await created).status()).toBe(201);
     const link = eng.getByTestId("report-link").filter({ hasText: name });
-    await expect(link).toBeVisible();
+    await expect(link).toBeVisible({ timeout: 20_000 });
     await link.click();
     await eng.waitForURL(/\/reports\/\d+$/);
     const reportId = Number(/\/reports\/(\d+)$/.exec(eng.url())![1]);
-    await expect(eng.getByTestId("report-detail")).toHaveAttribute("data-status", "draft");
-    await eng.getByTestId("report-submit").click();
-    await expect(eng.getByTestId("report-detail")).toHaveAttribute("data-status", "submitted");
+    await expect(eng.getByTestId("report-detail")).toHaveAttribute("data-status", "draft", { timeout: 20_000 });
+    expect(await post(eng, "report-submit", "submit")).toBe(200);
+    await expect(eng.getByTestId("report-detail")).toHaveAttribute("data-status", "submitted", { timeout: 20_000 });
 
     // Reviewer: the e-mail links straight to the report.
     const mail = await waitForMail("reviewer@lanternfell.example", name);
@@ -72,27 +81,27 @@ test("engineer creates and submits a report; reviewer returns it from the queue 
     await rev.waitForURL(`**/reports/${reportId}`);
 
     // A return needs a comment: the reviewer is told so in words.
-    await rev.getByTestId("review-return").click();
+    expect(await post(rev, "review-return", "return")).toBe(400);
     await expect(rev.getByTestId("report-action-error")).toContainText("Write what must change before returning the report");
     await rev.getByTestId("review-comment").fill("State the motor rating and rerun at the worn-chain take-up mass.");
-    await rev.getByTestId("review-return").click();
-    await expect(rev.getByTestId("report-detail")).toHaveAttribute("data-status", "returned");
+    expect(await post(rev, "review-return", "return")).toBe(200);
+    await expect(rev.getByTestId("report-detail")).toHaveAttribute("data-status", "returned", { timeout: 20_000 });
 
     // Engineer: reads the comment in the app, on the report, and resubmits.
     await eng.reload();
-    await expect(eng.getByTestId("return-comment")).toContainText("State the motor rating and rerun at the worn-chain take-up mass.");
-    await eng.getByTestId("report-submit").click();
-    await expect(eng.getByTestId("report-detail")).toHaveAttribute("data-status", "submitted");
+    await expect(eng.getByTestId("return-comment")).toContainText("State the motor rating and rerun at the worn-chain take-up mass.", { timeout: 20_000 });
+    expect(await post(eng, "report-submit", "submit")).toBe(200);
+    await expect(eng.getByTestId("report-detail")).toHaveAttribute("data-status", "submitted", { timeout: 20_000 });
 
     // Reviewer: reads the approval summary (figures, checks with states, open cautions), confirms, approves.
     await rev.reload();
     const summary = rev.getByTestId("approval-summary");
-    await expect(summary).toContainText("Peak tension");
+    await expect(summary).toContainText("Peak tension", { timeout: 20_000 });
     await expect(summary.getByTestId("summary-checks").locator("li").first()).toBeVisible();
     await expect(rev.getByTestId("review-approve")).toBeDisabled();
     await rev.getByTestId("confirm-summary").check();
-    await rev.getByTestId("review-approve").click();
-    await expect(rev.getByTestId("report-detail")).toHaveAttribute("data-status", "approved");
+    expect(await post(rev, "review-approve", "approve")).toBe(200);
+    await expect(rev.getByTestId("report-detail")).toHaveAttribute("data-status", "approved", { timeout: 20_000 });
     await expect(rev.getByTestId("review-history")).toContainText("Returned to the author");
     await expect(rev.getByTestId("review-history")).toContainText("Approved");
 
