@@ -180,6 +180,10 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
         value: report.units === "si" ? "9.81 m/s²" : "32.17 ft/s²",
         source: "Standard acceleration of gravity 9.806 65 m/s² (3rd CGPM, 1901; NIST SP 811).",
       },
+      // A what-if run's inputs already hold its overrides; say so beside the scenario's own values.
+      ...(run.overrides
+        ? [{ key: "whatIf", label: "What-if values", value: whatIfText(json(run.overrides), json(run.overridesFrom ?? null), report.units), source: "What-if run: the server ran the scenario with these values in place of its own; the scenario itself is unchanged." }]
+        : []),
       { key: "model", label: "Chain model", value: `${inputs.run.segments} spring segments, ${inputs.run.integrator} integrator`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
     ],
     case: caseText,
