@@ -54,6 +54,8 @@ const WORKSPACE_MATCHERS = [
   "/runs/:path*",
   "/settings/:path*",
   "/admin/:path*",
+  "/reports/:path*",
+  "/audit/:path*",
 ];
 const WORKSPACE = WORKSPACE_MATCHERS.map((m) => m.replace("/:path*", ""));
 

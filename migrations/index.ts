@@ -14,6 +14,7 @@ import * as m0020 from "./0020_runs";
 import * as m0021 from "./0021_run_overrides";
 import * as m0030 from "./0030_studies";
 import * as m0031 from "./0031_reports";
+import * as m0032 from "./0032_report_snapshots";
 import * as m0040 from "./0040_logbook";
 import * as m0041 from "./0041_recordings";
 import * as m0042 from "./0042_training";
@@ -45,6 +46,7 @@ export const migrations: Migration[] = [
   { name: "0021_run_overrides", ...m0021 },
   { name: "0030_studies", ...m0030 },
   { name: "0031_reports", ...m0031 },
+  { name: "0032_report_snapshots", ...m0032 },
   { name: "0040_logbook", ...m0040 },
   { name: "0041_recordings", ...m0041 },
   { name: "0042_training", ...m0042 },

@@ -30,6 +30,8 @@ export class Report extends Model<InferAttributes<Report>, InferCreationAttribut
   /** The approved, stamped PDF (drafts are drawn on request). */
   declare pdf: Buffer | null;
   declare pdfBytes: number | null;
+  /** Set at approval: every input and the content the approved PDF shows (lib/reports/snapshot.ts). */
+  declare snapshot: CreationOptional<Record<string, unknown> | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -54,6 +56,7 @@ export function initReport(sequelize: Sequelize): typeof Report {
       contentHash: { type: DataTypes.CHAR(64), allowNull: true },
       pdf: { type: DataTypes.BLOB("long"), allowNull: true },
       pdfBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+      snapshot: { type: DataTypes.JSON, allowNull: true },
       version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
@@ -63,8 +66,8 @@ export function initReport(sequelize: Sequelize): typeof Report {
       tableName: "reports",
       modelName: "Report",
       underscored: true,
-      defaultScope: { attributes: { exclude: ["pdf"] } },
-      scopes: { withPdf: {} },
+      defaultScope: { attributes: { exclude: ["pdf", "snapshot"] } },
+      scopes: { withPdf: {}, withSnapshot: { attributes: { exclude: ["pdf"] } } },
     },
   );
   return Report;

@@ -8,6 +8,7 @@ import { Card, CardHeader } from "@/components/ui/Card";
 import { checksFor } from "@/components/run/compute";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { json } from "@/lib/runs/serialize";
+import { studyCaseLabels } from "@/lib/runs/service";
 import type { RunStatus } from "@/lib/runs/status";
 import { getModels } from "@/models";
 import type { Check, Scenario, Summary } from "@/sim";
@@ -39,11 +40,12 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
   const names = new Map(
     (await ScenarioModel.findAll({ where: { id: [...new Set(runs.map((r) => r.scenarioId))] }, attributes: ["id", "name"] })).map((s) => [s.id, s.name]),
   );
+  const studyCases = await studyCaseLabels(runs.map((r) => r.id));
   const rows = runs.map((r) => {
     const summary = json<Summary | null>(r.summary ?? null);
     const failed = summary && r.status === "done" ? failedChecksOf(`${r.id}:${r.version}`, () => json<Scenario>(r.inputs), summary) : [];
     const whatIf = json<Record<string, number> | null>(r.overrides ?? null) !== null;
-    return { id: r.id, scenarioId: r.scenarioId, status: r.status as RunStatus, finishedAt: r.finishedAt ?? r.queuedAt, summary, failed, whatIf };
+    return { id: r.id, scenarioId: r.scenarioId, status: r.status as RunStatus, finishedAt: r.finishedAt ?? r.queuedAt, summary, failed, whatIf, studyCase: studyCases.get(r.id) ?? null };
   });
   return (
     <Card data-testid="recent-runs">
@@ -75,6 +77,12 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
                 <Badge tone={TONE[r.status]}>{r.status}</Badge>
                 {/* A what-if run varied the scenario's entry speed, chain speed or take-up mass. */}
                 {r.whatIf && <Badge tone="caution">what-if</Badge>}
+                {/* A study's case is other inputs than its scenario's: say whose case it is. */}
+                {r.studyCase && (
+                  <Link href={`/studies/${r.studyCase.studyId}`} title={`Case ${r.studyCase.index} of ${r.studyCase.studyName}`} data-testid="recent-run-study-case">
+                    <Badge tone="caution">study case</Badge>
+                  </Link>
+                )}
                 <span className="text-[11.5px] text-steel-500">{new Date(r.finishedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short" })}</span>
               </div>
             </li>

@@ -1,4 +1,5 @@
 "use client";
+import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
 import type { UnitSystem } from "@/sim/units";
@@ -32,7 +33,6 @@ export function ReportPanel({
 }) {
   const { data, mutate } = useSWR<{ items: ReportView[] }>(`/api/reports?scenarioId=${scenarioId}`, getJson);
   const [runId, setRunId] = useState<number | null>(runIds[0]?.id ?? null);
-  const [comment, setComment] = useState("");
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -69,7 +69,9 @@ export function ReportPanel({
           {(data?.items ?? []).map((r) => (
             <li key={r.id} className="rounded border border-steel-200 p-3 text-sm" data-testid="report-item">
               <div className="flex flex-wrap items-center gap-2">
-                <span className="font-semibold">{r.title}</span>
+                <Link className="font-semibold hover:underline" href={`/reports/${r.id}`} data-testid="report-link">
+                  {r.title}
+                </Link>
                 <Badge tone={r.status === "approved" ? "pass" : r.status === "returned" ? "caution" : "neutral"}>{r.status}</Badge>
                 <a className={buttonClass("secondary", "sm")} href={r.links.pdf} target="_blank" rel="noreferrer">
                   PDF
@@ -82,15 +84,11 @@ export function ReportPanel({
               </div>
               {r.contentHash ? <p className="mt-1 font-mono text-[11px] text-steel-500">sha256 {r.contentHash}</p> : null}
               {canReview && r.status === "submitted" && r.authorId !== userId ? (
-                <div className="mt-2 flex flex-wrap items-center gap-2">
-                  <input className="h-8 flex-1 rounded border border-steel-300 px-2" placeholder="Comment (needed to return)" value={comment} onChange={(e) => setComment(e.target.value)} />
-                  <Button size="sm" busy={busy} onClick={() => run(() => post(`/api/reports/${r.id}/approve`, comment ? { comment } : {}))}>
-                    Approve
-                  </Button>
-                  <Button size="sm" variant="danger" busy={busy} onClick={() => run(() => post(`/api/reports/${r.id}/return`, { comment }))}>
-                    Return
-                  </Button>
-                </div>
+                <p className="mt-2">
+                  <Link className={buttonClass("primary", "sm")} href={`/reports/${r.id}`} data-testid="report-review-link">
+                    Read the summary and review
+                  </Link>
+                </p>
               ) : null}
             </li>
           ))}

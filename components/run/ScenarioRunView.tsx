@@ -51,7 +51,8 @@ export function ScenarioRunView({
   const reset = useRunStore((s) => s.reset);
   const set = useRunStore((s) => s.set);
   const { runFull, cancel, runPreview } = useWorkerRun();
-  const runs = useResource<{ items?: RunJson[]; runs?: RunJson[]; total: number }>(`/api/scenarios/${scenarioId}/runs?pageSize=8`);
+  // The scenario's own runs only: a study's cases are other inputs and live with their study.
+  const runs = useResource<{ items?: RunJson[]; runs?: RunJson[]; total: number }>(`/api/scenarios/${scenarioId}/runs?pageSize=8&source=own`);
   const [openFailed, setOpenFailed] = useState(false);
   const [saveMsg, setSaveMsg] = useState<{ tone: "error" | "info"; text: string } | null>(null);
   const [saving, setSaving] = useState(false);
@@ -193,6 +194,13 @@ export function ScenarioRunView({
             ))}
             {runList && runList.length === 0 && <li className="px-4 py-2 text-[12.5px] text-steel-500">No saved runs yet.</li>}
           </ul>
+          <p className="border-t border-steel-100 px-4 py-1.5 text-[11.5px] text-steel-500" data-testid="study-cases-note">
+            Cases of studies are not listed here: open them from their{" "}
+            <Link href="/studies" className="font-semibold text-ink-800 hover:underline">
+              study
+            </Link>
+            .
+          </p>
         </section>
       </div>
 

@@ -34,6 +34,13 @@ export const NAV_ITEMS: NavItem[] = [
     group: "design",
   },
   {
+    href: "/reports",
+    label: "Reviews",
+    purpose: "Design-check reports: the queue awaiting review, returns with comments, approvals.",
+    action: "report:read",
+    group: "design",
+  },
+  {
     href: "/studies",
     label: "Studies",
     purpose: "Sweeps over a scenario's inputs, with snatch loads and safety factors side by side.",
@@ -52,6 +59,13 @@ export const NAV_ITEMS: NavItem[] = [
     purpose: "Step through a run on the lift hill, with notes for training.",
     action: "run:read",
     group: "operate",
+  },
+  {
+    href: "/audit",
+    label: "Audit trail",
+    purpose: "Who changed what and when, by lift, person and date, with each change shown field by field.",
+    action: "audit:read",
+    group: "admin",
   },
   { href: "/admin/users", label: "Admin", purpose: "People, roles and invitations.", action: "users:manage", group: "admin" },
 ];

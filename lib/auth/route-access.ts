@@ -209,6 +209,10 @@ export const PAGE_ROUTES: Record<string, PageAccess> = {
     access: needs("training:watch"),
     rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },
   },
+  // Sign-off: the reviewer queue, one report (the e-mail links here), and the audit trail.
+  "/reports": { access: needs("report:read") },
+  "/reports/[id]": { access: needs("report:read"), rows: { id: "reports" } },
+  "/audit": { access: needs("audit:read") },
   "/replays/[id]/edit": {
     access: needs("training:manage"),
     rows: { id: { sql: "SELECT MIN(id) AS id FROM training_sessions WHERE organisation_id = ? AND shared_at IS NOT NULL" } },

@@ -266,8 +266,9 @@ export async function updateLift(actor: Actor, id: number, input: unknown): Prom
 }
 
 /**
- * Archives a lift that scenarios (and so runs) use — they keep their pinned revisions — else deletes it
- * with its revisions.
+ * Archives a lift that scenarios (and so runs) use — they keep their pinned revisions — or that has
+ * operations records (logbook entries, recordings, uploaded photos and logger files, even one not yet
+ * attached: its stored file would be left behind), else deletes it with its revisions.
  */
 export async function deleteLift(actor: Actor, id: number): Promise<DeleteOutcome> {
   assertCan(actor, "design:write");
@@ -278,7 +279,8 @@ export async function deleteLift(actor: Actor, id: number): Promise<DeleteOutcom
     const before = liftView(lift, current);
     const used = await Scenario.count({ where: { liftId: lift.id }, transaction });
     const runs = await countRunsOfLift(lift.id, transaction);
-    if (used + runs > 0) {
+    const records = await countOperationsRecords(lift.id, transaction);
+    if (used + runs + records > 0) {
       if (!lift.archivedAt) await lift.update({ archivedAt: new Date(), version: lift.version + 1 }, { transaction });
       await recordAudit({ transaction, actor, entity: "lift", entityId: lift.id, action: "archive", before, after: liftView(lift, current) });
       return { id: lift.id, outcome: "archived" };
@@ -289,6 +291,17 @@ export async function deleteLift(actor: Actor, id: number): Promise<DeleteOutcom
     await recordAudit({ transaction, actor, entity: "lift", entityId: id, action: "delete", before, after: null });
     return { id, outcome: "deleted" };
   });
+}
+
+/** Logbook entries, recordings and uploads of the lift: records of the ride that deleting would lose. */
+async function countOperationsRecords(liftId: number, transaction: Transaction): Promise<number> {
+  const { LogbookEntry, Recording, Upload } = getModels();
+  const counts = await Promise.all([
+    LogbookEntry.count({ where: { liftId }, transaction }),
+    Recording.count({ where: { liftId }, transaction }),
+    Upload.count({ where: { liftId }, transaction }),
+  ]);
+  return counts.reduce((a, b) => a + b, 0);
 }
 
 /** Runs pinned to any revision of the lift (the runs table may not be registered in every process). */

@@ -6,6 +6,7 @@
 import crypto from "node:crypto";
 import { Op } from "sequelize";
 import { getModels } from "@/models";
+import { conflict } from "@/lib/http/errors";
 import type { Report } from "@/models/Report";
 import { designStatics } from "@/sim/statics";
 import { evaluateChecks, type Check } from "@/sim/checks";
@@ -14,9 +15,11 @@ import type { Summary } from "@/sim/summary";
 import { decodeResult } from "@/lib/runs/result-format";
 import { json } from "@/lib/runs/serialize";
 import { OVERRIDE_FIELDS, RUN_OVERRIDE_KEYS, type RunOverrideKey } from "@/lib/runs/overrides";
-import { reasonIn } from "./format";
+import { fmtQ, reasonIn } from "./format";
+import { limitLabel, limitValue } from "./assumptions";
 import { operatingWindow } from "@/lib/studies/window";
 import { studyNamer } from "@/lib/studies/service";
+import { reportSnapshot } from "./snapshot";
 import type { StudyParameter } from "@/lib/studies/schema";
 
 export const REPORT_CAUTIONS = [
@@ -43,7 +46,10 @@ export interface ReportContent {
   lift: { name: string; site: string | null; revision: number; revisionId: number; changeSummary: string | null };
   train: { name: string; cars: number; carMassEmpty: number; seatsPerCar: number; riderMass: number };
   inputs: EngineScenario;
-  assumptions: { key: string; value: string; source: string }[];
+  /** Each assumption in words: label, value in the report's units, and its source. */
+  assumptions: { key: string; label: string; value: string; source: string }[];
+  /** What makes this run's case differ from the scenario (a what-if, a study case), in words; null for the scenario itself. */
+  case: string | null;
   statics: {
     steadyTension: number;
     takeUpTension: number;
@@ -73,26 +79,28 @@ function pick(series: Record<string, ArrayLike<number>>, key: string, every: num
   return out;
 }
 
-function whatIfText(o: Partial<Record<RunOverrideKey, number>>, from: Partial<Record<RunOverrideKey, number>> | null): string {
-  const units: Record<RunOverrideKey, string> = { entrySpeed: "m/s", chainSpeed: "m/s", takeUpMass: "kg" };
+function whatIfText(o: Partial<Record<RunOverrideKey, number>>, from: Partial<Record<RunOverrideKey, number>> | null, units: "si" | "us"): string {
+  const q = (k: RunOverrideKey, v: number) => fmtQ(v, OVERRIDE_FIELDS[k].quantity, units, OVERRIDE_FIELDS[k].quantity === "mass" ? 0 : 2);
   return RUN_OVERRIDE_KEYS.filter((k) => o[k] !== undefined)
-    .map((k) => `${OVERRIDE_FIELDS[k].label} ${o[k]} ${units[k]}${from?.[k] !== undefined ? ` (scenario: ${from[k]} ${units[k]})` : ""}`)
+    .map((k) => `${OVERRIDE_FIELDS[k].label} ${q(k, o[k]!)}${from?.[k] !== undefined ? ` (scenario: ${q(k, from[k]!)})` : ""}`)
     .join(", ");
 }
 
-function fmtLimit(v: unknown): string {
-  return typeof v === "number" ? String(v) : typeof v === "boolean" ? (v ? "yes" : "no") : v === undefined ? "not given" : String(v);
-}
-
 export async function buildReportContent(report: Report): Promise<ReportContent> {
-  const { Scenario, LiftRevision, Lift, Train, Run, Organisation, Study, StudyCase } = getModels();
+  const { Scenario, LiftRevision, Lift, Train, Run, Organisation, Study, StudyCase, Report: Reports } = getModels();
+  // An approved report is what was approved: its snapshot, never the live rows.
+  if (report.status === "approved") {
+    const held = report.snapshot !== undefined ? report : await Reports.scope("withSnapshot").findByPk(report.id, { attributes: ["id", "snapshot"] });
+    const snap = held ? reportSnapshot(held) : null;
+    if (snap) return snap.content;
+  }
   const scenario = (await Scenario.findByPk(report.scenarioId))!;
   const revision = (await LiftRevision.findByPk(report.liftRevisionId))!;
   const lift = (await Lift.findByPk(revision.liftId))!;
   const train = (await Train.findByPk(scenario.trainId))!;
   const org = await Organisation.findByPk(report.organisationId);
   const run = report.runId ? await Run.scope("withResult").findByPk(report.runId) : null;
-  if (!run || run.status !== "done" || !run.summary) throw new Error("A report needs a finished run of its scenario.");
+  if (!run || run.status !== "done" || !run.summary) throw conflict("This report's run is no longer there or has no result; create the report again from a finished run.");
   const inputs = run.inputs as unknown as EngineScenario;
   const limits = limitsSchema.parse(inputs.limits ?? {});
   const statics = designStatics(inputs, { limits });
@@ -112,6 +120,18 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
         trainSpeed: pick(s, "trainSpeed", every),
         takeUpPosition: pick(s, "takeUpPosition", every),
       };
+    }
+  }
+
+  // The case this run solved, when it is not the scenario as saved.
+  let caseText: string | null = null;
+  if (run.overrides) {
+    caseText = `What-if run: the server ran the scenario with ${whatIfText(json(run.overrides), json(run.overridesFrom ?? null), report.units)}; the scenario itself is unchanged.`;
+  } else {
+    const sc = await StudyCase.findOne({ where: { runId: run.id } });
+    if (sc) {
+      const st = await Study.findByPk(sc.studyId, { attributes: ["id", "name"] });
+      caseText = `Case ${sc.idx + 1} of the study "${st?.name ?? sc.studyId}": the inputs below are this case's own.`;
     }
   }
 
@@ -146,14 +166,27 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
     assumptions: [
       ...(Object.keys(LIMIT_SOURCES) as (keyof typeof LIMIT_SOURCES)[]).map((k) => ({
         key: k as string,
-        value: fmtLimit(limits[k]),
+        label: limitLabel(k),
+        value: limitValue(k, limits[k], report.units),
         source: LIMIT_SOURCES[k],
       })),
-      { key: "riderMass", value: `${train.riderMass} kg`, source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." },
-      { key: "model", value: `${inputs.run.segments} segments, ${inputs.run.integrator}`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
+      // Rider mass matters only when riders are aboard.
+      ...(scenario.loading !== "empty"
+        ? [{ key: "riderMass", label: "Mass of one rider", value: fmtQ(train.riderMass, "mass", report.units, 0), source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." }]
+        : []),
+      {
+        key: "gravity",
+        label: "Standard gravity (accelerations in g)",
+        value: report.units === "si" ? "9.81 m/s²" : "32.17 ft/s²",
+        source: "Standard acceleration of gravity 9.806 65 m/s² (3rd CGPM, 1901; NIST SP 811).",
+      },
       // A what-if run's inputs already hold its overrides; say so beside the scenario's own values.
-      ...(run.overrides ? [{ key: "whatIf", value: whatIfText(json(run.overrides), json(run.overridesFrom ?? null)), source: "What-if run: the server ran the scenario with these values in place of its own; the scenario itself is unchanged." }] : []),
+      ...(run.overrides
+        ? [{ key: "whatIf", label: "What-if values", value: whatIfText(json(run.overrides), json(run.overridesFrom ?? null), report.units), source: "What-if run: the server ran the scenario with these values in place of its own; the scenario itself is unchanged." }]
+        : []),
+      { key: "model", label: "Chain model", value: `${inputs.run.segments} spring segments, ${inputs.run.integrator} integrator`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
     ],
+    case: caseText,
     statics: {
       steadyTension: statics.worst.driveTension ?? 0,
       takeUpTension: statics.takeUpTension,

@@ -3,12 +3,41 @@
  * assumptions with sources, statics, dynamic results with plots drawn as vectors, the checks with
  * margins, the study's window, the revision history, the review stamp and the cautions; page numbers.
  */
+import path from "node:path";
 import PDFDocument from "pdfkit";
 import type { ReportCheck, ReportContent } from "./content";
+import { headlineFigures } from "./figures";
 import { checkMargin, fmtN, fmtQ } from "./format";
+
+/**
+ * DejaVu (npm dejavu-fonts-ttf, free licence) has every glyph the report prints (≥ ≈ · ² √ × ⁻ °), which
+ * the PDF standard fonts lack. Read from node_modules at run time, beside the app.
+ */
+const FONT_DIR = path.join(process.cwd(), "node_modules", "dejavu-fonts-ttf", "ttf");
+const BODY = "TautlineBody";
+const BOLD = "TautlineBold";
+const ITALIC = "TautlineItalic";
+const MONO = "TautlineMono";
+const FONT_FILES: Record<string, string> = {
+  [BODY]: "DejaVuSans.ttf",
+  [BOLD]: "DejaVuSans-Bold.ttf",
+  [ITALIC]: "DejaVuSans-Oblique.ttf",
+  [MONO]: "DejaVuSansMono.ttf",
+};
+
+const LOADING_WORDS: Record<string, string> = { empty: "empty train", full: "full train (every seat taken)", riders: "some riders" };
+
+export interface ReportReviewLine {
+  action: string;
+  userName: string | null;
+  at: string;
+  comment: string | null;
+}
 
 export interface ReportStamp {
   status: string;
+  /** The review trail (submit, return, approve), oldest first; not part of the content hash. */
+  reviews?: ReportReviewLine[];
   reportId: number;
   author: string | null;
   reviewer: string | null;
@@ -26,23 +55,26 @@ type Doc = PDFKit.PDFDocument;
 
 function heading(doc: Doc, text: string) {
   if (doc.y > doc.page.height - 140) doc.addPage();
-  doc.moveDown(0.6).font("Helvetica-Bold").fontSize(12).fillColor(INK).text(text, MARGIN);
+  doc.moveDown(0.6).font(BOLD).fontSize(12).fillColor(INK).text(text, MARGIN);
   const y = doc.y + 1;
   doc.moveTo(MARGIN, y).lineTo(doc.page.width - MARGIN, y).lineWidth(0.6).strokeColor(ACCENT).stroke();
-  doc.moveDown(0.4).font("Helvetica").fontSize(9).fillColor(INK);
+  doc.moveDown(0.4).font(BODY).fontSize(9).fillColor(INK);
 }
 
-/** Two-column rows: label, value. */
+/** Two-column rows: label, value. A row moves whole to the next page rather than splitting. */
 function rows(doc: Doc, items: [string, string][]) {
   const x2 = MARGIN + 210;
+  const w2 = doc.page.width - MARGIN - x2;
   for (const [k, v] of items) {
-    if (doc.y > doc.page.height - 80) doc.addPage();
+    doc.font(BODY).fontSize(9);
+    const h = Math.max(doc.heightOfString(k, { width: 200 }), doc.heightOfString(v, { width: w2 }));
+    if (doc.y + h > doc.page.height - 70) doc.addPage();
     const y = doc.y;
-    doc.font("Helvetica").fillColor(MUTED).text(k, MARGIN, y, { width: 200 });
-    const h1 = doc.y - y;
-    doc.font("Helvetica").fillColor(INK).text(v, x2, y, { width: doc.page.width - MARGIN - x2 });
-    doc.y = Math.max(doc.y, y + h1);
+    doc.font(BODY).fillColor(MUTED).text(k, MARGIN, y, { width: 200 });
+    doc.font(BODY).fillColor(INK).text(v, x2, y, { width: w2 });
+    doc.y = y + h + 2;
   }
+  doc.x = MARGIN;
 }
 
 function titleBlock(doc: Doc, c: ReportContent, stamp: ReportStamp) {
@@ -50,11 +82,13 @@ function titleBlock(doc: Doc, c: ReportContent, stamp: ReportStamp) {
   const top = MARGIN;
   // Band with the mark, then a grid of fields: our own layout.
   doc.rect(MARGIN, top, w, 34).fill(INK);
-  doc.fillColor("#f5c16c").font("Helvetica-Bold").fontSize(14).text("TAUTLINE", MARGIN + 12, top + 10);
-  doc.fillColor("#ffffff").font("Helvetica").fontSize(10).text("Design check of a chain lift", MARGIN + 110, top + 12);
-  doc.fillColor(ACCENT).font("Helvetica-Bold").fontSize(10).text(stamp.status.toUpperCase(), MARGIN, top + 12, { width: w - 12, align: "right" });
+  doc.fillColor("#f5c16c").font(BOLD).fontSize(14).text("TAUTLINE", MARGIN + 12, top + 10);
+  doc.fillColor("#ffffff").font(BODY).fontSize(10).text("Design check of a chain lift", MARGIN + 110, top + 12);
+  doc.fillColor(ACCENT).font(BOLD).fontSize(10).text(stamp.status.toUpperCase(), MARGIN, top + 12, { width: w - 12, align: "right" });
+  // The whole title, wrapped: never cut.
+  doc.font(BOLD).fontSize(13).fillColor(INK).text(c.title, MARGIN, top + 42, { width: w });
   const cells: [string, string][] = [
-    ["Report", `${c.title} (no. ${stamp.reportId})`],
+    ["Report", `no. ${stamp.reportId}`],
     ["Organisation", c.organisation],
     ["Lift", `${c.lift.name}${c.lift.site ? `, ${c.lift.site}` : ""}: revision ${c.lift.revision}`],
     ["Scenario", `${c.scenario.name} (no. ${c.scenario.id})`],
@@ -64,22 +98,24 @@ function titleBlock(doc: Doc, c: ReportContent, stamp: ReportStamp) {
     ["Reviewer", stamp.reviewer ? `${stamp.reviewer}, approved ${stamp.approvedAt?.slice(0, 10) ?? ""}` : "not yet approved"],
   ];
   const colW = w / 2;
-  const rowH = 26;
-  let y = top + 34;
+  let y = doc.y + 6;
   doc.lineWidth(0.6).strokeColor(INK);
   for (let i = 0; i < cells.length; i += 2) {
+    // Each cell wraps; the row is as tall as its taller cell (nothing is cut).
+    doc.font(BODY).fontSize(9);
+    const rowH = 16 + Math.max(...[cells[i], cells[i + 1]].filter(Boolean).map((cell) => doc.heightOfString(cell![1], { width: colW - 10 })));
     for (let j = 0; j < 2; j++) {
       const cell = cells[i + j];
       if (!cell) continue;
       const x = MARGIN + j * colW;
       doc.rect(x, y, colW, rowH).stroke();
-      doc.font("Helvetica").fontSize(7).fillColor(MUTED).text(cell[0].toUpperCase(), x + 5, y + 3, { width: colW - 10 });
-      doc.font("Helvetica").fontSize(9).fillColor(INK).text(cell[1], x + 5, y + 12, { width: colW - 10, height: 12, ellipsis: true });
+      doc.font(BODY).fontSize(7).fillColor(MUTED).text(cell[0].toUpperCase(), x + 5, y + 3, { width: colW - 10 });
+      doc.font(BODY).fontSize(9).fillColor(INK).text(cell[1], x + 5, y + 12, { width: colW - 10 });
     }
     y += rowH;
   }
   doc.rect(MARGIN, y, w, 18).stroke();
-  doc.font("Courier").fontSize(7.5).fillColor(INK).text(`Content hash (sha256): ${stamp.contentHash}`, MARGIN + 5, y + 5, { width: w - 10 });
+  doc.font(MONO).fontSize(7.5).fillColor(INK).text(`Content hash (sha256): ${stamp.contentHash}`, MARGIN + 5, y + 5, { width: w - 10 });
   doc.y = y + 26;
   doc.x = MARGIN;
 }
@@ -88,7 +124,7 @@ function linePlot(doc: Doc, title: string, t: number[], ys: number[], yLabel: (v
   const w = doc.page.width - 2 * MARGIN;
   const h = 130;
   if (doc.y > doc.page.height - h - 90) doc.addPage();
-  doc.font("Helvetica-Bold").fontSize(9).fillColor(INK).text(title, MARGIN);
+  doc.font(BOLD).fontSize(9).fillColor(INK).text(title, MARGIN);
   const x0 = MARGIN + 55;
   const y0 = doc.y + 4;
   const pw = w - 65;
@@ -101,7 +137,7 @@ function linePlot(doc: Doc, title: string, t: number[], ys: number[], yLabel: (v
     lo -= 1;
   }
   doc.lineWidth(0.5).strokeColor(MUTED).rect(x0, y0, pw, ph).stroke();
-  doc.font("Helvetica").fontSize(7).fillColor(MUTED);
+  doc.font(BODY).fontSize(7).fillColor(MUTED);
   for (let i = 0; i <= 4; i++) {
     const v = lo + ((hi - lo) * i) / 4;
     const y = y0 + ph - (ph * i) / 4;
@@ -136,45 +172,53 @@ function checkValue(v: number | boolean | null, unit: string, units: "si" | "us"
 
 function checksTable(doc: Doc, checks: ReportCheck[], units: "si" | "us") {
   const cols = [
-    { h: "Check", w: 140 },
+    { h: "Check", w: 130 },
     { h: "State", w: 50 },
-    { h: "Value", w: 60 },
-    { h: "Limit", w: 55 },
-    { h: "Margin", w: 45 },
-    { h: "Reason", w: 145 },
+    { h: "Value", w: 62 },
+    { h: "Limit", w: 62 },
+    { h: "Margin", w: 42 },
+    { h: "Reason", w: 149 },
   ];
-  let y = doc.y;
-  let x = MARGIN;
-  doc.font("Helvetica-Bold").fontSize(8).fillColor(INK);
-  for (const c of cols) {
-    doc.text(c.h, x, y, { width: c.w - 4 });
-    x += c.w;
-  }
-  y = doc.y + 3;
-  for (const ch of checks) {
-    if (y > doc.page.height - 100) {
-      doc.addPage();
-      y = MARGIN;
+  const bottom = doc.page.height - 70;
+  const header = (y: number) => {
+    let x = MARGIN;
+    doc.font(BOLD).fontSize(8).fillColor(INK);
+    for (const c of cols) {
+      doc.text(c.h, x, y, { width: c.w - 4 });
+      x += c.w;
     }
-    const cells = [
-      ch.label,
-      ch.state,
-      checkValue(ch.value, ch.unit, units),
-      checkValue(ch.limit, ch.unit, units),
-      checkMargin(ch),
-      ch.reason,
-    ];
-    let rowBottom = y;
-    x = MARGIN;
+    return doc.y + 3;
+  };
+  const cellsOf = (ch: ReportCheck) => [ch.label, ch.state, checkValue(ch.value, ch.unit, units), checkValue(ch.limit, ch.unit, units), checkMargin(ch), ch.reason];
+  const heightOf = (cells: string[]) =>
+    Math.max(
+      ...cells.map((text, i) => {
+        doc.font(i === 1 ? BOLD : BODY).fontSize(i === 5 ? 7 : 8);
+        return doc.heightOfString(text, { width: cols[i].w - 4 });
+      }),
+    );
+  const rowsOut = checks.map((ch) => ({ ch, cells: cellsOf(ch), h: heightOf(cellsOf(ch)) }));
+  // The header never stands alone: it starts on a page with room for it and two rows.
+  const firstTwo = rowsOut.slice(0, 2).reduce((a, r) => a + r.h + 4, 14);
+  if (doc.y + firstTwo > bottom) doc.addPage();
+  let y = header(doc.y);
+  rowsOut.forEach(({ ch, cells, h }, idx) => {
+    // A row never splits; a page break repeats the header. The second-last row takes the last one with
+    // it, so no row stands alone at the top of a page.
+    const need = idx === rowsOut.length - 2 ? h + rowsOut[idx + 1].h + 8 : h + 4;
+    if (y + need > bottom) {
+      doc.addPage();
+      y = header(MARGIN);
+    }
+    let x = MARGIN;
     cells.forEach((text, i) => {
-      doc.font(i === 1 ? "Helvetica-Bold" : "Helvetica").fontSize(i === 5 ? 7 : 8).fillColor(i === 1 ? STATE_COLOUR[ch.state] ?? INK : INK);
+      doc.font(i === 1 ? BOLD : BODY).fontSize(i === 5 ? 7 : 8).fillColor(i === 1 ? STATE_COLOUR[ch.state] ?? INK : INK);
       doc.text(text, x, y, { width: cols[i].w - 4 });
-      rowBottom = Math.max(rowBottom, doc.y);
       x += cols[i].w;
     });
-    y = rowBottom + 4;
+    y += h + 4;
     doc.moveTo(MARGIN, y - 2).lineTo(doc.page.width - MARGIN, y - 2).lineWidth(0.2).strokeColor("#d0d7de").stroke();
-  }
+  });
   doc.y = y;
   doc.x = MARGIN;
 }
@@ -186,6 +230,8 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     bufferPages: true,
     info: { Title: c.title, Author: stamp.author ?? "", Subject: "Tautline design check", Creator: "Tautline" },
   });
+  for (const [name, file] of Object.entries(FONT_FILES)) doc.registerFont(name, path.join(FONT_DIR, file));
+  doc.font(BODY);
   const chunks: Buffer[] = [];
   doc.on("data", (b: Buffer) => chunks.push(b));
   const finished = new Promise<Buffer>((resolve, reject) => {
@@ -196,23 +242,29 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
   const s = c.inputs;
 
   titleBlock(doc, c, stamp);
-  doc.font("Helvetica-Oblique").fontSize(8.5).fillColor(ACCENT).text(c.cautions.slice(0, 2).join(" "), MARGIN);
+  doc.font(ITALIC).fontSize(8.5).fillColor(ACCENT).text(c.cautions.slice(0, 2).join(" "), MARGIN);
 
   heading(doc, "1. Inputs");
+  const loading = c.scenario.loading;
   rows(doc, [
+    ...(c.case ? ([["Case", c.case]] as [string, string][]) : []),
     ["Lift revision", `${c.lift.name}, revision ${c.lift.revision}${c.lift.changeSummary ? ` (${c.lift.changeSummary})` : ""}`],
     ["Lift geometry", `angle ${s.lift.angle}°, incline ${fmtQ(s.lift.inclineLength, "length", u)}, chain from ${fmtQ(s.lift.chainFrom, "length", u)} to ${fmtQ(s.lift.chainTo, "length", u)}`],
-    ["Chain", `pitch ${fmtQ(s.chain.pitch, "shortLength", u, 1)}, ${fmtQ(s.chain.massPerLength, "massPerLength", u)}, breaking strength ${fmtQ(s.chain.breakingStrength, "force", u, 1)}, E·A ${fmtQ(s.chain.axialStiffness, "stiffness", u, 0)}`],
-    ["Drive", `chain speed ${fmtQ(s.drive.speed, "speed", u)}, ${s.drive.sprocketTeeth}-tooth sprocket, efficiency ${s.drive.efficiency}`],
+    ["Chain", `pitch ${fmtQ(s.chain.pitch, "shortLength", u, 1)}, ${fmtQ(s.chain.massPerLength, "massPerLength", u)}, breaking strength ${fmtQ(s.chain.breakingStrength, "force", u, 1)}, axial stiffness E·A ${fmtQ(s.chain.axialStiffness, "force", u, 0)}`],
+    ["Drive", `chain speed ${fmtQ(s.drive.speed, "speed", u)}, ${s.drive.sprocketTeeth}-tooth sprocket, efficiency ${Math.round(s.drive.efficiency * 100)} %`],
     ["Take-up", `mass ${fmtQ(s.takeUp.mass, "mass", u, 0)}, travel ${fmtQ(s.takeUp.travel, "length", u)}`],
-    ["Train", `${c.train.name}: ${s.train.cars} cars of ${fmtQ(s.train.carMass, "mass", u, 0)} (empty ${fmtQ(c.train.carMassEmpty, "mass", u, 0)}, ${c.train.seatsPerCar} seats)`],
-    ["Loading", c.scenario.loading],
+    [
+      "Train",
+      `${c.train.name}: ${s.train.cars} cars of ${fmtQ(s.train.carMass, "mass", u, 0)} each as run` +
+        (loading === "empty" ? "" : ` (empty ${fmtQ(c.train.carMassEmpty, "mass", u, 0)}, ${c.train.seatsPerCar} seats per car)`),
+    ],
+    ["Loading", LOADING_WORDS[loading] ?? loading],
     ["Entry speed", fmtQ(s.train.entrySpeed, "speed", u)],
-    ["Run settings", `${s.run.duration} s, ${s.run.segments} segments, ${s.run.integrator}`],
+    ["Run settings", `${s.run.duration} s simulated, ${s.run.segments} chain segments, ${s.run.integrator} integrator`],
   ]);
 
   heading(doc, "2. Assumptions and their sources");
-  rows(doc, c.assumptions.map((a) => [`${a.key} = ${a.value}`, a.source]));
+  rows(doc, c.assumptions.map((a) => [`${a.label}: ${a.value}`, a.source]));
 
   heading(doc, "3. Statics");
   const st = c.statics;
@@ -225,21 +277,11 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     ["Drive pull / sprocket torque", `${fmtQ(st.drivePull, "force", u)} / ${fmtQ(st.torque, "torque", u, 0)}`],
     ["Chordal speed variation", `${(st.chordalSpeedVariation * 100).toFixed(2)} %`],
     ["Static safety factor", fmtN(st.safetyFactor)],
+    ["Longitudinal wave speed in the chain, √(E·A ÷ mass per length)", fmtQ(st.waveSpeed, "speed", u, 0)],
   ]);
 
   heading(doc, "4. Dynamic results");
-  const r = (c.run?.summary ?? {}) as Record<string, number | null>;
-  rows(doc, [
-    ["Peak tension", fmtQ(r.peakTension, "force", u)],
-    ["Snatch factor", fmtN(r.snatchFactor)],
-    ["Lowest safety factor", fmtN(r.minSafetyFactor)],
-    ["Pick-up delay", r.pickupDelay === null ? "—" : `${fmtN(r.pickupDelay)} s`],
-    ["Rollback distance", fmtQ(r.rollbackDistance, "shortLength", u, 1)],
-    ["ARD catches", String(r.ardCatches ?? 0)],
-    ["Take-up excursion", `${fmtQ(r.takeUpMaxDrop, "shortLength", u, 0)} down, ${fmtQ(r.takeUpMaxRise, "shortLength", u, 0)} up`],
-    ["Peak drive power", fmtQ(r.peakDrivePower, "power", u, 1)],
-    ["Peak rider acceleration", `${fmtN(r.peakRiderAccel)} g`],
-  ]);
+  rows(doc, headlineFigures(c));
   if (c.series && c.series.t.length > 1) {
     const sr = c.series;
     linePlot(doc, "Highest chain tension against time", sr.t, sr.maxTension, (v) => fmtQ(v, "force", u, 1));
@@ -258,12 +300,25 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     ]);
   }
 
-  heading(doc, `${c.study ? 7 : 6}. Revision history`);
+  const n = c.study ? 7 : 6;
+  heading(doc, `${n}. Revision history of the lift`);
   rows(doc, c.revisions.map((rv) => [`Revision ${rv.number} (${rv.createdAt.slice(0, 10)})`, rv.changeSummary ?? "—"]));
-  rows(doc, [["Review", stamp.reviewer ? `Approved by ${stamp.reviewer} on ${stamp.approvedAt?.slice(0, 10)}` : `Status: ${stamp.status}`]]);
+
+  heading(doc, `${n + 1}. Review history`);
+  const reviews = stamp.reviews ?? [];
+  const ACTION_WORDS: Record<string, string> = { submit: "Submitted for review", return: "Returned to the author", approve: "Approved" };
+  rows(
+    doc,
+    reviews.length
+      ? reviews.map((v) => [
+          `${v.at.slice(0, 16).replace("T", " ")} UTC`,
+          `${ACTION_WORDS[v.action] ?? v.action} by ${v.userName ?? "a former user"}${v.comment ? `: “${v.comment}”` : ""}`,
+        ])
+      : [["—", `Not yet reviewed (the report is a ${stamp.status} report).`]],
+  );
 
   heading(doc, "Cautions");
-  for (const line of c.cautions) doc.font("Helvetica").fontSize(9).fillColor(INK).text(`• ${line}`, MARGIN);
+  for (const line of c.cautions) doc.font(BODY).fontSize(9).fillColor(INK).text(`• ${line}`, MARGIN);
 
   // Footer on every page: page numbers and the report number.
   const range = doc.bufferedPageRange();
@@ -271,7 +326,7 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     doc.switchToPage(i);
     const y = doc.page.height - 35;
     doc.page.margins.bottom = 0;
-    doc.font("Helvetica").fontSize(7.5).fillColor(MUTED);
+    doc.font(BODY).fontSize(7.5).fillColor(MUTED);
     doc.text(`Tautline design check no. ${stamp.reportId} · ${stamp.status}`, MARGIN, y, { width: 300, lineBreak: false });
     doc.text(`Page ${i + 1} of ${range.count}`, doc.page.width - MARGIN - 100, y, { width: 100, align: "right", lineBreak: false });
   }

@@ -8,8 +8,14 @@ import { z } from "zod";
 import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { badRequest, conflict, fromZod } from "@/lib/http/errors";
+import { Op, type WhereOptions } from "sequelize";
+import { likePattern, listQuerySchema, pageOptions, queryId } from "@/lib/http/list-query";
+import { validate } from "@/lib/http/validate";
+import { REPORT_STATUSES } from "@/models/Report";
+import { approvalSummary, type ApprovalSummary } from "@/lib/review/summary";
 import { buildReportContent, contentHash } from "./content";
-import { drawReportPdf, type ReportStamp } from "./pdf";
+import { drawReportPdf, type ReportReviewLine, type ReportStamp } from "./pdf";
+import { reportSnapshot, type ReportSnapshot } from "./snapshot";
 
 export const createReportSchema = z
   .object({
@@ -37,8 +43,17 @@ export interface ReportView {
   contentHash: string | null;
   version: number;
   createdAt: string;
+  /** For lists and the reviewer queue: what the report is about, by name. */
+  scenarioName?: string | null;
+  authorName?: string | null;
   reviews?: { id: number; action: string; userId: number | null; userName: string | null; comment: string | null; contentHash: string | null; at: string }[];
-  links: { pdf: string };
+  /** The reviewer's latest return comment while the report is returned (detail only). */
+  returnComment?: string | null;
+  /** What approval signs (detail only; from the snapshot once approved). */
+  approvalSummary?: ApprovalSummary | null;
+  /** An approved report's frozen inputs (detail only). */
+  snapshot?: Omit<ReportSnapshot, "content"> | null;
+  links: { pdf: string; self: string };
 }
 
 export function toReportView(r: Report): ReportView {
@@ -58,7 +73,7 @@ export function toReportView(r: Report): ReportView {
     contentHash: r.contentHash,
     version: r.version,
     createdAt: r.createdAt.toISOString(),
-    links: { pdf: `/api/reports/${r.id}/pdf` },
+    links: { pdf: `/api/reports/${r.id}/pdf`, self: `/reports/${r.id}` },
   };
 }
 
@@ -112,25 +127,81 @@ export async function createReport(actor: Actor, raw: unknown): Promise<ReportVi
   return toReportView(report);
 }
 
-export async function listReports(actor: Actor, q: { scenarioId?: number; status?: string }) {
+export const reportListQuery = listQuerySchema({
+  sortFields: ["id", "submittedAt", "title"],
+  defaultSort: "id",
+  defaultOrder: "desc",
+  filters: {
+    scenarioId: queryId("scenarioId").optional(),
+    liftId: queryId("liftId").optional(),
+    authorId: queryId("authorId").optional(),
+    status: z.enum(REPORT_STATUSES, { error: `status must be one of ${REPORT_STATUSES.join(", ")}` }).optional(),
+  },
+});
+export type ReportListQuery = z.input<typeof reportListQuery>;
+
+/** Reports of the organisation, newest first; filters make the reviewer queue (status=submitted, by lift, author, title). */
+export async function listReports(actor: Actor, query: ReportListQuery = {}) {
   assertCan(actor, "report:read");
-  const { Report } = getModels();
-  const rows = await Report.findAll({
-    where: { organisationId: actor.organisationId, ...(q.scenarioId ? { scenarioId: q.scenarioId } : {}), ...(q.status ? { status: q.status } : {}) },
-    order: [["id", "DESC"]],
-    limit: 200,
+  const q = validate(reportListQuery, query);
+  const { Report, Scenario, User } = getModels();
+  let scenarioIds: number[] | undefined;
+  if (q.liftId) {
+    scenarioIds = (await Scenario.findAll({ where: { organisationId: actor.organisationId, liftId: q.liftId }, attributes: ["id"] })).map((x) => x.id);
+  }
+  const where: WhereOptions = {
+    organisationId: actor.organisationId,
+    ...(q.scenarioId ? { scenarioId: q.scenarioId } : {}),
+    ...(scenarioIds ? { scenarioId: scenarioIds } : {}),
+    ...(q.authorId ? { authorId: q.authorId } : {}),
+    ...(q.status ? { status: q.status } : {}),
+    ...(q.q ? { title: { [Op.like]: likePattern(q.q) } } : {}),
+  };
+  const { rows, count } = await Report.findAndCountAll({
+    where,
+    ...pageOptions(q),
   });
-  return { items: rows.map(toReportView) };
+  const scenarios = new Map(
+    (await Scenario.findAll({ where: { id: [...new Set(rows.map((r) => r.scenarioId))] }, attributes: ["id", "name"] })).map((x) => [x.id, x.name]),
+  );
+  const users = new Map((await User.findAll({ where: { organisationId: actor.organisationId }, attributes: ["id", "name"] })).map((u) => [u.id, u.name]));
+  return {
+    items: rows.map((r) => ({ ...toReportView(r), scenarioName: scenarios.get(r.scenarioId) ?? null, authorName: r.authorId ? users.get(r.authorId) ?? null : null })),
+    total: count,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
+}
+
+function withoutContent(snap: ReportSnapshot): Omit<ReportSnapshot, "content"> {
+  const rest: Partial<ReportSnapshot> = { ...snap };
+  delete rest.content;
+  return rest as Omit<ReportSnapshot, "content">;
 }
 
 export async function getReport(actor: Actor, id: number): Promise<ReportView> {
   assertCan(actor, "report:read");
-  const { ReportReview, User } = getModels();
-  const r = await findOwnReport(actor, id);
+  const { ReportReview, User, Report, Scenario } = getModels();
+  const r = ownOr404(await Report.scope("withSnapshot").findByPk(id), actor, "Report");
   const reviews = await ReportReview.findAll({ where: { reportId: r.id }, order: [["id", "ASC"]] });
   const users = new Map((await User.findAll({ where: { organisationId: actor.organisationId }, attributes: ["id", "name"] })).map((u) => [u.id, u.name]));
+  const snap = reportSnapshot(r);
+  let summary: ApprovalSummary | null = null;
+  try {
+    const content = await buildReportContent(r);
+    summary = approvalSummary(content, r.status === "approved" && r.contentHash ? r.contentHash : contentHash(content));
+  } catch {
+    summary = null; // a draft whose run is gone: the page says so through the PDF/submit answers
+  }
+  const lastReturn = [...reviews].reverse().find((v) => v.action === "return");
+  const scenario = await Scenario.findByPk(r.scenarioId, { attributes: ["id", "name"] });
   return {
     ...toReportView(r),
+    scenarioName: scenario?.name ?? null,
+    authorName: r.authorId ? users.get(r.authorId) ?? null : null,
+    returnComment: r.status === "returned" ? lastReturn?.comment ?? null : null,
+    approvalSummary: summary,
+    snapshot: snap ? withoutContent(snap) : null,
     reviews: reviews.map((v) => ({
       id: v.id,
       action: v.action,
@@ -149,8 +220,17 @@ async function userName(id: number | null): Promise<string | null> {
   return u?.name ?? null;
 }
 
-/** Draws the report as it stands now (content hash of the current content). */
-export async function renderReport(report: Report): Promise<{ pdf: Buffer; hash: string }> {
+/** The review trail as the PDF prints it, oldest first. */
+async function reviewLines(report: Report): Promise<ReportReviewLine[]> {
+  const { ReportReview, User } = getModels();
+  const reviews = await ReportReview.findAll({ where: { reportId: report.id }, order: [["id", "ASC"]] });
+  const ids = [...new Set(reviews.map((v) => v.userId).filter((x): x is number => x !== null))];
+  const names = new Map((ids.length ? await User.findAll({ where: { id: ids }, attributes: ["id", "name"] }) : []).map((u) => [u.id, u.name]));
+  return reviews.map((v) => ({ action: v.action, userName: v.userId ? names.get(v.userId) ?? null : null, at: v.at.toISOString(), comment: v.comment }));
+}
+
+/** Draws the report as it stands now (content hash of the current content); `pending` is a review step being written with it. */
+export async function renderReport(report: Report, pending?: ReportReviewLine): Promise<{ pdf: Buffer; hash: string }> {
   const content = await buildReportContent(report);
   const hash = contentHash(content);
   const stamp: ReportStamp = {
@@ -160,6 +240,7 @@ export async function renderReport(report: Report): Promise<{ pdf: Buffer; hash:
     reviewer: report.status === "approved" ? await userName(report.reviewerId) : null,
     approvedAt: report.approvedAt?.toISOString() ?? null,
     contentHash: hash,
+    reviews: [...(await reviewLines(report)), ...(pending ? [pending] : [])],
   };
   return { pdf: await drawReportPdf(content, stamp), hash };
 }
@@ -174,4 +255,15 @@ export async function reportPdf(actor: Actor, id: number): Promise<{ pdf: Buffer
     return { pdf: r.pdf, filename };
   }
   return { pdf: (await renderReport(r)).pdf, filename };
+}
+
+/** The approved report that froze a scenario (the latest, if several), for the scenario page's banner. */
+export async function approvingReport(actor: Actor, scenarioId: number): Promise<{ id: number; title: string } | null> {
+  const { Report } = getModels();
+  const r = await Report.findOne({
+    where: { organisationId: actor.organisationId, scenarioId, status: "approved" },
+    order: [["approvedAt", "DESC"]],
+    attributes: ["id", "title"],
+  });
+  return r ? { id: r.id, title: r.title } : null;
 }

@@ -33,3 +33,21 @@ export function reviewMail(p: {
       .join("")}</body></html>`,
   };
 }
+
+/** The e-mail to each reviewer when a report is submitted: a link straight to the report, and to the queue. */
+export function submittedMail(p: { reviewerName: string; authorName: string; title: string; scenarioName: string; link: string; queueLink: string }): MailContent {
+  const lines = [
+    `Hello ${p.reviewerName},`,
+    `${p.authorName} submitted the design check "${p.title}"${p.scenarioName ? ` (scenario ${p.scenarioName})` : ""} for review.`,
+    `Open the report: ${p.link}`,
+    `Reports awaiting review: ${p.queueLink}`,
+    "Results support, and never replace, review by a qualified engineer.",
+  ];
+  return {
+    subject: `Tautline: "${p.title}" awaits your review`,
+    text: lines.join("\n\n"),
+    html: `<!doctype html><html><body style="font-family:Helvetica,Arial,sans-serif;color:#10202e">${lines
+      .map((l) => `<p>${escapeHtml(l)}</p>`)
+      .join("")}</body></html>`,
+  };
+}

@@ -74,6 +74,8 @@ export const listRunsQuerySchema = z.object({
   pageSize: intParam("pageSize", 1, 100, 20),
   status: z.enum(RUN_STATUSES, { error: `status must be one of ${RUN_STATUSES.join(", ")}` }).optional(),
   sort: z.enum(["newest", "oldest"], { error: "sort must be newest or oldest" }).default("newest"),
+  /** own: the scenario's own runs (what-if runs included); study: cases of its studies; all: both. */
+  source: z.enum(["own", "study", "all"], { error: "source must be own, study or all" }).default("all"),
 });
 
 export type ListRunsQuery = z.output<typeof listRunsQuerySchema>;

@@ -1,4 +1,4 @@
-import { Op, type WhereOptions } from "sequelize";
+import { Op, type Transaction, type WhereOptions } from "sequelize";
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
 import { ownOr404, type Actor } from "@/lib/http/actor";
@@ -144,19 +144,34 @@ export async function getRun(user: Actor, runId: number): Promise<RunView> {
   return toRunView(await findOwnRun(user, runId), { inputs: true });
 }
 
+/** A run that is a case of a study: listed with a label, never opened as the scenario's own result. */
+export interface StudyCaseLabel {
+  studyId: number;
+  studyName: string;
+  index: number;
+}
+
 /** One page of runs, in the project's list shape (lib/http/list-query.ts). */
 export interface RunPage {
-  items: RunView[];
+  items: (RunView & { studyCase: StudyCaseLabel | null })[];
   total: number;
   page: number;
   pageSize: number;
 }
 
-export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery): Promise<RunPage> {
+const STUDY_RUN_IDS = "(SELECT sc.run_id FROM study_cases sc WHERE sc.run_id IS NOT NULL)";
+
+export async function listRuns(user: Actor, scenarioId: number, q: Omit<ListRunsQuery, "source"> & Partial<Pick<ListRunsQuery, "source">>): Promise<RunPage> {
   const { Run } = getModels();
   await recoverOnce();
   await assertOwnScenario(user, scenarioId);
-  const where: WhereOptions = { organisationId: user.organisationId, scenarioId, ...(q.status ? { status: q.status } : {}) };
+  const bySource =
+    q.source === "own"
+      ? { id: { [Op.notIn]: Run.sequelize!.literal(STUDY_RUN_IDS) } }
+      : q.source === "study"
+        ? { id: { [Op.in]: Run.sequelize!.literal(STUDY_RUN_IDS) } }
+        : {};
+  const where: WhereOptions = { organisationId: user.organisationId, scenarioId, ...(q.status ? { status: q.status } : {}), ...bySource };
   const { rows, count } = await Run.findAndCountAll({
     where,
     attributes: { exclude: ["result", "inputs"] },
@@ -164,7 +179,33 @@ export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  return { items: rows.map((r) => toRunView(r)), total: count, page: q.page, pageSize: q.pageSize };
+  const caseOf = await studyCaseLabels(rows.map((r) => r.id));
+  return {
+    items: rows.map((r) => ({ ...toRunView(r), studyCase: caseOf.get(r.id) ?? null })),
+    total: count,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
+}
+
+/** Run id → its study-case label, for lists that show runs of every kind. */
+export async function studyCaseLabels(runIds: number[]): Promise<Map<number, StudyCaseLabel>> {
+  const { StudyCase, Study } = getModels();
+  if (!runIds.length) return new Map();
+  const cases = await StudyCase.findAll({ where: { runId: runIds }, attributes: ["runId", "studyId", "idx"] });
+  const names = new Map(
+    (cases.length ? await Study.findAll({ where: { id: [...new Set(cases.map((c) => c.studyId))] }, attributes: ["id", "name"] }) : []).map((st) => [st.id, st.name]),
+  );
+  return new Map(cases.map((c) => [c.runId!, { studyId: c.studyId, studyName: names.get(c.studyId) ?? `Study ${c.studyId}`, index: c.idx + 1 }]));
+}
+
+/** The study a run is a case of (for the run page's label), or null. */
+export async function studyCaseOf(runId: number): Promise<StudyCaseLabel | null> {
+  const { StudyCase, Study } = getModels();
+  const c = await StudyCase.findOne({ where: { runId }, attributes: ["studyId", "idx"] });
+  if (!c) return null;
+  const st = await Study.findByPk(c.studyId, { attributes: ["id", "name"] });
+  return { studyId: c.studyId, studyName: st?.name ?? `Study ${c.studyId}`, index: c.idx + 1 };
 }
 
 /** Cancels a queued or running run; a finished one answers 409. */
@@ -207,8 +248,12 @@ export async function deleteRun(user: Actor, runId: number, version: string | nu
   if (Number(version) !== run.version) {
     throw conflict(`The run has changed since you loaded it (version ${run.version}, not ${version}); reload and try again.`);
   }
+  await assertRunUnreferenced(run.id);
   if (!isFinished(run.status)) await abortRun(run.id);
   await Run.sequelize!.transaction(async (transaction) => {
+    // Checked again under a lock of the run, so a report or session made meanwhile cannot lose its run.
+    await Run.findByPk(run.id, { transaction, lock: transaction.LOCK.UPDATE, attributes: ["id"] });
+    await assertRunUnreferenced(run.id, transaction);
     await Run.destroy({ where: { id: run.id }, transaction });
     await recordAudit({
       transaction,
@@ -220,6 +265,27 @@ export async function deleteRun(user: Actor, runId: number, version: string | nu
       after: null,
     });
   });
+}
+
+/**
+ * A run that a design-check report, a replay session or a review comment points at is part of a record:
+ * deleting it answers 409 naming what holds it (the report's PDF and submission keep working).
+ */
+async function assertRunUnreferenced(runId: number, transaction?: Transaction): Promise<void> {
+  const { Report, TrainingItem, Comment } = getModels();
+  const [reports, items, comments] = await Promise.all([
+    Report.findAll({ where: { runId }, attributes: ["id", "title", "status"], transaction }),
+    TrainingItem.findAll({ where: { runId }, attributes: ["id", "sessionId"], transaction }),
+    Comment.count({ where: { runId }, transaction }),
+  ]);
+  const reasons: string[] = [];
+  if (reports.length) reasons.push(`design-check report${reports.length > 1 ? "s" : ""} ${reports.map((r) => `no. ${r.id} "${r.title}" (${r.status})`).join(", ")}`);
+  const sessions = [...new Set(items.map((i) => i.sessionId))];
+  if (sessions.length) reasons.push(`replay session${sessions.length > 1 ? "s" : ""} no. ${sessions.join(", ")}`);
+  if (comments) reasons.push(`${comments} review comment${comments > 1 ? "s" : ""}`);
+  if (reasons.length) {
+    throw conflict(`This run cannot be deleted: it is used by ${reasons.join("; ")}. Remove it from those first, or keep it.`);
+  }
 }
 
 export interface RunResult {

@@ -1,4 +1,4 @@
-import { Op, type WhereOptions } from "sequelize";
+import { Op, type Transaction, type WhereOptions } from "sequelize";
 import { z } from "zod";
 import { getSequelize } from "@/lib/db/sequelize";
 import { getModels } from "@/models";
@@ -113,10 +113,31 @@ export async function updateTrain(actor: Actor, id: number, input: unknown): Pro
     const data = validate(trainInputSchema, { ...trainData(row), ...changes });
     assertVersion(row.version, version, "train");
     const before = trainView(row);
+    await keepTrainForApprovedScenarios(actor, row, transaction);
     await row.update({ ...data, version: row.version + 1 }, { transaction });
     await recordAudit({ transaction, actor, entity: "train", entityId: row.id, action: "update", before, after: trainView(row) });
     return trainView(row);
   });
+}
+
+/**
+ * Approval froze the scenarios that use this train: before the train changes, they move to an archived
+ * copy of it as it stands, so what was approved (and new runs of it) never changes. Other scenarios
+ * follow the edit as before.
+ */
+async function keepTrainForApprovedScenarios(actor: Actor, row: Train, transaction: Transaction): Promise<void> {
+  const { Train, Scenario } = getModels();
+  const frozen = await Scenario.findAll({ where: { trainId: row.id, frozenAt: { [Op.ne]: null } }, transaction, lock: transaction.LOCK.UPDATE });
+  if (!frozen.length) return;
+  const copy = await Train.create(
+    { ...trainData(row), name: `${row.name.slice(0, 170)} (as approved)`, organisationId: row.organisationId, archivedAt: new Date(), createdBy: actor.id },
+    { transaction },
+  );
+  await recordAudit({ transaction, actor, entity: "train", entityId: copy.id, action: "create", before: null, after: { ...trainView(copy), copyOf: row.id } });
+  for (const s of frozen) {
+    await Scenario.update({ trainId: copy.id }, { where: { id: s.id }, transaction });
+    await recordAudit({ transaction, actor, entity: "scenario", entityId: s.id, action: "update", before: { trainId: row.id }, after: { trainId: copy.id } });
+  }
 }
 
 /** Archives a train that scenarios use (they keep pointing at it), deletes an unused one. */

@@ -60,7 +60,9 @@ test("engineer submits, the author may not approve, the reviewer approves and th
   expect((await engineer.post(`/api/reports/${report.id}/submit`)).status()).toBe(200);
   const own = await engineer.post(`/api/reports/${report.id}/approve`, { data: {} });
   expect(own.status()).toBe(403);
-  const approved = await reviewer.post(`/api/reports/${report.id}/approve`, { data: { comment: "Checked over HTTP." } });
+  // Approval names the content the reviewer read: the approval summary's content hash.
+  const confirmedHash = (await (await reviewer.get(`/api/reports/${report.id}`)).json()).report.approvalSummary.contentHash;
+  const approved = await reviewer.post(`/api/reports/${report.id}/approve`, { data: { comment: "Checked over HTTP.", confirmedHash } });
   expect(approved.status()).toBe(200);
   const body = (await approved.json()).report;
   expect(body.status).toBe("approved");
@@ -83,7 +85,8 @@ test("a reviewer returns a report with a comment; the comment stays", async () =
   const { scenarioId, runId } = await finishedRun(admin, `Return over HTTP ${Date.now()}`);
   const report = (await (await admin.post("/api/reports", { data: { scenarioId, runId } })).json()).report;
   expect((await admin.post(`/api/reports/${report.id}/submit`)).status()).toBe(200);
-  expect((await admin.post(`/api/reports/${report.id}/approve`, { data: {} })).status()).toBe(403); // admin wrote it
+  const confirmedHash = (await (await admin.get(`/api/reports/${report.id}`)).json()).report.approvalSummary.contentHash;
+  expect((await admin.post(`/api/reports/${report.id}/approve`, { data: { confirmedHash } })).status()).toBe(403); // admin wrote it
   const noComment = await reviewer.post(`/api/reports/${report.id}/return`, { data: {} });
   expect(noComment.status()).toBe(400);
   const back = await reviewer.post(`/api/reports/${report.id}/return`, { data: { comment: "Add the motor rating." } });

@@ -31,6 +31,11 @@ async function pdfText(buf: Buffer): Promise<string> {
   }
 }
 
+/** The content hash the approval summary shows: what a reviewer confirms by approving. */
+async function summaryHash(reportId: number): Promise<string> {
+  return (await getReport(reviewer, reportId)).approvalSummary!.contentHash;
+}
+
 async function finishedRunOf(actor: Actor, name: string) {
   const { scenarioId } = await importForRuns(actor, shortScenarioFile(name, { duration: 8, segments: 16 }));
   const started = await startRun(actor, scenarioId, {});
@@ -97,12 +102,12 @@ describe("sign-off", () => {
     const { scenarioId, run } = await finishedRunOf(engineer, "Report: sign-off");
     const report = await createReport(engineer, { scenarioId, runId: run.id, title: "Sign-off of the test lift" });
     // Only a submitted report is reviewed; only the author submits.
-    await expectHttpError(() => approveReport(reviewer, report.id, {}), 409);
+    await expectHttpError(() => approveReport(reviewer, report.id, { confirmedHash: "0".repeat(64) }), 409);
     await expectHttpError(() => submitReport(org.as.admin, report.id), 403);
     await expectHttpError(() => submitReport(reviewer, report.id), 403);
     expect((await submitReport(engineer, report.id)).status).toBe("submitted");
     // An engineer may not review at all.
-    await expectHttpError(() => approveReport(engineer, report.id, {}), 403);
+    await expectHttpError(() => approveReport(engineer, report.id, { confirmedHash: "0".repeat(64) }), 403);
 
     const back = await returnReport(reviewer, report.id, { comment: "State the take-up travel assumption." });
     expect(back.status).toBe("returned");
@@ -110,7 +115,7 @@ describe("sign-off", () => {
     expect(noComment.issues[0].path).toBe("comment");
     await expectHttpError(() => returnReport(reviewer, report.id, { comment: "Again" }), 409); // already returned
     expect((await submitReport(engineer, report.id)).status).toBe("submitted");
-    const approved = await approveReport(reviewer, report.id, { comment: "Checked." });
+    const approved = await approveReport(reviewer, report.id, { comment: "Checked.", confirmedHash: await summaryHash(report.id) });
     expect(approved.status).toBe("approved");
     expect(approved.reviewerId).toBe(reviewer.id);
     expect(approved.approvedAt).not.toBeNull();
@@ -160,10 +165,11 @@ describe("sign-off", () => {
     const { scenarioId, run } = await finishedRunOf(admin, "Report: own approval");
     const report = await createReport(admin, { scenarioId, runId: run.id });
     await submitReport(admin, report.id);
-    const err = await expectHttpError(() => approveReport(admin, report.id, {}), 403);
+    const hash = await summaryHash(report.id);
+    const err = await expectHttpError(() => approveReport(admin, report.id, { confirmedHash: hash }), 403);
     expect(err.message).toBe(OWN_REPORT_MESSAGE);
     await expectHttpError(() => returnReport(admin, report.id, { comment: "Own" }), 403);
     expect((await getReport(admin, report.id)).status).toBe("submitted");
-    expect((await approveReport(reviewer, report.id, {})).status).toBe("approved");
+    expect((await approveReport(reviewer, report.id, { confirmedHash: await summaryHash(report.id) })).status).toBe("approved");
   });
 });

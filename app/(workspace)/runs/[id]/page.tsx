@@ -6,7 +6,10 @@ import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
 import { HttpError } from "@/lib/http/errors";
-import { getRun } from "@/lib/runs/service";
+import Link from "next/link";
+import { Badge } from "@/components/ui/Badge";
+import { RunComments } from "@/components/run/RunComments";
+import { getRun, studyCaseOf, type StudyCaseLabel } from "@/lib/runs/service";
 import { getModels } from "@/models";
 
 export const metadata: Metadata = { title: "Run" };
@@ -22,9 +25,13 @@ export default async function RunPage({
   const id = toId((await params).id);
   if (id === null) notFound();
   let scenarioName = "";
+  let scenarioId = 0;
+  let studyCase: StudyCaseLabel | null = null;
   try {
     const run = await getRun(user, id);
+    scenarioId = run.scenarioId;
     scenarioName = (await getModels().Scenario.findByPk(run.scenarioId, { attributes: ["name"] }))?.name ?? "";
+    studyCase = await studyCaseOf(run.id);
   } catch (err) {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
@@ -33,8 +40,25 @@ export default async function RunPage({
   const t = typeof sp.t === "string" ? Number(sp.t) : undefined;
   return (
     <>
-      <PageHeader eyebrow="Saved run" title={`Run ${id}`} description={scenarioName} />
+      <PageHeader
+        eyebrow={studyCase ? "Study case" : "Saved run"}
+        title={`Run ${id}`}
+        description={
+          <>
+            {scenarioName}
+            {studyCase && (
+              <span className="ml-2" data-testid="run-study-case">
+                <Badge tone="caution">study case</Badge>{" "}
+                <Link className="font-semibold text-ink-800 hover:underline" href={`/studies/${studyCase.studyId}`}>
+                  case {studyCase.index} of {studyCase.studyName}
+                </Link>
+              </span>
+            )}
+          </>
+        }
+      />
       <SavedRunView runId={id} units={user.units} canCancel={can(user.role, "run:cancel")} initialT={t !== undefined && Number.isFinite(t) ? t : undefined} fileStem={`run-${id}`} />
+      <RunComments scenarioId={scenarioId} runId={id} userId={user.id} canWrite={can(user.role, "comment:write")} isAdmin={user.role === "admin"} />
     </>
   );
 }

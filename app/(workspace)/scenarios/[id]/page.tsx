@@ -4,6 +4,10 @@ import { notFound } from "next/navigation";
 import { toId } from "@/lib/http/ids";
 import { ScenarioRunView } from "@/components/run/ScenarioRunView";
 import { ScenarioEditor } from "@/components/scenario/ScenarioEditor";
+import { FrozenScenarioBanner } from "@/components/report/FrozenScenarioBanner";
+import { approvingReport } from "@/lib/reports/service";
+import { ReportPanel } from "@/components/report/ReportPanel";
+import { listRuns } from "@/lib/runs/service";
 import { LOADING_LABELS, type ScenarioJson } from "@/components/scenario/types";
 import { Badge } from "@/components/ui/Badge";
 import { PageHeader } from "@/components/ui/PageHeader";
@@ -42,6 +46,14 @@ export default async function ScenarioPage({
   const sp = await searchParams;
   const t = typeof sp.t === "string" ? Number(sp.t) : undefined;
   const canWrite = can(user.role, "design:write") && !view.archivedAt && !view.frozenAt;
+  const frozenBy = view.frozenAt && can(user.role, "report:read") ? await approvingReport(user, view.id) : null;
+  // Reports are drawn from the scenario's own finished runs (a study's cases report from the study's page).
+  const reportRuns = can(user.role, "report:read")
+    ? (await listRuns(user, view.id, { page: 1, pageSize: 20, sort: "newest", source: "own", status: "done" })).items.map((r) => ({
+        id: r.id,
+        label: r.overrides ? "what-if" : "scenario as saved",
+      }))
+    : [];
   return (
     <>
       <PageHeader
@@ -68,6 +80,14 @@ export default async function ScenarioPage({
         }
       />
       <div className="space-y-5">
+        {view.frozenAt && (
+          <FrozenScenarioBanner
+            scenarioId={view.id}
+            frozenAt={String(view.frozenAt)}
+            report={frozenBy}
+            canCopy={can(user.role, "design:write")}
+          />
+        )}
         {canWrite && (
           <details className="rounded-lg border border-steel-300/70 bg-white" data-testid="edit-scenario">
             <summary className="cursor-pointer px-4 py-2.5 text-[13px] font-semibold text-ink-900">Edit the scenario</summary>
@@ -84,6 +104,16 @@ export default async function ScenarioPage({
           initialT={t !== undefined && Number.isFinite(t) ? t : undefined}
           fileStem={`scenario-${view.id}`}
         />
+        {can(user.role, "report:read") && (
+          <ReportPanel
+            scenarioId={view.id}
+            runIds={reportRuns}
+            canWrite={can(user.role, "report:write")}
+            canReview={can(user.role, "report:review")}
+            userId={user.id}
+            units={user.units}
+          />
+        )}
       </div>
     </>
   );
