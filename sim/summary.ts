@@ -110,7 +110,7 @@ export class SummaryRecorder {
     this.frontLimit = sys.track.crestStart;
     this.vSteady = 0.95 * sys.s.drive.speed;
     this.halfD = sys.s.chain.pitch / Math.sin(Math.PI / sys.s.drive.sprocketTeeth) / 2;
-    this.maxTrainSpeed = sys.s.train.entrySpeed;
+    this.maxTrainSpeed = sys.s.trains[0].entrySpeed;
   }
 
   /** Called after each accepted step, with the system evaluated at that state. */
