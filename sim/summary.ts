@@ -46,6 +46,9 @@ export interface TrainSummary {
 export interface RiderAccelExposure {
   forward: number[];
   backward: number[];
+  /** Largest filtered acceleration in each direction, g. */
+  forwardPeak: number;
+  backwardPeak: number;
 }
 
 export interface Summary {
@@ -126,7 +129,7 @@ export const SUMMARY_DEFINITIONS = {
   takeUpMaxDrop: "Largest drop of the counterweight below its starting position.",
   takeUpMaxRise: "Largest rise of the counterweight above its starting position.",
   takeUpCreepRate:
-    "Rate of the counterweight's drop over the steady climb, from a least-squares fit of a trend plus the surge sinusoid over whole periods. Negative while it rises: the loaded length shrinks as the train climbs, so the weight rises at about F·v/(2·E·A).",
+    "Rate of the counterweight's drop over the steady climb: its position averaged over one surge period, then a least-squares trend (plus a sinusoid at the surge period). Negative while it rises: the loaded length shrinks as the train climbs, so the weight rises at about F·v/(2·E·A).",
   peakRiderAccel: "Largest longitudinal acceleration of the train, in g, after a first-order low-pass of 0.05 s.",
   riderAccelExposure: "Longest continuous time the filtered rider acceleration stayed above each level, forward and backward.",
   minSafetyFactor: "Breaking strength / peak tension.",
@@ -217,6 +220,8 @@ class TrainRecorder {
   peakRiderAccel = 0;
   private readonly fwd = new ExposureRecorder();
   private readonly bwd = new ExposureRecorder();
+  private fwdPeak = 0;
+  private bwdPeak = 0;
   dogClicks = 0;
   dogReleaseTime: number | null = null;
   maxTrainSpeed: number;
@@ -264,13 +269,15 @@ class TrainRecorder {
     if (Math.abs(g) > this.peakRiderAccel) this.peakRiderAccel = Math.abs(g);
     this.fwd.step(t, g);
     this.bwd.step(t, -g);
+    if (g > this.fwdPeak) this.fwdPeak = g;
+    if (-g > this.bwdPeak) this.bwdPeak = -g;
     if (v.vx > this.maxTrainSpeed) this.maxTrainSpeed = v.vx;
     if (events & 2) this.dogClicks++;
     if (events & 8 && this.dogReleaseTime === null && v.x - sys.dogOffset >= sys.dogRelease) this.dogReleaseTime = t;
   }
 
   exposure(t: number): RiderAccelExposure {
-    return { forward: this.fwd.finish(t), backward: this.bwd.finish(t) };
+    return { forward: this.fwd.finish(t), backward: this.bwd.finish(t), forwardPeak: this.fwdPeak, backwardPeak: this.bwdPeak };
   }
 }
 
@@ -565,6 +572,8 @@ export class SummaryRecorder {
     const exposure: RiderAccelExposure = {
       forward: first.riderAccelExposure.forward.map((_, k) => maxOf((t) => t.riderAccelExposure.forward[k])),
       backward: first.riderAccelExposure.backward.map((_, k) => maxOf((t) => t.riderAccelExposure.backward[k])),
+      forwardPeak: maxOf((t) => t.riderAccelExposure.forwardPeak),
+      backwardPeak: maxOf((t) => t.riderAccelExposure.backwardPeak),
     };
     return {
       peakTension: this.peakTension,
