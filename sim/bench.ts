@@ -8,7 +8,7 @@ import example from "./examples/lift-hill-example.json";
 import { integrateRk4 } from "./integrators/fixed-step";
 import { newState } from "./integrators/types";
 import { LiftSystem } from "./rhs";
-import { scenarioSchema, type Scenario } from "./schema";
+import { parseScenario, type Scenario } from "./schema";
 import { simulate } from "./simulate";
 
 const args = new Set(process.argv.slice(2));
@@ -20,7 +20,9 @@ const FULL_DURATION = 50;
 const SEARCH_DURATION = 20;
 
 function scenarioWith(duration: number, over: Partial<Scenario["run"]> = {}): Scenario {
-  const s = scenarioSchema.parse(example);
+  const parsed = parseScenario(example);
+  if (!parsed.ok) throw new Error(parsed.issues[0].message);
+  const s = parsed.scenario;
   return { ...s, run: { ...s.run, duration, ...over } };
 }
 
@@ -54,8 +56,8 @@ function rk4(n: number, fraction: number, duration: number): Measure {
   const s = scenarioWith(duration);
   const sys = new LiftSystem(s, { segments: n });
   const st = newState(sys.n);
-  st.x = s.train.startPosition;
-  st.vx = s.train.entrySpeed;
+  st.x = s.trains[0].startPosition;
+  st.vx = s.trains[0].entrySpeed;
   sys.updateModes(0, st.w, st.x);
   const dt = (fraction * 2 * Math.SQRT2) / sys.stabilityLimit().omega;
   let peak = 0;

@@ -59,17 +59,25 @@ export function trackPositionOf(Lc: number, chainFrom: number, q: number): numbe
   return chainFrom;
 }
 
+/**
+ * Segments per strand (ns) and on the bottom run (nbt) for N segments round the loop: the bottom run gets
+ * segments about as long as the rest (at least one); the strands share the others. The total is N, or N + 1
+ * when a single bottom-run segment leaves an odd number for the two strands.
+ */
+export function meshCounts(strandLength: number, bottomRun: number, segments: number): { ns: number; nbt: number } {
+  const N = Math.max(4, Math.round(segments));
+  const h = (2 * strandLength + bottomRun) / N;
+  let nbt = Math.max(1, Math.round(bottomRun / h));
+  if ((N - nbt) % 2 !== 0 && nbt > 1) nbt -= 1;
+  const ns = Math.max(2, Math.ceil((N - nbt) / 2));
+  return { ns, nbt };
+}
+
 export function buildLoop(s: Scenario, track: Track, segmentsOverride?: number): ChainLoop {
   const Lc = s.lift.chainTo - s.lift.chainFrom;
   const B = s.lift.bottomRun;
   const Ltot = 2 * Lc + B;
-  const N = Math.max(4, Math.round(segmentsOverride ?? s.run.segments));
-  const h = Ltot / N;
-  // The bottom run gets segments about as long as the rest (at least one); the strands share the others.
-  // The total is N, or N + 1 when a single bottom-run segment leaves an odd number for the two strands.
-  let nbt = Math.max(1, Math.round(B / h));
-  if ((N - nbt) % 2 !== 0 && nbt > 1) nbt -= 1;
-  const ns = Math.max(2, Math.ceil((N - nbt) / 2));
+  const { ns, nbt } = meshCounts(Lc, B, segmentsOverride ?? s.run.segments);
   const n = 2 * ns + nbt;
   const q = new Float64Array(n);
   for (let j = 0; j < ns; j++) q[j] = (Lc * j) / ns;

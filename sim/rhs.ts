@@ -103,16 +103,15 @@ export class LiftSystem {
     this.ratchet = ratchet(ar.enabled, ar.from, ar.to, ar.toothSpacing);
     // As stiff as one metre of chain, but on coarse meshes no stiffer than four strand segments (stiff next
     // to the loaded chain either way, without letting the contact alone set the stable step).
-    const kc = s.run.contactStiffness ?? this.EA / Math.max(1, loop.hStrand / 4);
-    this.dogStiffness = kc;
-    this.dogDamping = contactDampingCoefficient(s.run.contactDamping, kc, loop.mass[1]);
-    this.ardStiffness = kc;
-    this.ardDamping = contactDampingCoefficient(s.run.contactDamping, kc, this.train.mass);
-    this.dogOffset = s.train.dogOffset;
+    this.dogStiffness = s.contacts.dogStiffness;
+    this.dogDamping = contactDampingCoefficient(s.contacts.dampingRatio, this.dogStiffness, loop.mass[1]);
+    this.ardStiffness = s.contacts.ardStiffness;
+    this.ardDamping = contactDampingCoefficient(s.contacts.dampingRatio, this.ardStiffness, this.train.mass);
+    this.dogOffset = s.trains[0].dogOffset;
     this.chainFrom = s.lift.chainFrom;
     this.dogRelease = s.lift.dogRelease;
     this.T = new Float64Array(this.n);
-    this.pawlMax = s.train.startPosition - s.train.dogOffset;
+    this.pawlMax = s.trains[0].startPosition - s.trains[0].dogOffset;
     this.tooth = this.ratchet.toothBehind(this.pawlMax);
   }
 
@@ -421,7 +420,7 @@ export class LiftSystem {
       btu += (leg.weight * legC[a]) / Mtu + legC[a] * (1 / Math.sqrt(Mtu * m[a]) + 1 / Math.sqrt(Mtu * m[b]));
     }
     consider(w2tu, btu);
-    const rolling = (this.s.train.rollingResistance * Mt * g * 1.5) / vs; // 1.5: centripetal part on curves
+    const rolling = (this.s.trains[0].rollingResistance * Mt * g * 1.5) / vs; // 1.5: centripetal part on curves
     consider(
       (this.dogStiffness + this.ardStiffness) / Mt + this.dogStiffness / Math.sqrt(Mt * minStrandMass),
       (this.dogDamping + this.ardDamping + rolling) / Mt + this.dogDamping / Math.sqrt(Mt * minStrandMass),

@@ -1,11 +1,15 @@
 /**
- * The scenario format `tautline-scenario/1`: one zod schema shared by the engine, the API, the UI and the CLI.
+ * The scenario format `tautline-scenario/2`: one zod schema shared by the engine, the API, the UI and the CLI.
  * SI units throughout (m, kg, s, N, W); angles in degrees (the only non-SI field, converted at the edge).
  * Every message names its field path, e.g. "lift.angle must be at most 80 (degrees)".
+ * `tautline-scenario/1` files stay readable: `parseScenario` validates them with the version 1 schema and
+ * converts them with `upgradeScenario` (an ideal drive, no loss factor, the contacts version 1 used).
  */
 import { z } from "zod";
+import { meshCounts } from "./loop";
 
-export const SCENARIO_FORMAT = "tautline-scenario/1";
+export const SCENARIO_FORMAT = "tautline-scenario/2";
+export const SCENARIO_FORMAT_V1 = "tautline-scenario/1";
 
 interface NumOpts {
   min?: number; // inclusive lower bound
@@ -51,7 +55,8 @@ export const liftSchema = z.object({
   bottomRun: num("lift.bottomRun", "m", { min: 0.5, max: 200 }).default(4),
 }, section("lift"));
 
-export const chainSchema = z.object({
+/** Chain fields of version 1 (kept for reading `tautline-scenario/1`). */
+export const chainSchemaV1 = z.object({
   massPerLength: num("chain.massPerLength", "kg/m", { min: 0.5, max: 300 }),
   /** E·A: force per unit strain. */
   axialStiffness: num("chain.axialStiffness", "N per unit strain", { min: 1e5, max: 1e10 }),
@@ -69,14 +74,97 @@ export const chainSchema = z.object({
   damping: num("chain.damping", "N·s", { min: 0, max: 1e9 }).default(2000),
 }, section("chain"));
 
-export const driveSchema = z.object({
+/**
+ * Default loss factor of the chain's stretch: 0.02 (assumption: a loss factor of a few hundredths is typical
+ * of bolted and pinned steel assemblies with joint friction; calibrate it from recordings).
+ */
+export const DEFAULT_LOSS_FACTOR = 0.02;
+
+export const chainSchema = chainSchemaV1.extend({
+  /**
+   * Loss factor η of the chain's stretch (dimensionless), the same for every segment whatever the mesh:
+   * a Zener element per segment tuned so that η holds at the train–chain surge frequencies (see sim/README.md).
+   * 0 = none; with `damping` 0 too the chain is undamped.
+   */
+  lossFactor: num("chain.lossFactor", "", { min: 0, max: 0.5 }).default(DEFAULT_LOSS_FACTOR),
+});
+
+/** Drive fields of version 1. */
+export const driveSchemaV1 = z.object({
   speed: num("drive.speed", "m/s", { gt: 0, max: 10 }),
   rampTime: num("drive.rampTime", "s", { min: 0, max: 120 }).default(2),
   sprocketTeeth: num("drive.sprocketTeeth", "teeth", { min: 5, max: 120, int: true }),
   efficiency: num("drive.efficiency", "", { min: 0.2, max: 1 }).default(0.9),
 }, section("drive"));
 
-export const takeUpSchema = z.object({
+export const DRIVE_LOCATIONS = ["bottom", "top"] as const;
+export const MOTOR_KINDS = ["ideal", "induction", "speed-loop"] as const;
+export const STOP_KINDS = ["brake", "power-loss"] as const;
+
+/** Prescribed chain speed (the version 1 drive): the sprocket follows the ramp whatever the load. */
+export const idealMotorSchema = z.object({ kind: z.literal("ideal") });
+
+/**
+ * Induction motor on the Kloss curve. `speed` is the synchronous (no-load) chain speed; the rated pull at the
+ * chain is F_r = ratedPower·efficiency / (speed·(1 − ratedSlip)); F = 2·λ·F_r / (s/s_b + s_b/s) with
+ * λ = breakdownRatio and s_b = ratedSlip·(λ + √(λ² − 1)). `reflectedMass` = J·(i/r)², the rotating
+ * inertia of motor, gearbox and sprocket seen at the chain. Defaults: a 160 kW lift motor (assumption);
+ * rated slip 1.5 % and breakdown ratio 2.3 are typical of standard four-pole motors of that size (IEC 60034-1
+ * design N class; Chapman, Electric Machinery Fundamentals).
+ */
+export const inductionMotorSchema = z.object({
+  kind: z.literal("induction"),
+  ratedPower: num("drive.motor.ratedPower", "W", { gt: 0, max: 1e7 }).default(160000),
+  ratedSlip: num("drive.motor.ratedSlip", "", { min: 0.001, max: 0.2 }).default(0.015),
+  breakdownRatio: num("drive.motor.breakdownRatio", "", { min: 1.05, max: 5 }).default(2.3),
+  reflectedMass: num("drive.motor.reflectedMass", "kg", { min: 0, max: 1e7 }).default(12000),
+});
+
+/**
+ * A PI speed loop on the chain speed reference (the ramp), saturating at `forceLimit`. Defaults are
+ * assumptions: 1 Hz bandwidth (a drive tuned well below the chain's wave frequencies), 250 kN pull limit.
+ */
+export const speedLoopMotorSchema = z.object({
+  kind: z.literal("speed-loop"),
+  bandwidth: num("drive.motor.bandwidth", "Hz", { gt: 0, max: 50 }).default(1),
+  forceLimit: num("drive.motor.forceLimit", "N", { gt: 0, max: 1e8 }).default(250000),
+  reflectedMass: num("drive.motor.reflectedMass", "kg", { min: 0, max: 1e7 }).default(12000),
+});
+
+const MOTOR_KIND_ERROR = `drive.motor.kind must be one of ${MOTOR_KINDS.join(", ")}`;
+
+export const motorSchema = z.discriminatedUnion(
+  "kind",
+  [idealMotorSchema, inductionMotorSchema, speedLoopMotorSchema],
+  { error: (iss) => (iss.input === undefined || typeof iss.input !== "object" ? "drive.motor must be an object" : MOTOR_KIND_ERROR) },
+);
+
+/**
+ * A stop on the lift. "brake": the chain speed goes to zero over `duration` and is held; "power-loss": the
+ * motor pull drops to zero at `time` and a brake holds the sprocket after `duration`.
+ */
+export const stopSchema = z.object({
+  time: num("drive.stop.time", "s", { min: 0, max: 600 }),
+  kind: z.enum(STOP_KINDS, { error: `drive.stop.kind must be one of ${STOP_KINDS.join(", ")}` }).default("brake"),
+  duration: num("drive.stop.duration", "s", { min: 0, max: 60 }).default(0.5),
+}, section("drive.stop"));
+
+/** A restart after a stop: the drive ramps up again over `rampTime` from `time`. */
+export const restartSchema = z.object({
+  time: num("drive.restart.time", "s", { gt: 0, max: 600 }),
+}, section("drive.restart"));
+
+export const driveSchema = driveSchemaV1.extend({
+  location: z
+    .enum(DRIVE_LOCATIONS, { error: `drive.location must be one of ${DRIVE_LOCATIONS.join(", ")}` })
+    .default("bottom"),
+  motor: motorSchema.default(() => inductionMotorSchema.parse({ kind: "induction" })),
+  stop: stopSchema.optional(),
+  restart: restartSchema.optional(),
+});
+
+/** Take-up fields of version 1. */
+export const takeUpSchemaV1 = z.object({
   mass: num("takeUp.mass", "kg", { min: 10, max: 200000 }),
   travel: num("takeUp.travel", "m", { min: 0.05, max: 50 }),
   /** Initial distance below the top stop. */
@@ -84,7 +172,13 @@ export const takeUpSchema = z.object({
   friction: num("takeUp.friction", "N", { min: 0, max: 1e6 }).default(0),
 }, section("takeUp"));
 
-export const trainSchema = z.object({
+export const takeUpSchema = takeUpSchemaV1.extend({
+  /** Dashpot on the counterweight, N·s/m (0 = none). */
+  damping: num("takeUp.damping", "N·s/m", { min: 0, max: 1e8 }).default(0),
+});
+
+/** The single train of version 1. */
+export const trainSchemaV1 = z.object({
   cars: num("train.cars", "cars", { min: 1, max: 40, int: true }),
   carMass: num("train.carMass", "kg", { min: 10, max: 50000 }),
   carLength: num("train.carLength", "m", { min: 0.3, max: 30 }),
@@ -95,6 +189,30 @@ export const trainSchema = z.object({
   startPosition: num("train.startPosition", "m", { min: 0, max: 5000 }),
 }, section("train"));
 
+// "*" in a message stands for the list index; parseScenario puts the real index in (e.g. trains.1.cars).
+export const MAX_TRAINS = 20;
+export const MAX_PAWLS = 8;
+
+/** One train of `trains`. */
+export const trainSchema = z.object({
+  cars: num("trains.*.cars", "cars", { min: 1, max: 40, int: true }),
+  carMass: num("trains.*.carMass", "kg", { min: 10, max: 50000 }),
+  carLength: num("trains.*.carLength", "m", { min: 0.3, max: 30 }),
+  dogOffset: num("trains.*.dogOffset", "m", { min: 0, max: 1200 }),
+  rollingResistance: num("trains.*.rollingResistance", "", { min: 0, max: 0.2 }).default(0.015),
+  dragArea: num("trains.*.dragArea", "m²", { min: 0, max: 100 }).default(1),
+  entrySpeed: num("trains.*.entrySpeed", "m/s", { min: 0, max: 30 }).default(0),
+  startPosition: num("trains.*.startPosition", "m", { min: 0, max: 5000 }),
+  /** When the train appears at startPosition with entrySpeed, s. */
+  startTime: num("trains.*.startTime", "s", { min: 0, max: 600 }).default(0),
+  /** ARD pawls, m behind the front; absent means one pawl at the dog (see pawlsOf). */
+  pawls: z
+    .array(num("trains.*.pawls.*", "m", { min: 0, max: 1200 }), { error: "trains.*.pawls must be a list of positions (m)" })
+    .min(1, { error: "trains.*.pawls must list at least one pawl" })
+    .max(MAX_PAWLS, { error: `trains.*.pawls must list at most ${MAX_PAWLS} pawls` })
+    .optional(),
+}, { error: "trains.* must be an object (a train)" });
+
 export const antiRollbackSchema = z.object({
   enabled: bool("antiRollback.enabled").default(true),
   from: num("antiRollback.from", "m", { min: 0, max: 5000 }),
@@ -104,7 +222,7 @@ export const antiRollbackSchema = z.object({
 
 export const INTEGRATORS = ["verlet", "odex"] as const;
 
-export const runSettingsSchema = z.object({
+export const runSettingsSchemaV1 = z.object({
   duration: num("run.duration", "s", { gt: 0, max: 600 }),
   segments: num("run.segments", "segments", { min: 4, max: 2000, int: true }).default(60),
   /** "verlet": fixed-step velocity Verlet (default, fast); "odex": adaptive extrapolation (reference). */
@@ -124,6 +242,21 @@ export const runSettingsSchema = z.object({
   gravity: num("run.gravity", "m/s²", { min: 0.1, max: 30 }).default(9.80665),
   airDensity: num("run.airDensity", "kg/m³", { min: 0, max: 5 }).default(1.2),
 }, section("run"));
+
+/** Version 2 run settings: the dog and ARD contacts moved to the physical `contacts` section. */
+export const runSettingsSchema = runSettingsSchemaV1.omit({ contactStiffness: true, contactDamping: true });
+
+/**
+ * Physical contacts, independent of E·A and of the mesh. Defaults stand for steel parts: a dog or pawl
+ * seat of hardened steel deflects about 1 mm under 50 kN (5e7 N/m, assumption from the size of the parts);
+ * damping ratio 0.1 (assumption; steel-on-steel impacts have a coefficient of restitution near 0.7, which
+ * a damping ratio of about 0.1 reproduces for a linear contact).
+ */
+export const contactsSchema = z.object({
+  dogStiffness: num("contacts.dogStiffness", "N/m", { min: 1e4, max: 1e11 }).default(5e7),
+  ardStiffness: num("contacts.ardStiffness", "N/m", { min: 1e4, max: 1e11 }).default(5e7),
+  dampingRatio: num("contacts.dampingRatio", "", { min: 0, max: 2 }).default(0.1),
+}, section("contacts"));
 
 /** Check limits used by evaluateChecks; each default's source (or "assumption") is in LIMIT_SOURCES. */
 export const limitsSchema = z.object({
@@ -185,19 +318,42 @@ export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> 
   thermalExpansion: "11.7e-6 /K for carbon steel: from memory.",
 };
 
-const baseScenarioSchema = z.object({
-  format: z.literal(SCENARIO_FORMAT, { error: `format must be "${SCENARIO_FORMAT}"` }),
+const scenarioHead = {
   name: z
     .string({ error: "name must be text" })
     .trim()
     .min(1, { error: "name must not be empty" })
     .max(200, { error: "name must be at most 200 characters" }),
   description: z.string({ error: "description must be text" }).max(5000).optional(),
+};
+
+const FORMAT_ERROR = `format must be "${SCENARIO_FORMAT}" (or "${SCENARIO_FORMAT_V1}", converted on reading)`;
+
+const baseScenarioSchemaV1 = z.object({
+  format: z.literal(SCENARIO_FORMAT_V1, { error: FORMAT_ERROR }),
+  ...scenarioHead,
+  lift: liftSchema,
+  chain: chainSchemaV1,
+  drive: driveSchemaV1,
+  takeUp: takeUpSchemaV1,
+  train: trainSchemaV1,
+  antiRollback: antiRollbackSchema,
+  run: runSettingsSchemaV1,
+  limits: limitsSchema.default(() => limitsSchema.parse({})),
+}, { error: "the scenario must be a JSON object" });
+
+const baseScenarioSchema = z.object({
+  format: z.literal(SCENARIO_FORMAT, { error: FORMAT_ERROR }),
+  ...scenarioHead,
   lift: liftSchema,
   chain: chainSchema,
   drive: driveSchema,
   takeUp: takeUpSchema,
-  train: trainSchema,
+  contacts: contactsSchema.default(() => contactsSchema.parse({})),
+  trains: z
+    .array(trainSchema, { error: "trains must be a list of trains" })
+    .min(1, { error: "trains must list at least one train" })
+    .max(MAX_TRAINS, { error: `trains must list at most ${MAX_TRAINS} trains` }),
   antiRollback: antiRollbackSchema,
   run: runSettingsSchema,
   limits: limitsSchema.default(() => limitsSchema.parse({})),
@@ -208,9 +364,9 @@ const SECTION_SHAPES = {
   chain: chainSchema.shape,
   drive: driveSchema.shape,
   takeUp: takeUpSchema.shape,
-  train: trainSchema.shape,
+  train: trainSchemaV1.shape,
   antiRollback: antiRollbackSchema.shape,
-  run: runSettingsSchema.shape,
+  run: runSettingsSchemaV1.shape,
 };
 
 export interface FieldIssue {
@@ -303,17 +459,51 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
       path: "antiRollback.toothSpacing",
       message: "antiRollback.toothSpacing must not exceed the ratchet length (antiRollback.to − antiRollback.from)",
     });
-  const sp = n("train", "startPosition");
-  if (sp !== undefined && L !== undefined && sp >= L)
-    out.push({ path: "train.startPosition", message: `train.startPosition must lie on the track (below ${Ls} m)` });
-  const cars = n("train", "cars");
-  const carLength = n("train", "carLength");
-  const dog = n("train", "dogOffset");
-  if (dog !== undefined && cars !== undefined && carLength !== undefined && dog > cars * carLength)
-    out.push({
-      path: "train.dogOffset",
-      message: "train.dogOffset must not exceed the train length (train.cars × train.carLength)",
+  // Trains: the single `train` of version 1, or each of `trains`.
+  const trainList = Array.isArray((data as { trains?: unknown })?.trains)
+    ? ((data as { trains: unknown[] }).trains)
+    : undefined;
+  const trainChecks: { prefix: string; value: (key: string) => number | undefined; pawls?: unknown }[] = [];
+  if (trainList) {
+    trainList.forEach((t, i) => {
+      const field = trainSchema.shape as Record<string, z.ZodType>;
+      const value = (key: string) => {
+        const v = t && typeof t === "object" ? (t as Record<string, unknown>)[key] : undefined;
+        return isNum(v) && field[key] && field[key].safeParse(v).success ? v : undefined;
+      };
+      trainChecks.push({ prefix: `trains.${i}`, value, pawls: t && typeof t === "object" ? (t as Record<string, unknown>).pawls : undefined });
     });
+  } else trainChecks.push({ prefix: "train", value: (key) => n("train", key) });
+  for (const tc of trainChecks) {
+    const sp = tc.value("startPosition");
+    if (sp !== undefined && L !== undefined && sp >= L)
+      out.push({ path: `${tc.prefix}.startPosition`, message: `${tc.prefix}.startPosition must lie on the track (below ${Ls} m)` });
+    const cars = tc.value("cars");
+    const carLength = tc.value("carLength");
+    const dog = tc.value("dogOffset");
+    const length = cars !== undefined && carLength !== undefined ? cars * carLength : undefined;
+    if (dog !== undefined && length !== undefined && dog > length)
+      out.push({
+        path: `${tc.prefix}.dogOffset`,
+        message: `${tc.prefix}.dogOffset must not exceed the train length (${tc.prefix}.cars × ${tc.prefix}.carLength)`,
+      });
+    if (Array.isArray(tc.pawls) && length !== undefined)
+      tc.pawls.forEach((p, k) => {
+        if (isNum(p) && p > length)
+          out.push({
+            path: `${tc.prefix}.pawls.${k}`,
+            message: `${tc.prefix}.pawls.${k} must not exceed the train length ${length.toFixed(2)} m (pawls are metres behind the front)`,
+          });
+      });
+  }
+  const stop = get(data, "drive", "stop");
+  const restart = get(data, "drive", "restart");
+  const stopTime = stop && typeof stop === "object" ? (stop as Record<string, unknown>).time : undefined;
+  const restartTime = restart && typeof restart === "object" ? (restart as Record<string, unknown>).time : undefined;
+  if (isNum(restartTime) && restartTime > 0 && stop === undefined)
+    out.push({ path: "drive.restart", message: "drive.restart needs a drive.stop before it" });
+  if (isNum(restartTime) && isNum(stopTime) && stopTime >= 0 && restartTime <= stopTime)
+    out.push({ path: "drive.restart.time", message: "drive.restart.time must be later than drive.stop.time (s)" });
   const pos = n("takeUp", "position");
   const travel = n("takeUp", "travel");
   if (pos !== undefined && travel !== undefined && pos > travel)
@@ -321,17 +511,30 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
   return out;
 }
 
-export const scenarioSchema = baseScenarioSchema.superRefine((s, ctx) => {
-  for (const i of crossFieldIssues(s)) ctx.addIssue({ code: "custom", path: i.path.split("."), message: i.message });
-});
+const withCrossFields = (ctx: z.RefinementCtx, data: unknown) => {
+  for (const i of crossFieldIssues(data))
+    ctx.addIssue({ code: "custom", path: i.path.split(".").map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message: i.message });
+};
+
+/** Version 2, the current format. */
+export const scenarioSchema = baseScenarioSchema.superRefine((s, ctx) => withCrossFields(ctx, s));
+/** Version 1, read and converted by parseScenario. */
+export const scenarioV1Schema = baseScenarioSchemaV1.superRefine((s, ctx) => withCrossFields(ctx, s));
 
 export type Scenario = z.output<typeof scenarioSchema>;
 export type ScenarioInput = z.input<typeof scenarioSchema>;
+export type ScenarioV1 = z.output<typeof scenarioV1Schema>;
+export type ScenarioV1Input = z.input<typeof scenarioV1Schema>;
 export type LiftSettings = z.output<typeof liftSchema>;
 export type ChainSettings = z.output<typeof chainSchema>;
 export type DriveSettings = z.output<typeof driveSchema>;
+export type MotorSettings = z.output<typeof motorSchema>;
+export type StopSettings = z.output<typeof stopSchema>;
+export type RestartSettings = z.output<typeof restartSchema>;
+export type DriveLocation = (typeof DRIVE_LOCATIONS)[number];
 export type TakeUpSettings = z.output<typeof takeUpSchema>;
 export type TrainSettings = z.output<typeof trainSchema>;
+export type ContactSettings = z.output<typeof contactsSchema>;
 export type AntiRollbackSettings = z.output<typeof antiRollbackSchema>;
 export type RunSettings = z.output<typeof runSettingsSchema>;
 export type Limits = z.output<typeof limitsSchema>;
@@ -339,14 +542,66 @@ export type Integrator = (typeof INTEGRATORS)[number];
 
 export type ParseResult = { ok: true; scenario: Scenario } | { ok: false; issues: FieldIssue[] };
 
-/** Validates a scenario and lists every problem at once, each with a dotted field path. */
-export function parseScenario(data: unknown): ParseResult {
-  const r = scenarioSchema.safeParse(data);
-  if (r.success) return { ok: true, scenario: r.data };
-  const issues: FieldIssue[] = r.error.issues.map((i) => ({
-    path: i.path.length ? i.path.map(String).join(".") : "(scenario)",
-    message: i.message,
-  }));
+/** True for a `tautline-scenario/1` document (read through upgradeScenario). */
+export function isV1(data: unknown): boolean {
+  return !!data && typeof data === "object" && (data as { format?: unknown }).format === SCENARIO_FORMAT_V1;
+}
+
+/** A document of unknown format in the version 1 shape (one `train`, no `trains`) is checked as version 1. */
+function looksLikeV1(data: unknown): boolean {
+  if (!data || typeof data !== "object") return false;
+  const d = data as Record<string, unknown>;
+  return d.format !== SCENARIO_FORMAT && "train" in d && !("trains" in d);
+}
+
+/**
+ * Version 1's dog and pawl contact stiffness, E·A / max(1 m, strand segment / 4), at the file's own mesh
+ * (run.segments): kept for converted files so their figures stay as they were.
+ */
+export function v1ContactStiffness(s: ScenarioV1): number {
+  if (s.run.contactStiffness !== undefined) return s.run.contactStiffness;
+  const Lc = s.lift.chainTo - s.lift.chainFrom;
+  const { ns } = meshCounts(Lc, s.lift.bottomRun, s.run.segments);
+  return s.chain.axialStiffness / Math.max(1, Lc / ns / 4);
+}
+
+/**
+ * Pure conversion of a validated `tautline-scenario/1` scenario to version 2. What version 1 meant is kept:
+ * an ideal drive (prescribed chain speed) at the bottom, no chain loss factor, no take-up dashpot, the
+ * contact stiffness version 1 used at the file's mesh (`run.contactStiffness`, or E·A / max(1 m, strand
+ * segment / 4)) and its damping ratio (`run.contactDamping`); `train` becomes `trains[0]`, appearing at
+ * t = 0 with one pawl at its dog. Physics version 2 changed for every file (contact damping from the train's
+ * mass, the catch lattice's leftover gap away from the catch placed, a standing train on a catch starting
+ * engaged) applies to converted files too.
+ */
+export function upgradeScenario(v1: ScenarioV1): Scenario {
+  const k = v1ContactStiffness(v1);
+  const { contactStiffness: _k, contactDamping, ...run } = v1.run;
+  void _k;
+  return {
+    format: SCENARIO_FORMAT,
+    name: v1.name,
+    ...(v1.description !== undefined ? { description: v1.description } : {}),
+    lift: { ...v1.lift },
+    chain: { ...v1.chain, lossFactor: 0 },
+    drive: { ...v1.drive, location: "bottom", motor: { kind: "ideal" } },
+    takeUp: { ...v1.takeUp, damping: 0 },
+    contacts: { dogStiffness: k, ardStiffness: k, dampingRatio: contactDamping },
+    trains: [{ ...v1.train, startTime: 0, pawls: [v1.train.dogOffset] }],
+    antiRollback: { ...v1.antiRollback },
+    run,
+    limits: { ...v1.limits },
+  };
+}
+
+function issuesOf(error: z.ZodError, data: unknown): FieldIssue[] {
+  const issues: FieldIssue[] = error.issues.map((i) => {
+    const path = i.path.length ? i.path.map(String).join(".") : "(scenario)";
+    // Put the list indexes into messages written for any train ("trains.*.cars" → "trains.1.cars").
+    const idx = i.path.filter((p) => typeof p === "number").map(String);
+    const message = i.message.replace(/\.\*/g, () => `.${idx.shift() ?? "*"}`);
+    return { path, message };
+  });
   // Cross-field rules do not run in zod when a field failed; run them on the raw input as well.
   const seen = new Set(issues.map((i) => `${i.path}|${i.message}`));
   for (const i of crossFieldIssues(data)) {
@@ -356,7 +611,27 @@ export function parseScenario(data: unknown): ParseResult {
       seen.add(key);
     }
   }
-  return { ok: false, issues };
+  return issues;
+}
+
+/**
+ * Validates a scenario (version 2, or version 1 converted by upgradeScenario) and lists every problem at
+ * once, each with a dotted field path. Always returns the version 2 shape.
+ */
+export function parseScenario(data: unknown): ParseResult {
+  if (isV1(data) || looksLikeV1(data)) {
+    const r1 = scenarioV1Schema.safeParse(data);
+    if (!r1.success) return { ok: false, issues: issuesOf(r1.error, data) };
+    return { ok: true, scenario: upgradeScenario(r1.data) };
+  }
+  const r = scenarioSchema.safeParse(data);
+  if (r.success) return { ok: true, scenario: r.data };
+  return { ok: false, issues: issuesOf(r.error, data) };
+}
+
+/** Positions of a train's ARD pawls, m behind its front (default: one pawl at the dog). */
+export function pawlsOf(t: TrainSettings): number[] {
+  return t.pawls && t.pawls.length ? t.pawls : [t.dogOffset];
 }
 
 /** The catch point that sits at a known arc position at t = 0 (default: the chain's start). */

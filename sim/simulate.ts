@@ -78,8 +78,8 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
   const n = sys.n;
 
   const st = newState(n);
-  st.x = s.train.startPosition;
-  st.vx = s.train.entrySpeed;
+  st.x = s.trains[0].startPosition;
+  st.vx = s.trains[0].entrySpeed;
   const notes: string[] = [];
   // A train given at rest on the ARD starts settled on the last tooth behind its pawl (in static equilibrium).
   if (st.vx === 0 && sys.ratchet.enabled) {

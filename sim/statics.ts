@@ -157,7 +157,7 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
     return { q, tension };
   }
 
-  const dogOffset = s.train.dogOffset;
+  const dogOffset = s.trains[0].dogOffset;
   const nPos = Math.max(4, opts.positions ?? 60);
   const cases: TrainPositionCase[] = [];
   const xLo = from + dogOffset;

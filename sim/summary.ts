@@ -437,7 +437,8 @@ export class SummaryRecorder {
   constructor(sys: LiftSystem) {
     this.sys = sys;
     this.halfD = sys.s.chain.pitch / Math.sin(Math.PI / sys.s.drive.sprocketTeeth) / 2;
-    this.trains = [new TrainRecorder(sys.s.train.entrySpeed)];
+    // One recorder per train the system carries (the engine carries trains[0] so far).
+    this.trains = [new TrainRecorder(sys.s.trains[0].entrySpeed)];
   }
 
   /** Called after each accepted step, with the system evaluated at that state. */

@@ -27,7 +27,7 @@ export function buildTakeUp(s: Scenario, loopLength: number): TakeUpModel {
   // Default stop: 20 × the weight's own suspension stiffness (the loop grows 2·y, each leg carries the
   // change: k_own ≈ 4·E·A / loop length), stiff compared with the chain, not needlessly stiffer.
   const k = s.run.endStopStiffness ?? (20 * 4 * EA) / loopLength;
-  const c = contactDampingCoefficient(s.run.contactDamping, k, tu.mass);
+  const c = contactDampingCoefficient(s.contacts.dampingRatio, k, tu.mass);
   const yTop = -tu.position;
   const yBottom = tu.travel - tu.position;
   const vs = FRICTION_SMOOTHING_SPEED;

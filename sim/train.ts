@@ -27,8 +27,8 @@ export interface TrainModel {
   dissipation(x: number, v: number): number;
 }
 
-export function buildTrain(s: Scenario, track: Track): TrainModel {
-  const t = s.train;
+export function buildTrain(s: Scenario, track: Track, index = 0): TrainModel {
+  const t = s.trains[index];
   const g = s.run.gravity;
   const mc = t.carMass;
   const centres = new Float64Array(t.cars);

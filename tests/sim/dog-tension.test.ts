@@ -9,18 +9,18 @@ describe("chain tension at the dog in a quasi-static climb", () => {
   // friction or drag, so the dog load is exactly weight component + rolling resistance.
   const s = standingTrain({ chain: { massPerLength: 15 }, takeUp: { friction: 1500 }, run: { duration: 30, segments: 120 } });
   const r = simulate(s, { frameBudget: 300 });
-  const place = { dogOffset: s.train.dogOffset, dogRelease: s.lift.dogRelease };
+  const place = { dogOffset: s.trains[0].dogOffset, dogRelease: s.lift.dogRelease };
   const track = buildTrack(s.lift);
   const th = (s.lift.angle * Math.PI) / 180;
-  const M = s.train.cars * s.train.carMass;
+  const M = s.trains[0].cars * s.trains[0].carMass;
   const w = s.chain.massPerLength * G; // chain weight per metre
-  const F = M * G * (Math.sin(th) + s.train.rollingResistance * Math.cos(th));
+  const F = M * G * (Math.sin(th) + s.trains[0].rollingResistance * Math.cos(th));
   const z0 = track.elevation(s.lift.chainFrom);
   const h = r.layout.stations[1] - r.layout.stations[0]; // carrying-strand segment length
   // The steady climb after the pick-up has rung down (the train stays on the incline throughout).
   const steady = r.frames.filter((f) => f.t >= 12);
   const rows = steady.map((f) => {
-    const dogAt = f.trainPosition - s.train.dogOffset;
+    const dogAt = f.trainPosition - s.trains[0].dogOffset;
     const seg = dogSegments(r.layout, dogAt, s.lift.dogRelease)!;
     return {
       dog: chainTensionAtDog(r.layout, place, f)!,
@@ -69,12 +69,12 @@ describe("chain tension at the dog in a quasi-static climb", () => {
 describe("chain tension at the dog over a whole run", () => {
   const s = scenario({ run: { duration: 50, segments: 30 } });
   const r = simulate(s, { frameBudget: 200 });
-  const place = { dogOffset: s.train.dogOffset, dogRelease: s.lift.dogRelease };
+  const place = { dogOffset: s.trains[0].dogOffset, dogRelease: s.lift.dogRelease };
   const at = dogTensionAt(r.layout, place, r.frames, r.series.t);
 
   it("is a gap where the dog is off the chain (after the release at the crest)", () => {
     expect(at).toHaveLength(r.series.t.length);
-    const off = r.series.t.map((_, i) => r.series.trainPosition[i] - s.train.dogOffset >= s.lift.dogRelease);
+    const off = r.series.t.map((_, i) => r.series.trainPosition[i] - s.trains[0].dogOffset >= s.lift.dogRelease);
     expect(off.some(Boolean)).toBe(true);
     // Frames are coarser than the samples: around the release allow one frame spacing of disagreement.
     const spacing = r.frames[1].t - r.frames[0].t;

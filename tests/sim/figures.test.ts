@@ -8,7 +8,7 @@ import { G, standingTrain } from "./scenarios";
 /** Load at the dog of the standing train on its incline: m·g·(sin θ + C_rr·cos θ) (no drag, no guide friction). */
 function dogLoad(s: ReturnType<typeof standingTrain>): number {
   const th = (s.lift.angle * Math.PI) / 180;
-  return s.train.cars * s.train.carMass * G * (Math.sin(th) + s.train.rollingResistance * Math.cos(th));
+  return s.trains[0].cars * s.trains[0].carMass * G * (Math.sin(th) + s.trains[0].rollingResistance * Math.cos(th));
 }
 
 describe("figures of the steady climb under an undamped surge", () => {
@@ -58,9 +58,9 @@ describe("surge damping ratio", () => {
     // Rao §2.2 Rayleigh's method). Stiff, undamped contacts so only the chain damps.
     const base = standingTrain();
     const EA = base.chain.axialStiffness;
-    const M = base.train.cars * base.train.carMass;
+    const M = base.trains[0].cars * base.trains[0].carMass;
     const Lc = base.lift.chainTo - base.lift.chainFrom;
-    const L = base.lift.chainTo - (base.train.startPosition - base.train.dogOffset) + Lc;
+    const L = base.lift.chainTo - (base.trains[0].startPosition - base.trains[0].dogOffset) + Lc;
     const m = M + (base.chain.massPerLength * L) / 3;
     const zeta = 0.03;
     const D = zeta * 2 * Math.sqrt(EA * L * m);

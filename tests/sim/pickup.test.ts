@@ -20,8 +20,8 @@ describe("a train standing on the lift is picked up", () => {
   const r = simulate(s, { frameBudget: 0 });
   const EA = s.chain.axialStiffness;
   const th = (s.lift.angle * Math.PI) / 180;
-  const M = s.train.cars * s.train.carMass;
-  const F = M * G * (Math.sin(th) + s.train.rollingResistance * Math.cos(th)); // load at the dog
+  const M = s.trains[0].cars * s.trains[0].carMass;
+  const F = M * G * (Math.sin(th) + s.trains[0].rollingResistance * Math.cos(th)); // load at the dog
   const Lc = s.lift.chainTo - s.lift.chainFrom;
   const v = s.drive.speed;
   const kc = r.diagnostics.contactStiffness as number; // default dog and pawl contact (documented in sim/README.md)
@@ -29,7 +29,7 @@ describe("a train standing on the lift is picked up", () => {
   it("once the drive has wound in F·L/(E·A) of stretch on the loaded length", () => {
     // Source: axial deformation δ = F·L/(E·A) (Gere & Goodno, Mechanics of Materials) on the loaded length
     // L = dog → top → drive, plus the gap to the catch point and the two contact compressions F/k.
-    const dogSettled = s.train.startPosition - s.train.dogOffset; // pawl on its tooth (in 10 tooth spacings)
+    const dogSettled = s.trains[0].startPosition - s.trains[0].dogOffset; // pawl on its tooth (in 10 tooth spacings)
     const settle = F / kc; // the train rests this far back on the pawl at t = 0
     const L = s.lift.chainTo - dogSettled + Lc;
     const gap = s.chain.catchOffset! - (dogSettled - settle);
@@ -47,7 +47,7 @@ describe("a train standing on the lift is picked up", () => {
     const ser = r.series;
     // Source: 2:1 take-up moves half the chain's elongation (common practice, no source); δ = F·L/(E·A).
     const i = ser.t.findIndex((t) => t >= 20);
-    const Lnow = s.lift.chainTo - (ser.trainPosition[i] - s.train.dogOffset) + Lc;
+    const Lnow = s.lift.chainTo - (ser.trainPosition[i] - s.trains[0].dogOffset) + Lc;
     const drop = (F * Lnow) / (2 * EA);
     expect(Math.abs(ser.takeUpPosition[i] - drop) / drop).toBeLessThan(0.02); // 2 %: residual ringing
     // Source: loaded length shrinks at v, so the counterweight rises at F·v/(2·E·A) (issue derivation, common practice).

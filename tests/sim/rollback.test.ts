@@ -18,7 +18,7 @@ describe("anti-rollback", () => {
   it("holds a train that loses the chain on the lift within one tooth spacing", () => {
     // The dog releases half-way up the incline: the train stops and rolls back onto the last tooth passed.
     const s = standingTrain({ run: { duration: 12, segments: 30 } });
-    const r2 = simulate({ ...s, lift: { ...s.lift, dogRelease: s.train.startPosition - s.train.dogOffset + 2 } }, { frameBudget: 0, series: false });
+    const r2 = simulate({ ...s, lift: { ...s.lift, dogRelease: s.trains[0].startPosition - s.trains[0].dogOffset + 2 } }, { frameBudget: 0, series: false });
     expect(r2.summary.ardCatches).toBeGreaterThanOrEqual(1);
     // Source: the pawl falls on the last tooth it passed, so the rollback is at most one tooth spacing
     // plus the compression of the pawl contact (the model's definition, issue 3).
@@ -32,7 +32,7 @@ describe("anti-rollback", () => {
 
   it("reports a rollback failure when the ARD is switched off", () => {
     const s = standingTrain({ antiRollback: { enabled: false }, run: { duration: 6, segments: 30 } });
-    const r = simulate({ ...s, lift: { ...s.lift, dogRelease: s.train.startPosition - s.train.dogOffset + 1 } }, { frameBudget: 0, series: false });
+    const r = simulate({ ...s, lift: { ...s.lift, dogRelease: s.trains[0].startPosition - s.trains[0].dogOffset + 1 } }, { frameBudget: 0, series: false });
     expect(r.summary.rollbackDistance).toBeGreaterThan(s.antiRollback.toothSpacing);
     expect(r.notes.join(" ")).toMatch(/rolled back/);
     void scenario;

@@ -1,21 +1,29 @@
 /** Scenarios built for the validation tests, each simple enough to have a first-principles answer. */
 import example from "@/sim/examples/lift-hill-example.json";
-import { scenarioSchema, type Scenario, type ScenarioInput } from "@/sim/schema";
+import { parseScenario, type Scenario, type ScenarioV1Input } from "@/sim/schema";
 
 type DeepPartial<T> = { [K in keyof T]?: T[K] extends object ? DeepPartial<T[K]> : T[K] };
 
-export function exampleInput(): ScenarioInput {
-  return JSON.parse(JSON.stringify(example)) as ScenarioInput;
+/** The example lift as a `tautline-scenario/1` document (read through the version 1 conversion). */
+export function exampleInput(): ScenarioV1Input {
+  return JSON.parse(JSON.stringify(example)) as ScenarioV1Input;
 }
 
-/** The example with sections overridden field by field, validated. */
-export function scenario(over: DeepPartial<ScenarioInput> = {}): Scenario {
+/** Validates a document (either version) into the version 2 scenario, or throws with the first problem. */
+export function parsed(data: unknown): Scenario {
+  const r = parseScenario(data);
+  if (!r.ok) throw new Error(`${r.issues[0].path}: ${r.issues[0].message}`);
+  return r.scenario;
+}
+
+/** The version 1 example with sections overridden field by field, validated and converted to version 2. */
+export function scenario(over: DeepPartial<ScenarioV1Input> = {}): Scenario {
   const base = exampleInput() as unknown as Record<string, Record<string, unknown>>;
   for (const [k, v] of Object.entries(over)) {
     if (v && typeof v === "object") base[k] = { ...(base[k] ?? {}), ...(v as Record<string, unknown>) };
     else (base as Record<string, unknown>)[k] = v;
   }
-  return scenarioSchema.parse(base);
+  return parsed(base);
 }
 
 export const G = 9.80665;
@@ -25,7 +33,7 @@ export const G = 9.80665;
  * the dog; the drive ramps gently to a slow speed. No guide friction or drag, so the load at the dog is
  * exactly weight component + rolling resistance.
  */
-export function standingTrain(over: DeepPartial<ScenarioInput> = {}): Scenario {
+export function standingTrain(over: DeepPartial<ScenarioV1Input> = {}): Scenario {
   const approach = 10;
   const sag = 20;
   const angle = 30;

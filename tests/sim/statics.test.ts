@@ -39,14 +39,14 @@ describe("design statics", () => {
   const d = designStatics(s, { positions: 41 });
   const mu = s.chain.massPerLength;
   const EA = s.chain.axialStiffness;
-  const M = s.train.cars * s.train.carMass;
+  const M = s.trains[0].cars * s.trains[0].carMass;
   const T0 = (s.takeUp.mass * G) / 2;
 
   it("carries half the counterweight in each take-up leg", () => {
     // Source: 2:1 gravity take-up: tension = weight / 2 (common practice, no source).
     expect(d.takeUpTension).toBeCloseTo((s.takeUp.mass * G) / 2, 9);
     // The dynamic model starts in that equilibrium and holds it while the chain runs unloaded.
-    const r = simulate(scenario({ ...s, train: { ...s.train, startPosition: 142 }, run: { duration: 6, segments: 30 } } as never), { frameBudget: 40 });
+    const r = simulate({ ...s, trains: [{ ...s.trains[0], startPosition: 142 }], run: { ...s.run, duration: 6, segments: 30 } }, { frameBudget: 40 });
     const legs = r.layout.takeUpStation;
     const legSeg = r.layout.stations.length % 2 === 1 ? [legs] : [legs - 1, legs];
     for (const seg of legSeg) expect(r.frames[0].tensions[seg]).toBeCloseTo(T0, 6);
@@ -72,7 +72,7 @@ describe("design statics", () => {
   it("gives the tight-side tension T0 + F + 0 (own weight cancels round the strands)", () => {
     // Source: statics of the loop: tension grows by μ·g·Δz and the dog load F; the return strand
     // descends the same height. F = m·g·(sin θ + C_rr cos θ) with the whole train on the incline.
-    const F = M * G * (Math.sin(th) + s.train.rollingResistance * Math.cos(th));
+    const F = M * G * (Math.sin(th) + s.trains[0].rollingResistance * Math.cos(th));
     expect(Math.abs(d.worst.dogLoad - F) / F).toBeLessThan(1e-9);
     expect(Math.abs(d.worst.driveTension - (T0 + F)) / (T0 + F)).toBeLessThan(1e-6);
     // Highest tension at the top: T0 + μ·g·H + F.
@@ -83,7 +83,7 @@ describe("design statics", () => {
   it("stretches the loaded chain by ΣT·L/(E·A)", () => {
     // Source: δ = T·L/(E·A) (Gere & Goodno), integrated: loaded length from the dog up to the top
     // (T = T0 + F + μ·g·z) and down the return strand to the drive.
-    const dogQ = d.worst.trainPosition - s.train.dogOffset - from;
+    const dogQ = d.worst.trainPosition - s.trains[0].dogOffset - from;
     const Lc = to - from;
     const F = d.worst.dogLoad;
     const a = dogQ;
@@ -102,11 +102,11 @@ describe("design statics", () => {
     // the drop is largest where F·L is, i.e. low on the lift (the definition changed: it was taken with the
     // train at the worst drive tension, the top, which underestimates the drop).
     const Lc = to - from;
-    const closed = d.cases.map((c) => (c.dogLoad * (2 * Lc - (c.trainPosition - s.train.dogOffset - from))) / EA);
+    const closed = d.cases.map((c) => (c.dogLoad * (2 * Lc - (c.trainPosition - s.trains[0].dogOffset - from))) / EA);
     d.cases.forEach((c, i) => expect(Math.abs(c.loadStretch - closed[i]) / closed[i]).toBeLessThan(0.002));
     const most = Math.max(...closed);
     expect(Math.abs(d.loadStretch - most) / most).toBeLessThan(0.002);
-    const atWorst = (d.worst.dogLoad * (2 * Lc - (d.worst.trainPosition - s.train.dogOffset - from))) / EA;
+    const atWorst = (d.worst.dogLoad * (2 * Lc - (d.worst.trainPosition - s.trains[0].dogOffset - from))) / EA;
     expect(d.loadStretch).toBeGreaterThanOrEqual(atWorst * (1 - 1e-9));
     expect(d.loadStretchPosition).toBe(d.cases[closed.indexOf(most)].trainPosition);
   });
