@@ -109,7 +109,7 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
 
 /** Peak drive tension over steady drive tension (both at the drive); the peak anywhere is quoted beside it. */
 function snatchCheck(summary: Summary, limits: Limits): Check {
-  const base = { key: "snatch", label: "Snatch factor (peak / steady drive tension)", limit: limits.maxSnatchFactor, unit: "" };
+  const base = { key: "snatch", label: "Peak tension and snatch factor", limit: limits.maxSnatchFactor, unit: "" };
   const snatch = summary.snatchFactor;
   if (snatch === null)
     return {
