@@ -199,8 +199,8 @@ interface Samples {
   ard: boolean[];
 }
 
-/** Step-by-step figures of one train. */
-class TrainRecorder {
+/** Step-by-step figures of one train (exported for its tests). */
+export class TrainRecorder {
   engagementTime: number | null = null;
   engagementSpeed: number | null = null;
   pickupDelay: number | null = null;

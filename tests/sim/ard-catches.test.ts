@@ -1,0 +1,51 @@
+import { describe, expect, it } from "vitest";
+import type { LiftSystem } from "@/sim/rhs";
+import { ARD_CATCH_MIN_OFF_TIME, TrainRecorder } from "@/sim/summary";
+
+/** The few fields of the system a train recorder reads, scripted step by step. */
+function fakeSystem() {
+  return {
+    dogForce: 0,
+    dogDeltaRate: 0,
+    ardForce: 0,
+    tooth: NaN,
+    ax: 0,
+    g: 9.80665,
+    dogOffset: 1,
+    dogRelease: 100,
+    train: { resistingLoad: () => 1 },
+  };
+}
+
+describe("ARD catches and bounces", () => {
+  it("count a new tooth or a landing after 0.25 s off the pawl as a catch, quicker re-touches apart", () => {
+    // Definition (sim/README.md): an ARD catch is the pawl coming down on a new tooth, or on the same tooth
+    // after at least 0.25 s off it; a quicker re-touch of the same tooth is a bounce. A train that starts
+    // resting on the ARD has not been caught.
+    const sys = fakeSystem();
+    const rec = new TrainRecorder(0);
+    let t = 0;
+    const step = (x: number, ard: number, tooth: number, dt = 0.01) => {
+      sys.ardForce = ard;
+      sys.tooth = tooth;
+      rec.step(sys as unknown as LiftSystem, { t, x, vx: 0, y: 0, vy: 0 }, dt, 0);
+      t += dt;
+    };
+    const liftOffAndLand = (offTime: number, tooth: number) => {
+      // Pull 5 mm clear of the tooth, stay off for offTime, come back down on `tooth`.
+      const n = Math.max(2, Math.round(offTime / 0.01));
+      for (let i = 0; i < n; i++) step(10.005, 0, tooth);
+      step(10, 5e4, tooth);
+      step(10, 5e4, tooth);
+    };
+    step(10, 5e4, 9); // starts resting on tooth 9
+    expect(rec.ardCatches).toBe(0);
+    liftOffAndLand(0.1, 9);
+    expect([rec.ardCatches, rec.ardBounces]).toEqual([0, 1]);
+    liftOffAndLand(ARD_CATCH_MIN_OFF_TIME + 0.05, 9);
+    expect([rec.ardCatches, rec.ardBounces]).toEqual([1, 1]);
+    liftOffAndLand(0.05, 9.15); // a new tooth, however quickly
+    expect([rec.ardCatches, rec.ardBounces]).toEqual([2, 1]);
+    expect(rec.lastArdCatchTime).not.toBeNull();
+  });
+});
