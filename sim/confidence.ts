@@ -6,6 +6,8 @@
  * its limit is flagged as not settled instead of flipping silently with the mesh. Pure.
  */
 import type { Check, CheckState } from "./checks";
+import type { Scenario } from "./schema";
+import { simulate } from "./simulate";
 import type { Summary } from "./summary";
 
 /** Figures compared between meshes, with the absolute change below which a difference does not count. */
@@ -119,4 +121,22 @@ export function meshConfidence(fine: MeshRun, coarse: MeshRun, opts: MeshConfide
     ? `Converged: headline figures within ${pct(tolerance)} between ${coarse.segments} and ${fine.segments} segments, verdicts unchanged.`
     : `Not converged between ${coarse.segments} and ${fine.segments} segments (${parts.join("; ")}): refine the mesh before relying on these verdicts.`;
   return { fineSegments: fine.segments, coarseSegments: coarse.segments, converged, figures, flipped, marginal, tolerance, message };
+}
+
+/**
+ * Runs the scenario again at coarserSegments(N) (no series, no frames: about half the cost of the run itself)
+ * and compares. `checksOf` evaluates the checks of a summary the way the caller does for the fine run.
+ */
+export function runMeshConfidence(
+  scenario: Scenario,
+  fine: { summary: Summary; checks: Check[] },
+  checksOf: (summary: Summary) => Check[],
+  opts: MeshConfidenceOptions = {},
+): MeshConfidence {
+  const coarse = simulate(scenario, { segments: coarserSegments(fine.summary.segments), series: false, frameBudget: 0 });
+  return meshConfidence(
+    { segments: fine.summary.segments, summary: fine.summary, checks: fine.checks },
+    { segments: coarse.summary.segments, summary: coarse.summary, checks: checksOf(coarse.summary) },
+    opts,
+  );
 }

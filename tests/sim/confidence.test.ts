@@ -1,6 +1,10 @@
 import { describe, expect, it } from "vitest";
 import type { Check } from "@/sim/checks";
-import { coarserSegments, meshConfidence, type MeshRun } from "@/sim/confidence";
+import { evaluateChecks } from "@/sim/checks";
+import { coarserSegments, meshConfidence, runMeshConfidence, type MeshRun } from "@/sim/confidence";
+import { simulate } from "@/sim/simulate";
+import { designStatics } from "@/sim/statics";
+import { scenario } from "./scenarios";
 import type { Summary } from "@/sim/summary";
 
 function run(segments: number, summary: Record<string, number | null>, checks: Partial<Check>[] = []): MeshRun {
@@ -35,5 +39,18 @@ describe("mesh confidence", () => {
   it("compares against half the segments, at least 4", () => {
     expect(coarserSegments(60)).toBe(30);
     expect(coarserSegments(5)).toBe(4);
+  });
+
+  it("runs the coarser mesh of a real run and compares", () => {
+    const s = scenario({ run: { duration: 30, segments: 60 } });
+    const checksOf = (sum: Parameters<typeof evaluateChecks>[0]) => evaluateChecks(sum, designStatics(s), s.limits);
+    const r = simulate(s, { frameBudget: 0, series: false });
+    const m = runMeshConfidence(s, { summary: r.summary, checks: checksOf(r.summary) }, checksOf);
+    expect(m.fineSegments).toBe(r.summary.segments);
+    expect(m.coarseSegments).toBeLessThan(m.fineSegments);
+    // Source: mesh convergence of the engine (sim/README.md "Validation": doubling the segments changes peak
+    // tension < 2 %).
+    expect(m.figures.find((f) => f.key === "peakTension")!.relativeChange!).toBeLessThan(0.02);
+    expect(m.message.length).toBeGreaterThan(20);
   });
 });
