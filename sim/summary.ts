@@ -167,6 +167,7 @@ class ExposureRecorder {
 
   step(t: number, a: number): void {
     const nOn = Math.min(RIDER_ACCEL_LEVELS, Math.max(0, Math.floor(a / RIDER_ACCEL_LEVEL_STEP + 1e-12)));
+    if (nOn === this.on) return; // nothing opens or closes (most steps)
     const hi = Math.max(nOn, this.on);
     for (let k = 0; k < hi; k++) {
       if (k < nOn) {
