@@ -49,3 +49,25 @@ describe("ARD catches and bounces", () => {
     expect(rec.lastArdCatchTime).not.toBeNull();
   });
 });
+
+describe("rider-acceleration exposure", () => {
+  it("times the filtered acceleration above each level from the first-order step response", () => {
+    // Source: a first-order low-pass with time constant τ answers a step A with A·(1 − e^(−t/τ)) and its end
+    // with A·e^(−t/τ) (Ogata, Modern Control Engineering, first-order systems). A 1 s pulse of 0.3 g is above
+    // 0.25 g from τ·ln(0.3/0.05) after its start until τ·ln(0.3/0.25) after its end.
+    const sys = fakeSystem();
+    const rec = new TrainRecorder(0);
+    const dt = 0.0005;
+    const tau = 0.05;
+    for (let i = 0; i * dt <= 3; i++) {
+      const t = i * dt;
+      sys.ax = t >= 0.5 && t < 1.5 ? -0.3 * sys.g : 0; // slowing: the backward direction
+      rec.step(sys as unknown as LiftSystem, { t, x: 10, vx: 0, y: 0, vy: 0 }, i === 0 ? 0 : dt, 0);
+    }
+    const e = rec.exposure(3);
+    const expected = 1 - tau * Math.log(0.3 / 0.05) + tau * Math.log(0.3 / 0.25);
+    expect(Math.abs(e.backward[4] - expected)).toBeLessThan(0.005); // level 5 × 0.05 = 0.25 g; 0.5 % of τ per step
+    expect(e.forward[4]).toBe(0);
+    expect(e.backwardPeak).toBeCloseTo(0.3, 3);
+  });
+});
