@@ -3,6 +3,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { simulate } from "@/sim/simulate";
 import { parseScenario } from "@/sim/schema";
+import { designStatics } from "@/sim/statics";
 import { G, standingTrain } from "./scenarios";
 
 /** Load at the dog of the standing train on its incline: m·g·(sin θ + C_rr·cos θ) (no drag, no guide friction). */
@@ -96,5 +97,20 @@ describe("pick-up figures", () => {
     expect(r.summary.pickupDelay).toBe(0);
     expect(r.summary.trains).toHaveLength(1);
     expect(r.summary.trains[0].timeToChainSpeed).toBe(r.summary.timeToChainSpeed);
+  });
+});
+
+describe("creep on the demo lifts", () => {
+  it.each(["emberline-clean-pickup", "foxglove-worn-chain"])("%s: the counterweight rises at F·v/(2·E·A)", (key) => {
+    const parsed = parseScenario(JSON.parse(readFileSync(path.join(process.cwd(), "public", "scenarios", `${key}.json`), "utf8")));
+    if (!parsed.ok) throw new Error(parsed.issues[0].message);
+    const s = parsed.scenario;
+    const r = simulate(s, { frameBudget: 0, series: false });
+    // Source: δ = F·L/(E·A) (Gere & Goodno) with L shrinking at v, halved by the 2:1 take-up (common practice);
+    // F is the steady load at the dog from the statics (weight component, rolling resistance, drag, guide
+    // friction). 6 %: guide friction and drag vary a little along the climb.
+    const F = designStatics(s).worst.dogLoad;
+    const expected = -(F * s.drive.speed) / (2 * s.chain.axialStiffness);
+    expect(Math.abs(r.summary.takeUpCreepRate! - expected) / Math.abs(expected)).toBeLessThan(0.06);
   });
 });
