@@ -10,7 +10,7 @@ import type { DynState, IntegratorResult, RunHooks } from "./integrators/types";
 import { LiftSystem } from "./rhs";
 import { parseScenario, type Integrator, type Scenario } from "./schema";
 import { initialState } from "./start";
-import { SummaryRecorder, type Summary } from "./summary";
+import { SummaryRecorder, type StepView, type Summary } from "./summary";
 
 export interface SimulateOptions {
   /** Fraction of simulated time done, 0…1, called about every 1 %. */
@@ -93,7 +93,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
   let nextProgress = 0.01;
   const breaking = s.chain.breakingStrength;
   // Train 0 and the take-up under the names the summary reads.
-  const view = { t: 0, x: 0, vx: 0, y: 0, vy: 0 };
+  const view: StepView = { t: 0, x: 0, vx: 0, y: 0, vy: 0 };
   const viewOf = (x: DynState) => {
     const Y = x.y;
     view.t = x.t;
@@ -101,6 +101,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     view.vx = Y[L.iV + L.iX];
     view.y = Y[L.iY];
     view.vy = Y[L.iV + L.iY];
+    view.Y = Y; // every train's position and speed, for the per-train figures
     return view;
   };
 

@@ -4,7 +4,7 @@
  * over whole periods of the surge (the train-on-chain oscillation), so they do not depend on where in a
  * swing the window happens to start or end. Quantities that did not happen are null, never NaN.
  */
-import type { LiftSystem } from "./rhs";
+import { EVENT_CLICK, EVENT_RELEASE, type LiftSystem } from "./rhs";
 import {
   averageOver,
   dampingRatioFromDecrement,
@@ -138,10 +138,13 @@ export const SUMMARY_DEFINITIONS = {
 
 export interface StepView {
   t: number;
+  /** Train 0's front position and speed, the take-up's drop and its rate. */
   x: number;
   vx: number;
   y: number;
   vy: number;
+  /** The whole state vector (LiftSystem.layout): every train's position and speed. */
+  Y?: ArrayLike<number>;
 }
 
 /** Rider acceleration is smoothed by a first-order low-pass with this time constant (s). */
@@ -187,17 +190,35 @@ class ExposureRecorder {
   }
 }
 
-/** Samples of the signals the steady-climb figures are taken from. */
+/** Samples of the signals the steady-climb figures are taken from (per train: NaN before it appears). */
 interface Samples {
   t: number[];
-  x: number[];
-  v: number[];
+  /** Chain speed at the drive, and the speed the drive is asked for (ramp, stops). */
   vd: number[];
+  vref: number[];
   driveTension: number[];
   power: number[];
   y: number[];
-  dog: boolean[];
-  ard: boolean[];
+  trains: { x: number[]; v: number[]; dog: boolean[]; ard: boolean[] }[];
+}
+
+/** What a train recorder needs of its train that does not change along a run. */
+export interface TrainContext {
+  g: number;
+  dogOffset: number;
+  dogRelease: number;
+  resistingLoad(x: number, v: number): number;
+}
+
+/** A train's contact forces and events after a step. */
+export interface TrainContacts {
+  dogForce: number;
+  dogDeltaRate: number;
+  ardForce: number;
+  /** Tooth under the pawl carrying the ARD force (or the first pawl). */
+  tooth: number;
+  ax: number;
+  events: number;
 }
 
 /** Step-by-step figures of one train (exported for its tests). */
@@ -227,54 +248,56 @@ export class TrainRecorder {
   dogReleaseTime: number | null = null;
   maxTrainSpeed: number;
 
-  constructor(entrySpeed: number) {
+  constructor(
+    entrySpeed: number,
+    private readonly ctx: TrainContext,
+  ) {
     this.maxTrainSpeed = entrySpeed;
   }
 
-  step(sys: LiftSystem, v: StepView, dt: number, events: number): void {
-    const t = v.t;
-    const dogF = sys.dogForce;
+  step(t: number, x: number, vx: number, dt: number, c: TrainContacts): void {
+    const dogF = c.dogForce;
     if (dogF > 0 && this.engagementTime === null) {
       this.engagementTime = t;
-      this.engagementSpeed = sys.dogDeltaRate;
+      this.engagementSpeed = c.dogDeltaRate;
     }
     if (this.engagementTime !== null && this.pickupDelay === null && dogF > 0) {
-      if (dogF >= sys.train.resistingLoad(v.x, v.vx)) this.pickupDelay = t - this.engagementTime;
+      if (dogF >= this.ctx.resistingLoad(x, vx)) this.pickupDelay = t - this.engagementTime;
     }
     if (dogF > this.peakDogForce) this.peakDogForce = dogF;
-    if (v.x > this.xMax || this.xMax !== this.xMax) this.xMax = v.x;
-    if (this.xMax - v.x > this.rollback) this.rollback = this.xMax - v.x;
+    if (x > this.xMax || this.xMax !== this.xMax) this.xMax = x;
+    if (this.xMax - x > this.rollback) this.rollback = this.xMax - x;
     // The pawl comes down on a tooth after the train had pulled at least ARD_LIFT_OFF clear of where it now
     // lands (light re-touches of a resting pawl are not landings). A landing on a new tooth, or after
     // ARD_CATCH_MIN_OFF_TIME off the pawl, is a catch; a quicker re-touch of the same tooth is a bounce.
     // A train that starts resting on the ARD has not been caught.
-    const ard = sys.ardForce;
+    const ard = c.ardForce;
     if (this.first) {
-      if (ard > 0) this.lastTooth = sys.tooth;
-    } else if (ard > 0 && !this.ardOn && this.xSinceArd - v.x > ARD_LIFT_OFF) {
-      if (sys.tooth !== this.lastTooth || t - this.ardOffSince >= ARD_CATCH_MIN_OFF_TIME) {
+      if (ard > 0) this.lastTooth = c.tooth;
+    } else if (ard > 0 && !this.ardOn && this.xSinceArd - x > ARD_LIFT_OFF) {
+      if (c.tooth !== this.lastTooth || t - this.ardOffSince >= ARD_CATCH_MIN_OFF_TIME) {
         this.ardCatches++;
         this.lastArdCatchTime = t;
       } else this.ardBounces++;
-      this.lastTooth = sys.tooth;
+      this.lastTooth = c.tooth;
     }
-    if (ard > 0) this.xSinceArd = v.x;
-    else if (v.x > this.xSinceArd) this.xSinceArd = v.x;
+    if (ard > 0) this.xSinceArd = x;
+    else if (x > this.xSinceArd) this.xSinceArd = x;
     if (ard <= 0 && this.ardOn) this.ardOffSince = t;
     this.ardOn = ard > 0;
     this.first = false;
     if (ard > this.peakArdForce) this.peakArdForce = ard;
     const a = dt > 0 ? dt / (RIDER_ACCEL_TIME_CONSTANT + dt) : 0;
-    this.accelFiltered += (sys.ax - this.accelFiltered) * a;
-    const g = this.accelFiltered / sys.g;
+    this.accelFiltered += (c.ax - this.accelFiltered) * a;
+    const g = this.accelFiltered / this.ctx.g;
     if (Math.abs(g) > this.peakRiderAccel) this.peakRiderAccel = Math.abs(g);
     this.fwd.step(t, g);
     this.bwd.step(t, -g);
     if (g > this.fwdPeak) this.fwdPeak = g;
     if (-g > this.bwdPeak) this.bwdPeak = -g;
-    if (v.vx > this.maxTrainSpeed) this.maxTrainSpeed = v.vx;
-    if (events & 2) this.dogClicks++;
-    if (events & 8 && this.dogReleaseTime === null && v.x - sys.dogOffset >= sys.dogRelease) this.dogReleaseTime = t;
+    if (vx > this.maxTrainSpeed) this.maxTrainSpeed = vx;
+    if (c.events & EVENT_CLICK) this.dogClicks++;
+    if (c.events & EVENT_RELEASE && this.dogReleaseTime === null && x - this.ctx.dogOffset >= this.ctx.dogRelease) this.dogReleaseTime = t;
   }
 
   exposure(t: number): RiderAccelExposure {
@@ -338,6 +361,10 @@ export function surgeFigures(
   from: number,
   chainSpeed: number,
 ): SurgeFigures {
+  // A train that appears later has no speed before then: work from its first sample.
+  let k0 = 0;
+  while (k0 < i0 && !Number.isFinite(v[k0])) k0++;
+  if (k0 > 0) return surgeFigures(t.slice(k0), v.slice(k0), i0 - k0, i1 - k0, carriedFrom, from, chainSpeed);
   const tw = slice(t, i0, i1);
   const vw = slice(v, i0, i1);
   // The period over the steady climb (the mode stiffens as the loaded length shrinks, so this is the one its
@@ -431,15 +458,31 @@ export class SummaryRecorder {
   peakDrivePower = 0;
   peakDriveTorque = 0;
   private readonly trains: TrainRecorder[];
-  private readonly samples: Samples = { t: [], x: [], v: [], vd: [], driveTension: [], power: [], y: [], dog: [], ard: [] };
+  private readonly samples: Samples;
   private nextSample = 0;
   private readonly halfD: number;
+  private readonly contacts: TrainContacts = { dogForce: 0, dogDeltaRate: 0, ardForce: 0, tooth: NaN, ax: 0, events: 0 };
 
   constructor(sys: LiftSystem) {
     this.sys = sys;
     this.halfD = sys.s.chain.pitch / Math.sin(Math.PI / sys.s.drive.sprocketTeeth) / 2;
-    // One recorder per train the system carries (the engine carries trains[0] so far).
-    this.trains = [new TrainRecorder(sys.s.trains[0].entrySpeed)];
+    this.trains = sys.trains.map(
+      (tr) =>
+        new TrainRecorder(tr.settings.entrySpeed, {
+          g: sys.g,
+          dogOffset: tr.dogOffset,
+          dogRelease: sys.dogRelease,
+          resistingLoad: (x, v) => tr.model.resistingLoad(x, v),
+        }),
+    );
+    this.samples = { t: [], vd: [], vref: [], driveTension: [], power: [], y: [], trains: sys.trains.map(() => ({ x: [], v: [], dog: [], ard: [] })) };
+  }
+
+  /** Front position and speed of train j at this step. */
+  private trainAt(v: StepView, j: number): [number, number] {
+    if (!v.Y) return [v.x, v.vx];
+    const L = this.sys.layout;
+    return [v.Y[L.iX + j], v.Y[L.iV + L.iX + j]];
   }
 
   /** Called after each accepted step, with the system evaluated at that state. */
@@ -452,7 +495,19 @@ export class SummaryRecorder {
       this.peakTensionSeg = sys.maxTSeg;
     }
     if (sys.driveTension > this.peakDriveTension) this.peakDriveTension = sys.driveTension;
-    for (const tr of this.trains) tr.step(sys, v, dt, events);
+    const c = this.contacts;
+    for (let j = 0; j < this.trains.length; j++) {
+      const st = sys.trains[j];
+      if (!st.active) continue;
+      const [x, vx] = this.trainAt(v, j);
+      c.dogForce = st.dogForce;
+      c.dogDeltaRate = st.dogDeltaRate;
+      c.ardForce = st.ardForce;
+      c.tooth = st.tooth[st.ardPawl >= 0 ? st.ardPawl : 0];
+      c.ax = st.ax;
+      c.events = this.trains.length === 1 ? events : st.events;
+      this.trains[j].step(t, x, vx, dt, c);
+    }
     if (v.y > this.yMax) this.yMax = v.y;
     if (v.y < this.yMin) this.yMin = v.y;
     if (sys.stopForce !== 0) this.endStop = true;
@@ -464,14 +519,20 @@ export class SummaryRecorder {
     if (t >= this.nextSample) {
       const s = this.samples;
       s.t.push(t);
-      s.x.push(v.x);
-      s.v.push(v.vx);
-      s.vd.push(sys.drive.velocity(t));
+      s.vd.push(sys.driveSpeed);
+      s.vref.push(sys.drive.velocity(t));
       s.driveTension.push(sys.driveTension);
       s.power.push(p);
       s.y.push(v.y);
-      s.dog.push(sys.dogForce > 0);
-      s.ard.push(sys.ardForce > 0);
+      for (let j = 0; j < s.trains.length; j++) {
+        const st = sys.trains[j];
+        const [x, vx] = st.active ? this.trainAt(v, j) : [NaN, NaN];
+        const tj = s.trains[j];
+        tj.x.push(x);
+        tj.v.push(vx);
+        tj.dog.push(st.dogForce > 0);
+        tj.ard.push(st.ardForce > 0);
+      }
       this.nextSample = (Math.floor(t / SAMPLE_INTERVAL + 1e-9) + 1) * SAMPLE_INTERVAL;
     }
   }
@@ -491,10 +552,38 @@ export class SummaryRecorder {
     const V = sys.s.drive.speed;
     const rear = sys.track.inclineStart;
     const crest = sys.track.crestStart;
-    const trainLength = sys.train.length;
 
-    const trains: TrainSummary[] = this.trains.map((tr) => {
-      const tcs = timeToChainSpeed(s, tr.engagementTime, tr.lastArdCatchTime);
+    // Steady climb of train j: the longest stretch with the whole train on the straight incline, carried (at
+    // chain speed once, never back on the ARD since, the dog in contact within the last half second: a surge
+    // may lift it off briefly) and the drive asked for full speed.
+    const steadyOf = (j: number, carriedFrom: number): [number, number] | null => {
+      const tj = s.trains[j];
+      const length = sys.trains[j].model.length;
+      let lastDog = -Infinity;
+      const dogRecent = s.t.map((ti, i) => {
+        if (tj.dog[i]) lastDog = ti;
+        return ti - lastDog <= 0.5;
+      });
+      return longestRun(
+        n,
+        (i) =>
+          s.t[i] >= carriedFrom &&
+          tj.x[i] - length >= rear &&
+          tj.x[i] <= crest &&
+          dogRecent[i] &&
+          !tj.ard[i] &&
+          s.vref[i] >= V * 0.999,
+      );
+    };
+
+    const steadyRuns: ([number, number] | null)[] = [];
+    const trains: TrainSummary[] = this.trains.map((tr, j) => {
+      const tj = s.trains[j];
+      const tcs = timeToChainSpeed({ t: s.t, v: tj.v, vd: s.vd }, tr.engagementTime, tr.lastArdCatchTime);
+      const carriedFrom = tr.engagementTime !== null && tcs !== null ? tr.engagementTime + tcs : Infinity;
+      const run = steadyOf(j, carriedFrom);
+      steadyRuns.push(run);
+      const surge = run ? surgeFigures(s.t, tj.v, run[0], run[1], carriedFrom, tr.engagementTime ?? s.t[run[0]], V) : null;
       return {
         engagementTime: tr.engagementTime,
         engagementSpeed: tr.engagementSpeed,
@@ -508,47 +597,28 @@ export class SummaryRecorder {
         peakArdCompression: tr.peakArdForce / sys.ardStiffness,
         peakRiderAccel: tr.peakRiderAccel,
         riderAccelExposure: tr.exposure(extra.simulatedTime),
-        surgeAmplitude: null,
-        surgeDampingRatio: null,
-        surgePeriod: null,
+        surgeAmplitude: surge?.amplitude ?? null,
+        surgeDampingRatio: surge?.dampingRatio ?? null,
+        surgePeriod: surge?.period ?? null,
         dogClicks: tr.dogClicks,
         dogReleaseTime: tr.dogReleaseTime,
         maxTrainSpeed: tr.maxTrainSpeed,
       };
     });
 
-    // Steady climb of the first train: the longest stretch with the whole train on the straight incline,
-    // carried (at chain speed once, never back on the ARD since, the dog in contact within the last half
-    // second: a surge may lift it off briefly) and the drive at full speed.
+    // The lift's steady figures come from the first train's steady climb.
     const first = trains[0];
-    const carriedFrom = first.engagementTime !== null && first.timeToChainSpeed !== null ? first.engagementTime + first.timeToChainSpeed : Infinity;
-    let lastDog = -Infinity;
-    const dogRecent = s.t.map((ti, i) => {
-      if (s.dog[i]) lastDog = ti;
-      return ti - lastDog <= 0.5;
-    });
-    const run = longestRun(
-      n,
-      (i) =>
-        s.t[i] >= carriedFrom &&
-        s.x[i] - trainLength >= rear &&
-        s.x[i] <= crest &&
-        dogRecent[i] &&
-        !s.ard[i] &&
-        s.vd[i] >= V * 0.999,
-    );
+    const run = steadyRuns[0];
     let steadyTension: number | null = null;
     let steadyPower: number | null = null;
     let steadyChainSpeed: number | null = null;
     let creep: number | null = null;
     let steadyDuration = 0;
-    let surge: SurgeFigures = { period: null, amplitude: null, dampingRatio: null };
     if (run) {
       const [i0, i1] = run;
       steadyDuration = s.t[i1] - s.t[i0];
-      surge = surgeFigures(s.t, s.v, i0, i1, carriedFrom, first.engagementTime ?? s.t[i0], V);
       // Average over whole surge periods (centred in the climb), or the whole climb when there is no surge.
-      const P = surge.period;
+      const P = first.surgePeriod;
       let a = s.t[i0];
       let b = s.t[i1];
       if (P !== null && P <= b - a) {
@@ -563,9 +633,6 @@ export class SummaryRecorder {
         steadyChainSpeed = averageOver(s.t, s.vd, a, b);
       }
       creep = creepRate(s.t, s.y, i0, i1, P);
-      first.surgeAmplitude = surge.amplitude;
-      first.surgeDampingRatio = surge.dampingRatio;
-      first.surgePeriod = surge.period;
     }
 
     const loop = sys.loop;

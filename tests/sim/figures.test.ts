@@ -114,3 +114,21 @@ describe("creep on the demo lifts", () => {
     expect(Math.abs(r.summary.takeUpCreepRate! - expected) / Math.abs(expected)).toBeLessThan(0.06);
   });
 });
+
+describe("several trains", () => {
+  it("report per-train figures; the flat keys are peaks over all trains and times of the first", () => {
+    const s = JSON.parse(readFileSync(path.join(process.cwd(), "sim", "examples", "lift-hill-example-v2.json"), "utf8"));
+    s.trains.push({ ...s.trains[0], startTime: 12 });
+    s.run = { ...s.run, duration: 30, segments: 30 };
+    const r = simulate(s, { frameBudget: 0, series: false });
+    const [a, b] = r.summary.trains;
+    expect(r.summary.trains).toHaveLength(2);
+    // Definition (sim/README.md, Summary): flat keys describe the lift as a whole.
+    expect(b.engagementTime!).toBeGreaterThan(12); // the second train appears at 12 s
+    expect(r.summary.engagementTime).toBe(a.engagementTime);
+    expect(r.summary.timeToChainSpeed).toBe(a.timeToChainSpeed);
+    expect(r.summary.peakDogForce).toBe(Math.max(a.peakDogForce, b.peakDogForce));
+    expect(r.summary.peakRiderAccel).toBe(Math.max(a.peakRiderAccel, b.peakRiderAccel));
+    expect(r.summary.ardCatches).toBe(a.ardCatches + b.ardCatches);
+  });
+});

@@ -1,20 +1,12 @@
 import { describe, expect, it } from "vitest";
-import type { LiftSystem } from "@/sim/rhs";
-import { ARD_CATCH_MIN_OFF_TIME, TrainRecorder } from "@/sim/summary";
+import { ARD_CATCH_MIN_OFF_TIME, TrainRecorder, type TrainContacts } from "@/sim/summary";
 
-/** The few fields of the system a train recorder reads, scripted step by step. */
-function fakeSystem() {
-  return {
-    dogForce: 0,
-    dogDeltaRate: 0,
-    ardForce: 0,
-    tooth: NaN,
-    ax: 0,
-    g: 9.80665,
-    dogOffset: 1,
-    dogRelease: 100,
-    train: { resistingLoad: () => 1 },
-  };
+const G = 9.80665;
+const context = { g: G, dogOffset: 1, dogRelease: 100, resistingLoad: () => 1 };
+
+/** A train's contacts, scripted step by step. */
+function fakeContacts(): TrainContacts {
+  return { dogForce: 0, dogDeltaRate: 0, ardForce: 0, tooth: NaN, ax: 0, events: 0 };
 }
 
 describe("ARD catches and bounces", () => {
@@ -22,13 +14,13 @@ describe("ARD catches and bounces", () => {
     // Definition (sim/README.md): an ARD catch is the pawl coming down on a new tooth, or on the same tooth
     // after at least 0.25 s off it; a quicker re-touch of the same tooth is a bounce. A train that starts
     // resting on the ARD has not been caught.
-    const sys = fakeSystem();
-    const rec = new TrainRecorder(0);
+    const c = fakeContacts();
+    const rec = new TrainRecorder(0, context);
     let t = 0;
     const step = (x: number, ard: number, tooth: number, dt = 0.01) => {
-      sys.ardForce = ard;
-      sys.tooth = tooth;
-      rec.step(sys as unknown as LiftSystem, { t, x, vx: 0, y: 0, vy: 0 }, dt, 0);
+      c.ardForce = ard;
+      c.tooth = tooth;
+      rec.step(t, x, 0, dt, c);
       t += dt;
     };
     const liftOffAndLand = (offTime: number, tooth: number) => {
@@ -55,14 +47,14 @@ describe("rider-acceleration exposure", () => {
     // Source: a first-order low-pass with time constant τ answers a step A with A·(1 − e^(−t/τ)) and its end
     // with A·e^(−t/τ) (Ogata, Modern Control Engineering, first-order systems). A 1 s pulse of 0.3 g is above
     // 0.25 g from τ·ln(0.3/0.05) after its start until τ·ln(0.3/0.25) after its end.
-    const sys = fakeSystem();
-    const rec = new TrainRecorder(0);
+    const c = fakeContacts();
+    const rec = new TrainRecorder(0, context);
     const dt = 0.0005;
     const tau = 0.05;
     for (let i = 0; i * dt <= 3; i++) {
       const t = i * dt;
-      sys.ax = t >= 0.5 && t < 1.5 ? -0.3 * sys.g : 0; // slowing: the backward direction
-      rec.step(sys as unknown as LiftSystem, { t, x: 10, vx: 0, y: 0, vy: 0 }, i === 0 ? 0 : dt, 0);
+      c.ax = t >= 0.5 && t < 1.5 ? -0.3 * G : 0; // slowing: the backward direction
+      rec.step(t, 10, 0, i === 0 ? 0 : dt, c);
     }
     const e = rec.exposure(3);
     const expected = 1 - tau * Math.log(0.3 / 0.05) + tau * Math.log(0.3 / 0.25);
