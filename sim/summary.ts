@@ -108,9 +108,9 @@ export const SUMMARY_DEFINITIONS = {
   peakTension: "Highest tension in any chain segment during the run.",
   peakDriveTension: "Highest tight-side tension arriving at the drive sprocket during the run.",
   steadyTension:
-    "Drive tension averaged over whole surge periods of the steady climb (whole train on the straight incline, carried by the dog at chain speed, drive at full speed).",
+    "Drive tension averaged over whole surge periods of the steady climb (whole train on the straight incline, carried by the dog at chain speed, the drive asked for full speed).",
   snatchFactor: "Peak drive tension / steady drive tension (both at the drive, so the chain's own weight does not inflate it).",
-  steadyChainSpeed: "Mean drive chain speed over the steady climb.",
+  steadyChainSpeed: "Mean chain speed at the drive over the steady climb (below the set speed by the motor's slip).",
   surgeAmplitude:
     "Half the peak-to-peak swing of the train's speed about its mean filtered over one surge period, over the steady climb (m/s).",
   surgeDampingRatio:
@@ -121,7 +121,7 @@ export const SUMMARY_DEFINITIONS = {
   pickupDelay:
     "Load pick-up delay: first dog contact → first moment the dog force reaches the train's resisting load (weight component + rolling resistance + drag). 0 when the catch happens where the load is already carried, e.g. on the flat.",
   timeToChainSpeed:
-    "Time to chain speed: first dog contact → the train's speed within 5 % of the chain speed, after which it no longer settles back onto the ARD (a surge about chain speed afterwards is reported as the surge amplitude).",
+    "Time to chain speed: first dog contact → the train's speed within 5 % of the chain speed at the drive, after which it no longer settles back onto the ARD (a surge about chain speed afterwards is reported as the surge amplitude).",
   peakDogForce: "Highest force between the dog and a catch point.",
   rollbackDistance: "Largest backward travel of the train from its furthest position.",
   ardCatches: "Times the pawl came down on the ARD: on a new tooth, or after at least 0.25 s off the pawl.",
