@@ -206,7 +206,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
       `The train rolled back ${sum.rollbackDistance.toFixed(3)} m, more than one tooth spacing (${s.antiRollback.toothSpacing} m): an anti-rollback failure in this model.`,
     );
   if (sum.ardCatches > 0) notes.push(`The train settled back onto the ARD ${sum.ardCatches} time(s).`);
-  if (sum.steadyTension === null) notes.push("No steady climb was reached (whole train on the incline, dog engaged, speed ≥ 95 % of chain speed).");
+  if (sum.steadyTension === null) notes.push("No steady climb was reached (whole train on the straight incline, carried by the dog at chain speed, drive at full speed).");
   if (sum.minSafetyFactor < s.limits.requiredSafetyFactor)
     notes.push(`The safety factor fell to ${sum.minSafetyFactor.toFixed(2)} (required ${s.limits.requiredSafetyFactor}).`);
   notes.push("Results support, and never replace, review by a qualified engineer; local codes, the manufacturer's data and licensed practice govern.");
