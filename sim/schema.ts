@@ -263,9 +263,22 @@ export const limitsSchema = z.object({
   requiredSafetyFactor: num("limits.requiredSafetyFactor", "", { min: 1, max: 50 }).default(5),
   maxSnatchFactor: num("limits.maxSnatchFactor", "", { min: 1, max: 20 }).default(2),
   motorRating: num("limits.motorRating", "W", { gt: 0, max: 1e8 }).optional(),
+  /** Rider-acceleration envelope (filtered longitudinal acceleration, g, and the longest time above it, s). */
   maxRiderAccel: num("limits.maxRiderAccel", "g", { gt: 0, max: 10 }).default(0.5),
+  riderAccelBriefDuration: num("limits.riderAccelBriefDuration", "s", { min: 0, max: 60 }).default(0.5),
+  riderAccelSustained: num("limits.riderAccelSustained", "g", { gt: 0, max: 10 }).default(0.3),
+  riderAccelSustainedDuration: num("limits.riderAccelSustainedDuration", "s", { min: 0, max: 600 }).default(2),
+  riderAccelCeiling: num("limits.riderAccelCeiling", "g", { gt: 0, max: 10 }).default(1),
+  riderAccelBackwardScale: num("limits.riderAccelBackwardScale", "", { gt: 0, max: 10 }).default(1),
   allowRollback: bool("limits.allowRollback").default(false),
   maxPickupDelay: num("limits.maxPickupDelay", "s", { gt: 0, max: 60 }).default(1.5),
+  maxTimeToChainSpeed: num("limits.maxTimeToChainSpeed", "s", { gt: 0, max: 120 }).default(3),
+  /** Chain working load: the maker's allowable working load, N, or else this fraction of breaking strength. */
+  allowableWorkingLoad: num("limits.allowableWorkingLoad", "N", { gt: 0, max: 1e8 }).optional(),
+  workingLoadFraction: num("limits.workingLoadFraction", "", { gt: 0, max: 1 }).default(1 / 7),
+  /** Breaking strength over ASME B29.1's 12,500·P² lbf: outside this band is a caution. */
+  minBreakingRatio: num("limits.minBreakingRatio", "", { min: 0, max: 100 }).default(1),
+  maxBreakingRatio: num("limits.maxBreakingRatio", "", { gt: 0, max: 100 }).default(4),
   wearAllowance: num("limits.wearAllowance", "% elongation", { min: 0, max: 10 }).default(3),
   thermalDeltaT: num("limits.thermalDeltaT", "K", { min: 0, max: 200 }).default(40),
   thermalExpansion: num("limits.thermalExpansion", "1/K", { min: 0, max: 1e-4 }).default(11.7e-6),
@@ -279,10 +292,26 @@ export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> 
     "2: a suddenly applied load on a spring–mass peaks at twice its static value (e.g. Rao, Mechanical Vibrations). Assumption as a limit.",
   motorRating: "The installed motor's rating: the user's input (no default).",
   maxRiderAccel:
-    "0.5 g longitudinal at pick-up: assumption. Patron acceleration limits are set by ASTM F2291 (by axis and duration); its numeric envelope is not reproduced here.",
+    "0.5 g, exceeded for at most riderAccelBriefDuration at a time (filtered longitudinal acceleration): assumption, not the standard's number. Patron acceleration limits are set by ASTM F2291 (by axis, direction and duration); enter your organisation's envelope from it — its numbers are not reproduced here.",
+  riderAccelBriefDuration: "0.5 s: assumption (see maxRiderAccel).",
+  riderAccelSustained:
+    "0.3 g, exceeded for at most riderAccelSustainedDuration at a time: assumption, not the standard's number (ASTM F2291 governs).",
+  riderAccelSustainedDuration: "2 s: assumption (see riderAccelSustained).",
+  riderAccelCeiling: "1 g never exceeded, however briefly (filtered): assumption, not the standard's number (ASTM F2291 governs).",
+  riderAccelBackwardScale:
+    "1: the envelope's levels for slowing (rider pitched forward) are the forward levels × this: assumption; the standard's allowances differ by direction.",
   allowRollback:
     "false: any train settling back onto the ARD fails the check. A rollback of more than one tooth spacing always fails (the model's definition of an ARD failure).",
-  maxPickupDelay: "1.5 s from first dog contact to full pick-up: assumption.",
+  maxPickupDelay: "1.5 s from first dog contact until the dog carries the train's load: assumption.",
+  maxTimeToChainSpeed: "3 s from first dog contact until the train runs within 5 % of chain speed: assumption.",
+  allowableWorkingLoad:
+    "The chain maker's allowable working load (fatigue-rated), N: the user's input from the maker's data (no default; workingLoadFraction applies without it).",
+  workingLoadFraction:
+    "1/7 of breaking strength when no allowable working load is given: assumption (chain makers limit working load to roughly 1/6–1/9 of ultimate strength).",
+  minBreakingRatio:
+    "1: breaking strength at least ASME B29.1's minimum ultimate tensile strength for standard roller chain, 12,500·P² lbf per strand (P in inches); below it is a caution (non-standard chain, or check the input).",
+  maxBreakingRatio:
+    "4 × ASME B29.1's 12,500·P² lbf: assumption (about four strands); above it is a caution (check the input or the chain type).",
   wearAllowance:
     "3 % elongation: replace roller chain at about 3 % (lower, ≈1.5 %, where fixed centres matter): common practice, no source.",
   thermalDeltaT: "40 K between installation and the extreme service temperature: assumption.",

@@ -10,7 +10,7 @@ import type { DynState, IntegratorResult, RunHooks } from "./integrators/types";
 import { LiftSystem } from "./rhs";
 import { parseScenario, type Integrator, type Scenario } from "./schema";
 import { initialState } from "./start";
-import { SummaryRecorder, type Summary } from "./summary";
+import { SummaryRecorder, type StepView, type Summary } from "./summary";
 
 export interface SimulateOptions {
   /** Fraction of simulated time done, 0…1, called about every 1 %. */
@@ -93,7 +93,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
   let nextProgress = 0.01;
   const breaking = s.chain.breakingStrength;
   // Train 0 and the take-up under the names the summary reads.
-  const view = { t: 0, x: 0, vx: 0, y: 0, vy: 0 };
+  const view: StepView = { t: 0, x: 0, vx: 0, y: 0, vy: 0 };
   const viewOf = (x: DynState) => {
     const Y = x.y;
     view.t = x.t;
@@ -101,6 +101,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     view.vx = Y[L.iV + L.iX];
     view.y = Y[L.iY];
     view.vy = Y[L.iV + L.iY];
+    view.Y = Y; // every train's position and speed, for the per-train figures
     return view;
   };
 
@@ -205,7 +206,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
       `The train rolled back ${sum.rollbackDistance.toFixed(3)} m, more than one tooth spacing (${s.antiRollback.toothSpacing} m): an anti-rollback failure in this model.`,
     );
   if (sum.ardCatches > 0) notes.push(`The train settled back onto the ARD ${sum.ardCatches} time(s).`);
-  if (sum.steadyTension === null) notes.push("No steady climb was reached (whole train on the incline, dog engaged, speed ≥ 95 % of chain speed).");
+  if (sum.steadyTension === null) notes.push("No steady climb was reached (whole train on the straight incline, carried by the dog at chain speed, drive at full speed).");
   if (sum.minSafetyFactor < s.limits.requiredSafetyFactor)
     notes.push(`The safety factor fell to ${sum.minSafetyFactor.toFixed(2)} (required ${s.limits.requiredSafetyFactor}).`);
   notes.push("Results support, and never replace, review by a qualified engineer; local codes, the manufacturer's data and licensed practice govern.");

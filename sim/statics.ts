@@ -4,7 +4,8 @@
  * Steady running: chain at `drive.speed`, take-up at rest carrying m·g/2 in each leg, tension growing in the
  * direction of travel by own weight, guide friction (coefficient × normal load, incl. tension × curvature)
  * and the train's load at the dog. Sources: δ = T·L/(E·A) (Gere & Goodno); 2:1 take-up moves half the
- * chain's elongation (common practice); D = p/sin(180°/N), Δr/R = 1 − cos(180°/N),
+ * chain's elongation (common practice): a loaded chain is longer, so the counterweight DROPS when the train is
+ * picked up, and rises again as the loaded length shrinks on the climb; D = p/sin(180°/N), Δr/R = 1 − cos(180°/N),
  * Δv/v = (π/N)[1/sin(180°/N) − 1/tan(180°/N)] (Juvinall & Marshek).
  */
 import { trackPositionOf } from "./loop";
@@ -27,6 +28,8 @@ export interface TrainPositionCase {
   /** Tight-side tension at the drive, N. */
   driveTension: number;
   maxTension: number;
+  /** Added stretch of the whole loop with the train here vs empty, m (the counterweight drops by half of it). */
+  loadStretch: number;
 }
 
 export interface DesignStatics {
@@ -42,20 +45,32 @@ export interface DesignStatics {
   loadedLength: number;
   /** Static stretch of the loaded chain, Σ T·L / (E·A) over the loaded length, m. */
   loadedStretch: number;
-  /** Added stretch of the whole loop when the train is on (worst) vs empty, m. */
+  /** Added stretch of the whole loop with the train on vs empty, m: the largest over train positions (the
+   * longest loaded length, usually the train low on the lift), which sets the counterweight's drop. */
   loadStretch: number;
+  /** Train front position at which the added stretch is largest, m. */
+  loadStretchPosition: number;
   /** Take-up travel budget, m. */
   takeUp: {
-    elasticExcursion: number; // half the load stretch (counterweight rises)
-    wearAllowance: number; // half the wear elongation of the loop
+    elasticExcursion: number; // half the largest load stretch: the counterweight drops this far when loaded
+    wearAllowance: number; // half the wear elongation of the loop (reported apart from the elastic budget)
     thermal: number; // half of α·ΔT·loop length
+    /** Elastic + wear allowance + thermal: the travel to run to the wear limit without shortening the chain. */
     required: number;
     travel: number;
     margin: number; // travel − required
-    /** Room above the weight (it rises when loaded) and below it (wear and heat make it drop). */
+    /** Elastic + thermal: the travel the running lift needs (wear is taken up by shortening the chain). */
+    runningRequired: number;
+    runningMargin: number; // travel − runningRequired
+    /** Wear elongation of the loop that the travel left after elastic + thermal can take up, % (≤ 0: none). */
+    wearCapacity: number;
+    /** Room above the weight and below it: it drops when loaded, and as the chain wears or warms. */
     roomAbove: number;
     roomBelow: number;
   };
+  /** Chain data the checks compare: breaking strength, N, and pitch, m. */
+  breakingStrength: number;
+  pitch: number;
   safetyFactor: number;
   requiredSafetyFactor: number;
   /** Drive pull (tight − slack side), N; motor power P = pull·v/η, W; sprocket torque = pull·D/2, N·m. */
@@ -147,6 +162,7 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
   const cases: TrainPositionCase[] = [];
   const xLo = from + dogOffset;
   const xHi = s.lift.dogRelease + dogOffset;
+  const empty = profile(null, 0);
   let worst: TrainPositionCase | null = null;
   let worstProfile: TensionProfile | null = null;
   for (let i = 0; i < nPos; i++) {
@@ -154,7 +170,9 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
     const load = Math.max(0, train.resistingLoad(x, V));
     const p = profile(x - dogOffset - from, load);
     const driveT = p.tension[nq];
-    const c: TrainPositionCase = { trainPosition: x, dogLoad: load, driveTension: driveT, maxTension: Math.max(...p.tension) };
+    let added = 0;
+    for (let k = 0; k < nq; k++) added += ((0.5 * (p.tension[k] + p.tension[k + 1] - empty.tension[k] - empty.tension[k + 1])) * h) / EA;
+    const c: TrainPositionCase = { trainPosition: x, dogLoad: load, driveTension: driveT, maxTension: Math.max(...p.tension), loadStretch: added };
     cases.push(c);
     if (!worst || driveT > worst.driveTension) {
       worst = c;
@@ -163,20 +181,22 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
   }
   const w = worst!;
   const wp = worstProfile!;
-  const empty = profile(null, 0);
   const dogQ = w.trainPosition - dogOffset - from;
   let loadedStretch = 0;
-  let loadStretch = 0;
   for (let k = 0; k < nq; k++) {
     const Tm = 0.5 * (wp.tension[k] + wp.tension[k + 1]);
-    const Te = 0.5 * (empty.tension[k] + empty.tension[k + 1]);
     if ((k + 0.5) * h >= dogQ) loadedStretch += (Tm * h) / EA;
-    loadStretch += ((Tm - Te) * h) / EA;
   }
+  // The counterweight's drop is set by the largest added stretch over train positions (the longest loaded
+  // length), not by the worst drive tension (the train at the top, the shortest loaded length).
+  let longest = cases[0];
+  for (const c of cases) if (c.loadStretch > longest.loadStretch) longest = c;
+  const loadStretch = longest.loadStretch;
   const elastic = loadStretch / 2;
   const wear = ((limits.wearAllowance / 100) * Ltot) / 2;
   const thermal = (limits.thermalExpansion * limits.thermalDeltaT * Ltot) / 2;
-  const required = elastic + wear + thermal;
+  const running = elastic + thermal;
+  const required = running + wear;
   const D = s.chain.pitch / Math.sin(Math.PI / s.drive.sprocketTeeth);
   const pull = w.driveTension - T0;
   const eta = s.drive.efficiency;
@@ -189,6 +209,7 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
     loadedLength: 2 * Lc - dogQ,
     loadedStretch,
     loadStretch,
+    loadStretchPosition: longest.trainPosition,
     takeUp: {
       elasticExcursion: elastic,
       wearAllowance: wear,
@@ -196,6 +217,9 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
       required,
       travel: s.takeUp.travel,
       margin: s.takeUp.travel - required,
+      runningRequired: running,
+      runningMargin: s.takeUp.travel - running,
+      wearCapacity: (200 * (s.takeUp.travel - running)) / Ltot,
       roomAbove: s.takeUp.position,
       roomBelow: s.takeUp.travel - s.takeUp.position,
     },
@@ -212,5 +236,7 @@ export function designStatics(input: Scenario | unknown, opts: StaticsOptions = 
     impedance: Math.sqrt(EA * mu),
     loopLength: Ltot,
     ardToothSpacing: s.antiRollback.toothSpacing,
+    breakingStrength: s.chain.breakingStrength,
+    pitch: s.chain.pitch,
   };
 }

@@ -1,6 +1,6 @@
 "use client";
 /** Headline figures with their check state (colour + word + icon, so colour is never the only signal). */
-import type { Check, CheckState, Summary } from "@/sim";
+import { LIMIT_SOURCES, SUMMARY_DEFINITIONS, type Check, type CheckState, type Summary } from "@/sim";
 import { cx } from "@/components/ui/cx";
 import { formatQuantity, formatReason, type UnitSystem } from "@/lib/client/units";
 
@@ -22,28 +22,63 @@ export function StateMark({ state }: { state: CheckState }) {
   );
 }
 
+const secs = (v: number | null | undefined) => (typeof v === "number" ? `${v.toFixed(2)} s` : "—");
+
 function headline(c: Check, s: Summary, units: UnitSystem): { value: string; sub?: string } {
   switch (c.key) {
-    case "snatch":
-      return { value: formatQuantity(s.peakTension, "force", units), sub: s.snatchFactor !== null ? `snatch factor ${s.snatchFactor.toFixed(2)}×` : "no steady climb" };
+    case "snatch": {
+      // Summaries stored before the surge figures lack them: show what there is.
+      const surge = typeof s.surgeAmplitude === "number" ? ` · surge ±${formatQuantity(s.surgeAmplitude, "speed", units)}` : "";
+      const zeta = typeof s.surgeDampingRatio === "number" ? `, ζ ${(s.surgeDampingRatio * 100).toFixed(1)} %` : "";
+      return {
+        value: formatQuantity(s.peakTension, "force", units),
+        sub: `${s.snatchFactor !== null ? `snatch factor ${s.snatchFactor.toFixed(2)}× (peak / steady drive tension)` : "no steady climb"}${surge}${zeta}`,
+      };
+    }
     case "safetyFactor":
       return { value: typeof c.value === "number" ? c.value.toFixed(2) : "—", sub: `required ${c.limit}` };
-    case "rollback":
-      return { value: formatQuantity(s.rollbackDistance, "smallLength", units), sub: `${s.ardCatches} ARD catch${s.ardCatches === 1 ? "" : "es"}` };
+    case "workingLoad":
+      return { value: typeof c.value === "number" ? `${(c.value * 100).toFixed(0)} %` : "—", sub: "peak tension / allowable working load" };
+    case "breakingStrength":
+      return { value: typeof c.value === "number" ? `${c.value.toFixed(2)}×` : "—", sub: "breaking strength / 12,500·P² lbf (ASME B29.1)" };
+    case "rollback": {
+      const bounces = typeof s.ardBounces === "number" && s.ardBounces > 0 ? ` · ${s.ardBounces} bounce${s.ardBounces === 1 ? "" : "s"}` : "";
+      return { value: formatQuantity(s.rollbackDistance, "smallLength", units), sub: `${s.ardCatches} ARD catch${s.ardCatches === 1 ? "" : "es"}${bounces}` };
+    }
     case "pickup":
-      return { value: s.pickupDelay === null ? "—" : `${s.pickupDelay.toFixed(2)} s`, sub: s.engagementTime !== null ? `dog engages at ${s.engagementTime.toFixed(2)} s` : "no engagement" };
+      return {
+        value: `${secs(s.pickupDelay)} / ${secs(s.timeToChainSpeed)}`,
+        sub: `load pick-up delay / time to chain speed${s.engagementTime !== null ? ` · dog engages at ${s.engagementTime.toFixed(2)} s` : " · no engagement"}`,
+      };
     case "takeUpTravel":
       return { value: `${formatQuantity(s.takeUpMaxDrop, "smallLength", units, 0)} / ${formatQuantity(s.takeUpMaxRise, "smallLength", units, 0)}`, sub: `down / up${s.takeUpEndStop ? " · hit an end stop" : ""}` };
+    case "takeUpWear":
+      return { value: typeof c.value === "number" ? `${c.value.toFixed(1)} %` : "—", sub: `wear elongation the take-up absorbs · allowance ${c.limit} %` };
     case "takeUpCreep":
-      return { value: formatQuantity(s.takeUpCreepRate, "rate", units), sub: "over the steady climb" };
+      return { value: formatQuantity(s.takeUpCreepRate, "rate", units), sub: "drop rate over the steady climb (negative: rising)" };
     case "drivePower":
       return { value: formatQuantity(s.peakDrivePower, "power", units), sub: typeof c.limit === "number" ? `motor ${formatQuantity(c.limit, "power", units)}` : "no motor rating" };
     case "riderAccel":
-      return { value: `${s.peakRiderAccel.toFixed(2)} g`, sub: `limit ${c.limit} g` };
+      return { value: `${s.peakRiderAccel.toFixed(2)} g`, sub: typeof c.value === "number" ? `uses ${(c.value * 100).toFixed(0)} % of the envelope` : `limit ${c.limit}` };
     default:
       return { value: typeof c.value === "number" ? c.value.toPrecision(3) : String(c.value ?? "—") };
   }
 }
+
+/** What each card's figures mean and where its limit comes from, one click away. */
+const DEFINITIONS: Record<string, string[]> = {
+  snatch: [SUMMARY_DEFINITIONS.snatchFactor, SUMMARY_DEFINITIONS.steadyTension, SUMMARY_DEFINITIONS.surgeAmplitude, SUMMARY_DEFINITIONS.surgeDampingRatio, `Limit: ${LIMIT_SOURCES.maxSnatchFactor}`],
+  safetyFactor: [SUMMARY_DEFINITIONS.minSafetyFactor, `Limit: ${LIMIT_SOURCES.requiredSafetyFactor}`],
+  workingLoad: ["Steady tension (statics, worst train position) and peak tension (run) against the chain's allowable working load.", `Limit: ${LIMIT_SOURCES.allowableWorkingLoad} ${LIMIT_SOURCES.workingLoadFraction}`],
+  breakingStrength: [`Limits: ${LIMIT_SOURCES.minBreakingRatio} ${LIMIT_SOURCES.maxBreakingRatio}`],
+  rollback: [SUMMARY_DEFINITIONS.rollbackDistance, SUMMARY_DEFINITIONS.ardCatches, SUMMARY_DEFINITIONS.ardBounces, `Limit: ${LIMIT_SOURCES.allowRollback}`],
+  pickup: [SUMMARY_DEFINITIONS.pickupDelay, SUMMARY_DEFINITIONS.timeToChainSpeed, `Limits: ${LIMIT_SOURCES.maxPickupDelay} ${LIMIT_SOURCES.maxTimeToChainSpeed}`],
+  takeUpTravel: [SUMMARY_DEFINITIONS.takeUpMaxDrop, SUMMARY_DEFINITIONS.takeUpMaxRise, "The running budget is the elastic drop at the longest loaded length plus thermal growth, against the travel; wear is judged apart."],
+  takeUpWear: ["Wear elongation of the loop that the travel left after the elastic drop and thermal growth can take up.", `Allowance: ${LIMIT_SOURCES.wearAllowance}`],
+  takeUpCreep: [SUMMARY_DEFINITIONS.takeUpCreepRate],
+  drivePower: ["Motor power = chain pull × speed / efficiency.", `Limit: ${LIMIT_SOURCES.motorRating}`],
+  riderAccel: [SUMMARY_DEFINITIONS.peakRiderAccel, SUMMARY_DEFINITIONS.riderAccelExposure, `Limits: ${LIMIT_SOURCES.maxRiderAccel} ${LIMIT_SOURCES.riderAccelSustained} ${LIMIT_SOURCES.riderAccelCeiling} ${LIMIT_SOURCES.riderAccelBackwardScale}`],
+};
 
 export function HeadlineFigures({ checks, summary, units, dim }: { checks: Check[]; summary: Summary; units: UnitSystem; dim?: boolean }) {
   const counts = { pass: 0, caution: 0, fail: 0 };
@@ -71,6 +106,16 @@ export function HeadlineFigures({ checks, summary, units, dim }: { checks: Check
               <p className="mt-1 text-[11.5px] leading-snug text-ink-800" data-testid={`reason-${c.key}`}>
                 {formatReason(c, units)}
               </p>
+              {DEFINITIONS[c.key] && (
+                <details className="mt-1 text-[11px] leading-snug text-steel-500" data-testid={`definition-${c.key}`}>
+                  <summary className="cursor-pointer select-none">Definition and limit</summary>
+                  {DEFINITIONS[c.key].map((line) => (
+                    <p key={line} className="mt-0.5">
+                      {line}
+                    </p>
+                  ))}
+                </details>
+              )}
             </article>
           );
         })}

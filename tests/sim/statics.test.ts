@@ -95,7 +95,20 @@ describe("design statics", () => {
     expect(d.loadedLength).toBeCloseTo(2 * Lc - dogQ, 6);
     // The take-up budget takes half of the load's stretch (2:1).
     expect(d.takeUp.elasticExcursion).toBeCloseTo(d.loadStretch / 2, 12);
-    expect(Math.abs(d.loadStretch - (F * (2 * Lc - dogQ)) / EA) / d.loadStretch).toBeLessThan(0.002);
+  });
+
+  it("takes the counterweight's drop at the longest loaded length, not at the worst drive tension", () => {
+    // Source: δ = F·L/(E·A) (Gere & Goodno) of the added load F over the loaded length L = dog → top → drive;
+    // the drop is largest where F·L is, i.e. low on the lift (the definition changed: it was taken with the
+    // train at the worst drive tension, the top, which underestimates the drop).
+    const Lc = to - from;
+    const closed = d.cases.map((c) => (c.dogLoad * (2 * Lc - (c.trainPosition - s.trains[0].dogOffset - from))) / EA);
+    d.cases.forEach((c, i) => expect(Math.abs(c.loadStretch - closed[i]) / closed[i]).toBeLessThan(0.002));
+    const most = Math.max(...closed);
+    expect(Math.abs(d.loadStretch - most) / most).toBeLessThan(0.002);
+    const atWorst = (d.worst.dogLoad * (2 * Lc - (d.worst.trainPosition - s.trains[0].dogOffset - from))) / EA;
+    expect(d.loadStretch).toBeGreaterThanOrEqual(atWorst * (1 - 1e-9));
+    expect(d.loadStretchPosition).toBe(d.cases[closed.indexOf(most)].trainPosition);
   });
 
   it("prices the drive: P = T·v/η, torque = T·D/2, safety factor on breaking strength", () => {

@@ -16,13 +16,16 @@ const HP = 745.6999;
 const summary = {
   snatchFactor: 1.85,
   peakTension: 161_300,
+  peakDriveTension: 161_320,
   steadyTension: 87_200,
   minSafetyFactor: 3.1,
   rollbackDistance: 0.0123,
   peakArdCompression: 0.002,
   ardCatches: 2,
+  ardBounces: 1,
   peakArdForce: 52_000,
   pickupDelay: 0.4,
+  timeToChainSpeed: 1.2,
   engagementTime: 1.2,
   takeUpMaxDrop: 0.627,
   takeUpMaxRise: 0.088,
@@ -31,12 +34,17 @@ const summary = {
   steadyClimbDuration: 3,
   peakDrivePower: 422_300,
   peakRiderAccel: 0.3,
+  simulatedTime: 30,
+  riderAccelExposure: { forward: [0.9, 0.4, 0.2, 0.1, 0.05, 0], backward: [0.5, 0.2, 0, 0, 0, 0], forwardPeak: 0.3, backwardPeak: 0.12 },
 } as unknown as Summary;
 const statics = {
   safetyFactor: 6,
   ardToothSpacing: 0.15,
   motorPower: 150_400,
-  takeUp: { roomBelow: 1.3, roomAbove: 1.2, required: 3.73, travel: 2.5, elasticExcursion: 0.7, thermal: 0.05 },
+  takeUp: { roomBelow: 1.3, roomAbove: 1.2, required: 3.73, travel: 2.5, elasticExcursion: 0.7, thermal: 0.05, runningRequired: 0.75, wearAllowance: 2.98, wearCapacity: 1.76 },
+  worst: { maxTension: 92_000 },
+  breakingStrength: 500_000,
+  pitch: 0.1016,
 } as unknown as DesignStatics;
 const checks = evaluateChecks(summary, statics, { allowRollback: true, motorRating: 200_000 });
 const byKey = (k: string) => checks.find((c) => c.key === k)!;
@@ -51,12 +59,12 @@ describe("check reasons in the reader's units", () => {
       expect(formatReason(c, "si")).toBe(c.reason);
       expect(reasonIn(c, "si")).toBe(c.reason);
     }
-    expect(byKey("snatch").reason).toBe("Peak 161.3 kN is 1.85× the steady 87.2 kN (limit 2.00×).");
+    expect(byKey("snatch").reason).toBe("Peak drive tension 161.3 kN is 1.85× the steady 87.2 kN (limit 2.00×); peak anywhere 161.3 kN.");
   });
 
   it("show kip, in, ft and hp in US customary on the screen, and no SI unit", () => {
     const snatch = formatReason(byKey("snatch"), "us");
-    expect(snatch).toBe(`Peak ${num(161_300 / KIP, 2)} kip is 1.85× the steady ${num(87_200 / KIP, 2)} kip (limit 2.00×).`);
+    expect(snatch).toBe(`Peak drive tension ${num(161_320 / KIP, 2)} kip is 1.85× the steady ${num(87_200 / KIP, 2)} kip (limit 2.00×); peak anywhere ${num(161_300 / KIP, 2)} kip.`);
     expect(snatch).toContain("36.26 kip");
     const rollback = formatReason(byKey("rollback"), "us");
     expect(rollback).toContain(`peak ${num(52_000 / KIP, 2)} kip, ${num(0.0123 / INCH, 2)} in back`);
@@ -64,7 +72,9 @@ describe("check reasons in the reader's units", () => {
     expect(power).toBe(`Steady ${num(150_400 / HP, 1)} hp and peak ${num(422_300 / HP, 1)} hp against a ${num(200_000 / HP, 1)} hp motor.`);
     const travel = formatReason(byKey("takeUpTravel"), "us");
     expect(travel).toContain(`Run excursion ${num(0.627 / INCH, 2)} in down / ${num(0.088 / INCH, 2)} in up`);
-    expect(travel).toContain(`Travel budget ${num(3.73 / FOOT, 2)} ft`);
+    // The wear allowance is reported apart from the elastic travel budget (its own check).
+    expect(formatReason(byKey("takeUpWear"), "us")).toContain(`needs ${num(2.98 / FOOT, 2)} ft of travel`);
+    expect(formatReason(byKey("workingLoad"), "us")).toContain(`Steady ${num(92_000 / KIP, 2)} kip and peak ${num(161_300 / KIP, 2)} kip`);
     const creep = formatReason(byKey("takeUpCreep"), "us");
     expect(creep).toContain(`rises ${num(0.00562 / INCH, 3)} in/s`);
     for (const c of checks) {
@@ -74,7 +84,7 @@ describe("check reasons in the reader's units", () => {
   });
 
   it("show the same US units in a report", () => {
-    expect(reasonIn(byKey("snatch"), "us")).toBe(`Peak ${(161_300 / KIP).toFixed(2)} kip is 1.85× the steady ${(87_200 / KIP).toFixed(2)} kip (limit 2.00×).`);
+    expect(reasonIn(byKey("snatch"), "us")).toBe(`Peak drive tension ${(161_320 / KIP).toFixed(2)} kip is 1.85× the steady ${(87_200 / KIP).toFixed(2)} kip (limit 2.00×); peak anywhere ${(161_300 / KIP).toFixed(2)} kip.`);
     expect(reasonIn(byKey("takeUpCreep"), "us")).toContain(`rises ${(0.00562 / INCH).toFixed(3)} in/s`);
     expect(reasonIn(byKey("drivePower"), "us")).toContain(`${(422_300 / HP).toFixed(1)} hp`);
     for (const c of checks) expect(reasonIn(c, "us")).not.toMatch(/\b(kN|mm|kW|m)\b/);
