@@ -15,6 +15,7 @@ import type {
   TakeUpSettings,
 } from "@/sim/schema";
 import type { Loading } from "@/models/Scenario";
+import type { Dynamics } from "@/lib/scenarios/dynamics";
 
 export const DEMO_PARK = DEMO_ORGANISATIONS.park;
 
@@ -51,6 +52,8 @@ export interface DemoTrain {
   dogOffset: number;
   rollingResistance: number;
   dragArea: number;
+  /** m behind the front; absent = one pawl at the dog. */
+  pawls?: number[];
 }
 
 /**
@@ -78,6 +81,10 @@ export interface DemoScenario {
   riderCount?: number;
   entrySpeed: number;
   startPosition: number;
+  /** s, when the train appears (default 0). */
+  startTime?: number;
+  /** The scenario's own drive model and damping over the revision (lib/scenarios/dynamics.ts). */
+  dynamics?: Dynamics;
   runSettings: In<RunSettings>;
   notes: string;
   /** One line for the README: what to look at in this run. */
@@ -100,6 +107,20 @@ const emberlineGeometry: In<LiftSettings> = {
   bottomRun: 4,
 };
 
+/*
+ * Drive, guide and take-up values of the demo lifts (invented park; each value's basis in the comment):
+ * - Motors: four-pole induction motors, rated slip 1.5–2 % and breakdown torque 2.3–2.5 × rated (typical
+ *   of general-purpose motors of the size: induction-machine texts such as Chapman; NEMA MG 1 Design B
+ *   minimums; both from memory). Rated power about 1.3 × the steady climbing power at the chain ÷ efficiency
+ *   (common practice, no source).
+ * - Drive inertia at the chain, J·(i/r)²: sprocket pitch radius r = pitch ÷ (2·sin(180°/teeth)), gear ratio
+ *   i = motor speed ÷ sprocket speed; J of rotor + brake disc + coupling is an assumption for the motor size.
+ * - Chain guides: Emberline's chain slides in a trough lined with UHMW-PE wear strips, μ ≈ 0.12 (sliding,
+ *   0.1–0.2 for steel on PE: common practice, no source); Foxglove's chain rollers roll on a steel track,
+ *   μ ≈ 0.03 (rolling: a few hundredths, common practice, no source).
+ * - Take-up: counterweight carriage on guide rollers; friction ≈ 2 % of the counterweight's weight
+ *   (assumption); no dashpot fitted.
+ */
 const emberlineChain: In<ChainSettings> = {
   massPerLength: 15,
   axialStiffness: 1.5e7,
@@ -107,11 +128,18 @@ const emberlineChain: In<ChainSettings> = {
   pitch: 0.1016,
   catchSpacing: 2,
   catchOffset: 10,
-  guideFriction: 0.02,
+  guideFriction: 0.12,
 };
 
-const emberlineDrive: In<DriveSettings> = { speed: 2.5, rampTime: 2, sprocketTeeth: 11, efficiency: 0.9 };
-const emberlineTakeUp: In<TakeUpSettings> = { mass: 5000, travel: 2.5, position: 1.2, friction: 0 };
+/**
+ * 200 kW four-pole motor (≈1480 rpm) through an 11.2:1 gearbox to an 11-tooth sprocket of pitch radius
+ * 0.1803 m (132 rpm at 2.5 m/s): (i/r)² = (11.2 / 0.1803)² ≈ 3860 m⁻²; J ≈ 3.2 kg·m² (rotor 2.6 + brake
+ * disc and coupling 0.6: assumption) → ≈ 12.4 t at the chain. Steady climb ≈ 60 kN × 2.5 m/s ÷ 0.9 ≈ 167 kW.
+ */
+const emberlineMotor = { kind: "induction" as const, ratedPower: 200_000, ratedSlip: 0.015, breakdownRatio: 2.3, reflectedMass: 12_400 };
+const emberlineDrive: In<DriveSettings> = { speed: 2.5, rampTime: 2, sprocketTeeth: 11, efficiency: 0.9, location: "bottom", motor: emberlineMotor };
+/** 5000 kg counterweight: friction 2 % of 49 kN ≈ 1000 N. */
+const emberlineTakeUp: In<TakeUpSettings> = { mass: 5000, travel: 2.5, position: 1.2, friction: 1000, damping: 0 };
 const emberlineArd: In<AntiRollbackSettings> = { enabled: true, from: 12, to: 118, toothSpacing: 0.15 };
 
 const foxgloveGeometry: In<LiftSettings> = {
@@ -134,11 +162,18 @@ const foxgloveChain: In<ChainSettings> = {
   pitch: 0.0889,
   catchSpacing: 2,
   catchOffset: 10,
-  guideFriction: 0.02,
+  guideFriction: 0.03,
 };
 
-const foxgloveDrive: In<DriveSettings> = { speed: 2.2, rampTime: 2, sprocketTeeth: 12, efficiency: 0.9 };
-const foxgloveTakeUp: In<TakeUpSettings> = { mass: 4000, travel: 2, position: 1.0, friction: 0 };
+/**
+ * 55 kW four-pole motor (≈1470 rpm) through a 12:1 gearbox to a 12-tooth sprocket of pitch radius 0.1717 m
+ * (122 rpm at 2.2 m/s): (i/r)² = (12 / 0.1717)² ≈ 4880 m⁻²; J ≈ 0.5 kg·m² (assumption) → ≈ 2.4 t at the chain.
+ * Steady climb of the full train ≈ 20 kN × 2.2 m/s ÷ 0.9 ≈ 49 kW.
+ */
+const foxgloveMotor = { kind: "induction" as const, ratedPower: 55_000, ratedSlip: 0.02, breakdownRatio: 2.5, reflectedMass: 2_400 };
+const foxgloveDrive: In<DriveSettings> = { speed: 2.2, rampTime: 2, sprocketTeeth: 12, efficiency: 0.9, location: "bottom", motor: foxgloveMotor };
+/** 4000 kg counterweight: friction 2 % of 39 kN ≈ 800 N. */
+const foxgloveTakeUp: In<TakeUpSettings> = { mass: 4000, travel: 2, position: 1.0, friction: 800, damping: 0 };
 const foxgloveArd: In<AntiRollbackSettings> = { enabled: true, from: 12, to: 76, toothSpacing: 0.15 };
 
 // Lifts -----------------------------------------------------------------------------------------------
@@ -225,6 +260,8 @@ export const DEMO_TRAINS: DemoTrain[] = [
     dogOffset: 1.3,
     rollingResistance: 0.015,
     dragArea: 1.0,
+    // A pawl under the first and the last car (invented; the format's default is one pawl at the dog).
+    pawls: [1.3, 14.3],
   },
   {
     key: "foxglove-train",
