@@ -6,10 +6,10 @@
  */
 import example from "./examples/lift-hill-example.json";
 import { integrateRk4 } from "./integrators/fixed-step";
-import { newState } from "./integrators/types";
 import { LiftSystem } from "./rhs";
 import { parseScenario, type Scenario } from "./schema";
 import { simulate } from "./simulate";
+import { initialState } from "./start";
 
 const args = new Set(process.argv.slice(2));
 const quick = args.has("--quick");
@@ -55,10 +55,8 @@ function engine(n: number, integrator: "verlet" | "odex", duration: number, step
 function rk4(n: number, fraction: number, duration: number): Measure {
   const s = scenarioWith(duration);
   const sys = new LiftSystem(s, { segments: n });
-  const st = newState(sys.n);
-  st.x = s.trains[0].startPosition;
-  st.vx = s.trains[0].entrySpeed;
-  sys.updateModes(0, st.w, st.x);
+  const st = initialState(sys, []);
+  sys.updateModes(0, st.y);
   const dt = (fraction * 2 * Math.SQRT2) / sys.stabilityLimit().omega;
   let peak = 0;
   const r = timed(() =>

@@ -1,6 +1,7 @@
 /**
  * Time series sampled on an even grid, and replay frames downsampled to a budget without losing the
- * exact frame of peak chain tension.
+ * exact frame of peak chain tension. Flat keys describe the lift and train 0 (as in version 1); `trains[j]`
+ * holds every train's own signals.
  */
 import type { LiftSystem } from "./rhs";
 
@@ -12,18 +13,40 @@ export const SERIES_KEYS = [
   "takeUpPosition",
   "ardForce",
   "maxTension",
+  "driveSpeed",
+  "motorForce",
+  "drivePower",
+  "driveTorque",
 ] as const;
 export type SeriesKey = (typeof SERIES_KEYS)[number];
-export type Series = { t: number[] } & Record<SeriesKey, number[]>;
+/** Per-train series keys (front position, speed, dog force, ARD force), in `series.trains[j]`. */
+export const TRAIN_SERIES_KEYS = ["position", "speed", "dogForce", "ardForce"] as const;
+export type TrainSeriesKey = (typeof TRAIN_SERIES_KEYS)[number];
+export type TrainSeries = Record<TrainSeriesKey, number[]>;
+export type Series = { t: number[] } & Record<SeriesKey, number[]> & { trains: TrainSeries[] };
 
-export function seriesValues(sys: LiftSystem, x: number, vx: number, y: number, out: number[]): number[] {
-  out[0] = x;
-  out[1] = vx;
+/** Values of one sample: the flat keys, then 4 per train. `drivePower` is the motor's input (÷ efficiency). */
+export function seriesValues(sys: LiftSystem, Y: ArrayLike<number>, out: number[]): number[] {
+  const L = sys.layout;
+  out[0] = Y[L.iX];
+  out[1] = Y[L.iV + L.iX];
   out[2] = sys.dogForce;
   out[3] = sys.driveTension;
-  out[4] = y;
+  out[4] = Y[L.iY];
   out[5] = sys.ardForce;
   out[6] = sys.maxT;
+  out[7] = sys.driveSpeed;
+  out[8] = sys.driveForce;
+  out[9] = sys.drivePower / sys.s.drive.efficiency;
+  out[10] = sys.driveForce * sys.halfPitchDiameter;
+  let o = SERIES_KEYS.length;
+  for (let j = 0; j < sys.trains.length; j++) {
+    const tr = sys.trains[j];
+    out[o++] = Y[L.iX + j];
+    out[o++] = Y[L.iV + L.iX + j];
+    out[o++] = tr.dogForce;
+    out[o++] = tr.ardForce;
+  }
   return out;
 }
 
@@ -33,20 +56,30 @@ export class SeriesRecorder {
   private next = 0;
   private prevT = NaN;
   private prev: number[] = [];
+  /** Every value array in the order seriesValues writes them. */
+  private readonly columns: number[][];
   constructor(
     readonly interval: number,
     private readonly enabled: boolean,
+    trains = 1,
   ) {
-    const s = { t: [] as number[] } as Series;
-    for (const k of SERIES_KEYS) s[k] = [];
+    const s = { t: [] as number[], trains: [] as TrainSeries[] } as unknown as Series;
+    const columns: number[][] = [];
+    for (const k of SERIES_KEYS) columns.push((s[k] = []));
+    for (let j = 0; j < trains; j++) {
+      const ts = {} as TrainSeries;
+      for (const k of TRAIN_SERIES_KEYS) columns.push((ts[k] = []));
+      s.trains.push(ts);
+    }
     this.series = s;
+    this.columns = columns;
   }
 
   /** A sample exactly at time t (used with dense output). */
   emit(t: number, vals: number[]): void {
     if (!this.enabled) return;
     this.series.t.push(t);
-    for (let i = 0; i < SERIES_KEYS.length; i++) this.series[SERIES_KEYS[i]].push(vals[i]);
+    for (let i = 0; i < this.columns.length; i++) this.columns[i].push(vals[i]);
     this.next = t + this.interval;
   }
 
@@ -65,9 +98,7 @@ export class SeriesRecorder {
         const tt = this.next;
         const f = t > this.prevT ? (tt - this.prevT) / (t - this.prevT) : 1;
         this.series.t.push(tt);
-        for (let i = 0; i < SERIES_KEYS.length; i++) {
-          this.series[SERIES_KEYS[i]].push(this.prev[i] + (vals[i] - this.prev[i]) * f);
-        }
+        for (let i = 0; i < this.columns.length; i++) this.columns[i].push(this.prev[i] + (vals[i] - this.prev[i]) * f);
         this.next = tt + this.interval;
       }
     }
@@ -76,10 +107,27 @@ export class SeriesRecorder {
   }
 }
 
+/** One train in a replay frame. */
+export interface FrameTrain {
+  /** Front position, m; speed, m/s. */
+  position: number;
+  speed: number;
+  /** False before the train's startTime. */
+  present: boolean;
+  dogEngaged: boolean;
+  dogForce: number;
+  ardForce: number;
+  /** Track position of the tooth under each pawl (null: none yet). */
+  ardTeeth: (number | null)[];
+  /** Index of the pawl carrying the ARD force, or null. */
+  ardPawl: number | null;
+}
+
 export interface Frame {
   t: number;
   /** Tension of every segment, N (segment i joins station i to i+1 along the loop). */
   tensions: number[];
+  /** Train 0 (all trains in `trains`). */
   trainPosition: number;
   trainSpeed: number;
   /** Take-up drop from its initial position, m (positive down). */
@@ -88,12 +136,15 @@ export interface Frame {
   sprocketAngle: number;
   /** Chain travel through the drive since t = 0, m. */
   chainTravel: number;
+  /** Chain speed at the drive, m/s. */
+  driveSpeed: number;
   dogEngaged: boolean;
   dogForce: number;
   ardForce: number;
-  /** Track position of the ARD tooth the pawl would fall on, or null. */
+  /** Track position of the ARD tooth train 0's pawl would fall on, or null. */
   ardTooth: number | null;
   slackSegments: number;
+  trains: FrameTrain[];
   /** True for the frame at the peak chain tension. */
   peak?: boolean;
 }
@@ -104,9 +155,12 @@ export class FrameRecorder {
   private readonly interval: number;
   private peakFrame: Frame | null = null;
   private peakValue = -1;
+  private peakT = 0;
   // The peak is copied into preallocated storage as it rises; the frame object is built once at the end.
   private peakTensions: Float64Array;
-  private peakScalars = new Float64Array(8);
+  private peakY: Float64Array;
+  private peakTrains: { dogForce: number; ardForce: number; active: boolean; tooth: Float64Array; ardPawl: number }[];
+  private peakSlack = 0;
   private readonly radius: number;
   constructor(
     private readonly sys: LiftSystem,
@@ -114,71 +168,79 @@ export class FrameRecorder {
     private readonly budget: number,
   ) {
     this.interval = budget > 2 ? duration / (budget - 2) : duration;
-    this.radius = sys.s.chain.pitch / Math.sin(Math.PI / sys.s.drive.sprocketTeeth) / 2;
+    this.radius = sys.halfPitchDiameter;
     this.peakTensions = new Float64Array(sys.n);
+    this.peakY = new Float64Array(sys.layout.size);
+    this.peakTrains = sys.trains.map((tr) => ({ dogForce: 0, ardForce: 0, active: false, tooth: new Float64Array(tr.pawls.length), ardPawl: -1 }));
   }
 
-  private snapshot(t: number, x: number, vx: number, y: number): Frame {
-    const sys = this.sys;
-    const travel = sys.drive.displacement(t);
-    const ang = (travel / this.radius) % (2 * Math.PI);
+  private build(
+    t: number,
+    Y: ArrayLike<number>,
+    tensions: ArrayLike<number>,
+    slack: number,
+    trains: { dogForce: number; ardForce: number; active: boolean; tooth: ArrayLike<number>; ardPawl: number }[],
+  ): Frame {
+    const L = this.sys.layout;
+    const travel = Y[L.iD];
+    const ang = (((travel / this.radius) % (2 * Math.PI)) + 2 * Math.PI) % (2 * Math.PI);
+    const ft: FrameTrain[] = trains.map((tr, j) => ({
+      position: Y[L.iX + j],
+      speed: Y[L.iV + L.iX + j],
+      present: tr.active,
+      dogEngaged: tr.dogForce > 0,
+      dogForce: tr.dogForce,
+      ardForce: tr.ardForce,
+      ardTeeth: Array.from(tr.tooth, (v) => (v === v ? v : null)),
+      ardPawl: tr.ardPawl >= 0 ? tr.ardPawl : null,
+    }));
+    const t0 = ft[0];
     return {
       t,
-      tensions: Array.from(sys.T),
-      trainPosition: x,
-      trainSpeed: vx,
-      takeUpPosition: y,
+      tensions: Array.from(tensions),
+      trainPosition: t0.position,
+      trainSpeed: t0.speed,
+      takeUpPosition: Y[L.iY],
       sprocketAngle: ang,
       chainTravel: travel,
-      dogEngaged: sys.dogForce > 0,
-      dogForce: sys.dogForce,
-      ardForce: sys.ardForce,
-      ardTooth: sys.tooth === sys.tooth ? sys.tooth : null,
-      slackSegments: sys.slack,
+      driveSpeed: Y[L.iV + L.iD],
+      dogEngaged: t0.dogEngaged,
+      dogForce: t0.dogForce,
+      ardForce: t0.ardForce,
+      ardTooth: t0.ardTeeth[t0.ardPawl ?? 0] ?? null,
+      slackSegments: slack,
+      trains: ft,
     };
   }
 
-  /** After each step, with the system evaluated at (t, x, vx, y). */
-  step(t: number, x: number, vx: number, y: number): void {
+  /** After each step, with the system evaluated at (t, Y). */
+  step(t: number, Y: Float64Array): void {
     if (this.budget <= 0) return;
+    const sys = this.sys;
     if (t >= this.next) {
-      this.frames.push(this.snapshot(t, x, vx, y));
+      this.frames.push(this.build(t, Y, sys.T, sys.slack, sys.trains));
       this.next = t + this.interval;
     }
-    const sys = this.sys;
     if (sys.maxT > this.peakValue) {
       this.peakValue = sys.maxT;
+      this.peakT = t;
       this.peakTensions.set(sys.T);
-      const p = this.peakScalars;
-      p[0] = t;
-      p[1] = x;
-      p[2] = vx;
-      p[3] = y;
-      p[4] = sys.dogForce;
-      p[5] = sys.ardForce;
-      p[6] = sys.tooth;
-      p[7] = sys.slack;
+      this.peakY.set(Y);
+      this.peakSlack = sys.slack;
+      sys.trains.forEach((tr, j) => {
+        const p = this.peakTrains[j];
+        p.dogForce = tr.dogForce;
+        p.ardForce = tr.ardForce;
+        p.active = tr.active;
+        p.ardPawl = tr.ardPawl;
+        p.tooth.set(tr.tooth);
+      });
     }
   }
 
   private buildPeak(): Frame | null {
     if (this.peakValue < 0) return null;
-    const p = this.peakScalars;
-    const travel = this.sys.drive.displacement(p[0]);
-    return {
-      t: p[0],
-      tensions: Array.from(this.peakTensions),
-      trainPosition: p[1],
-      trainSpeed: p[2],
-      takeUpPosition: p[3],
-      sprocketAngle: (travel / this.radius) % (2 * Math.PI),
-      chainTravel: travel,
-      dogEngaged: p[4] > 0,
-      dogForce: p[4],
-      ardForce: p[5],
-      ardTooth: p[6] === p[6] ? p[6] : null,
-      slackSegments: p[7],
-    };
+    return this.build(this.peakT, this.peakY, this.peakTensions, this.peakSlack, this.peakTrains);
   }
 
   finish(): Frame[] {

@@ -6,9 +6,10 @@ import { SimulationError } from "./errors";
 import { FrameRecorder, SeriesRecorder, seriesValues, type Frame, type Series } from "./frames";
 import { integrateVerlet, verletStep } from "./integrators/fixed-step";
 import { integrateOdex } from "./integrators/odex";
-import { newState, type DynState, type IntegratorResult, type RunHooks } from "./integrators/types";
+import type { DynState, IntegratorResult, RunHooks } from "./integrators/types";
 import { LiftSystem } from "./rhs";
 import { parseScenario, type Integrator, type Scenario } from "./schema";
+import { initialState } from "./start";
 import { SummaryRecorder, type Summary } from "./summary";
 
 export interface SimulateOptions {
@@ -75,58 +76,57 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
   const maxSteps = options.budget?.maxSteps ?? DEFAULT_MAX_STEPS;
   const wallTimeMs = options.budget?.wallTimeMs ?? DEFAULT_WALL_TIME_MS;
   const sys = new LiftSystem(s, { segments: options.segments });
-  const n = sys.n;
-
-  const st = newState(n);
-  st.x = s.trains[0].startPosition;
-  st.vx = s.trains[0].entrySpeed;
+  const L = sys.layout;
   const notes: string[] = [];
-  // A train given at rest on the ARD starts settled on the last tooth behind its pawl (in static equilibrium).
-  if (st.vx === 0 && sys.ratchet.enabled) {
-    const back = -sys.train.force(st.x, 0);
-    const tooth = sys.ratchet.toothBehind(st.x - sys.dogOffset);
-    if (back > 0 && tooth === tooth && st.x - sys.dogOffset - tooth <= s.antiRollback.toothSpacing) {
-      st.x = tooth + sys.dogOffset - back / sys.ardStiffness;
-      sys.pawlMax = Math.max(sys.pawlMax, tooth);
-      sys.tooth = tooth;
-      notes.push(`The train starts at rest on the ARD tooth at ${tooth.toFixed(3)} m (front at ${st.x.toFixed(3)} m).`);
-    }
-  }
-  // The chain stands still at t = 0; relative to drive transport that is ẇ = −v_d(0) (non-zero for a sudden start).
-  const vd0 = sys.drive.velocity(0);
-  for (let i = 0; i < n; i++) st.vw[i] = i === sys.loop.driveNode ? 0 : -vd0;
-  sys.updateModes(0, st.w, st.x);
-  const aw = new Float64Array(n);
-  sys.accel(0, st.w, st.vw, st.x, st.vx, st.y, st.vy, aw);
-  const e0 = sys.energy(0, st.w, st.vw, st.x, st.vx, st.y, st.vy);
+  const st = initialState(sys, notes);
+  sys.updateModes(0, st.y);
+  const dY = new Float64Array(L.size);
+  sys.rhs(0, st.y, dY, true);
+  const e0 = sys.energy(st.y);
 
   const summary = new SummaryRecorder(sys);
   const frames = new FrameRecorder(sys, duration, frameBudget);
-  const series = new SeriesRecorder(sampleInterval, options.series !== false);
+  const series = new SeriesRecorder(sampleInterval, options.series !== false, sys.trains.length);
   const vals: number[] = [];
   const trackEnd = sys.track.length;
   let reachedEnd = false;
   let nextProgress = 0.01;
   const breaking = s.chain.breakingStrength;
+  // Train 0 and the take-up under the names the summary reads.
+  const view = { t: 0, x: 0, vx: 0, y: 0, vy: 0 };
+  const viewOf = (x: DynState) => {
+    const Y = x.y;
+    view.t = x.t;
+    view.x = Y[L.iX];
+    view.vx = Y[L.iV + L.iX];
+    view.y = Y[L.iY];
+    view.vy = Y[L.iV + L.iY];
+    return view;
+  };
 
   const record = (x: DynState, dt: number, events: number) => {
-    summary.step(x, dt, events);
-    frames.step(x.t, x.x, x.vx, x.y);
+    summary.step(viewOf(x), dt, events);
+    frames.step(x.t, x.y);
   };
   record(st, 0, 0);
-  series.stepEnd(0, seriesValues(sys, st.x, st.vx, st.y, vals));
+  series.stepEnd(0, seriesValues(sys, st.y, vals));
 
+  const finiteState = (Y: Float64Array) => {
+    for (let j = 0; j < sys.trains.length; j++) if (!Number.isFinite(Y[L.iX + j]) || !Number.isFinite(Y[L.iV + L.iX + j])) return false;
+    return Number.isFinite(Y[L.iY]) && Number.isFinite(Y[L.iV + L.iD]) && Number.isFinite(sys.maxT);
+  };
   const hooks: RunHooks = {
     maxSteps,
     step(x, dt, events, exact) {
-      if (!Number.isFinite(x.x) || !Number.isFinite(x.y) || !Number.isFinite(sys.maxT) || !Number.isFinite(x.vx)) {
+      const Y = x.y;
+      if (!finiteState(Y)) {
         throw new SimulationError(
           "non-finite",
           `The solution became non-finite at t = ${x.t.toFixed(4)} s. Lower run.stepFraction or use fewer run.segments.`,
           x.t,
         );
       }
-      if (sys.maxT > 1e4 * breaking || Math.abs(x.y) > 1e3) {
+      if (sys.maxT > 1e4 * breaking || Math.abs(Y[L.iY]) > 1e3) {
         throw new SimulationError(
           "tolerance",
           `The solution grew without bound at t = ${x.t.toFixed(4)} s (chain tension ${sys.maxT.toExponential(2)} N): ` +
@@ -135,15 +135,17 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
         );
       }
       record(x, dt, events);
-      if (!exact) series.stepEnd(x.t, seriesValues(sys, x.x, x.vx, x.y, vals));
-      if (x.x >= trackEnd) {
-        reachedEnd = true;
-        return false;
+      if (!exact) series.stepEnd(x.t, seriesValues(sys, Y, vals));
+      for (let j = 0; j < sys.trains.length; j++) {
+        if (sys.trains[j].active && Y[L.iX + j] >= trackEnd) {
+          reachedEnd = true;
+          return false;
+        }
       }
       return true;
     },
     sample(x) {
-      series.emit(x.t, seriesValues(sys, x.x, x.vx, x.y, vals));
+      series.emit(x.t, seriesValues(sys, x.y, vals));
     },
     nextSampleTime() {
       return options.series === false ? Infinity : series.nextTime;
@@ -178,10 +180,11 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     res = integrateVerlet(sys, st, duration, hooks, dt);
   }
   const fin = res.final;
-  sys.accel(fin.t, fin.w, fin.vw, fin.x, fin.vx, fin.y, fin.vy, aw);
-  const e1 = sys.energy(fin.t, fin.w, fin.vw, fin.x, fin.vx, fin.y, fin.vy);
-  const work = fin.work;
-  const residual = Math.abs(work) > 1 ? Math.abs(work - (e1 - e0) - fin.dissipated) / Math.abs(work) : null;
+  sys.rhs(fin.t, fin.y, dY, true);
+  const e1 = sys.energy(fin.y);
+  const work = fin.y[L.iWork];
+  const dissipated = fin.y[L.iDiss];
+  const residual = Math.abs(work) > 1 ? Math.abs(work - (e1 - e0) - dissipated) / Math.abs(work) : null;
   options.onProgress?.(1);
   const sum = summary.finish({
     steps: res.steps,
@@ -193,7 +196,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     trainReachedEnd: reachedEnd,
   });
 
-  if (reachedEnd) notes.push(`The train reached the end of the track at t = ${fin.t.toFixed(2)} s; the run ends there.`);
+  if (reachedEnd) notes.push(`A train reached the end of the track at t = ${fin.t.toFixed(2)} s; the run ends there.`);
   if (sum.engagementTime === null) notes.push("The dog never engaged a catch point.");
   if (sum.slackSegments > 0) notes.push(`The chain went slack: up to ${sum.slackSegments} segment(s) at once carried no tension.`);
   if (sum.takeUpEndStop) notes.push("The take-up hit an end stop.");
@@ -230,9 +233,13 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
       stabilityLimit: lim.dt,
       timeStep: res.timeStep,
       contactStiffness: sys.dogStiffness,
+      ardContactStiffness: sys.ardStiffness,
+      driveModel: s.drive.motor.kind,
+      driveLocation: s.drive.location,
+      zenerStiffness: sys.zenerStiffness,
       endStopStiffness: sys.takeUp.stopStiffness,
       driveWork: work,
-      dissipated: fin.dissipated,
+      dissipated,
       energyChange: e1 - e0,
       endedEarly: res.endedEarly,
     },
@@ -243,7 +250,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
       loopLength: loop.length,
       strandLength: loop.strandLength,
       stations: Array.from(loop.q),
-      driveStation: loop.driveNode,
+      driveStation: sys.driveNode,
       takeUpStation: loop.takeUpNode,
       topStation: loop.topNode,
       catchSpacing: s.chain.catchSpacing,

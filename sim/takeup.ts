@@ -1,7 +1,7 @@
 /**
  * Weighted 2:1 gravity take-up: a counterweight on a vertical guide hanging in a bight of the bottom run.
  * y is its downward displacement from the initial position; a drop y lengthens both adjacent legs by y,
- * so the loop grows by 2·y. End stops are stiff one-way contacts at y = −position (top) and travel − position.
+ * so the loop grows by 2·y; M·ÿ = M·g − 2·T − F_f·sgn(ẏ) − c·ẏ. End stops are stiff one-way contacts at y = −position (top) and travel − position.
  */
 import { contactDampingCoefficient, contactEnergy, contactForce } from "./contacts";
 import type { Scenario } from "./schema";
@@ -12,6 +12,8 @@ export interface TakeUpModel {
   yTop: number;
   yBottom: number;
   friction: number;
+  /** Dashpot on the weight, N·s/m. */
+  damping: number;
   stopStiffness: number;
   stopDamping: number;
   /** Net end-stop force on the weight (positive down). */
@@ -36,6 +38,7 @@ export function buildTakeUp(s: Scenario, loopLength: number): TakeUpModel {
     yTop,
     yBottom,
     friction: tu.friction,
+    damping: tu.damping,
     stopStiffness: k,
     stopDamping: c,
     stopForce(y, vy) {

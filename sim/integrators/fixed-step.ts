@@ -1,12 +1,14 @@
 /**
- * Structure-preserving fixed-step path: velocity Verlet (kick–drift–kick). The conservative forces
- * (chain springs, weight, contacts) are integrated symplectically; velocity-dependent forces (damping,
- * friction, drag) use the half-step velocity. One force evaluation per step. The step is a fraction
- * (run.stepFraction) of the damped central-difference stability limit 2(√(1+ζ²) − ζ)/ω_max, with ω_max
- * bounded from the stiffness of every station, the contacts and the take-up (see LiftSystem.stabilityLimit).
+ * Structure-preserving fixed-step path: velocity Verlet (kick–drift–kick) over the flat state. The
+ * conservative forces (chain springs, weight, contacts) are integrated symplectically; velocity-dependent
+ * forces (damping, friction, drag, the motor's slip law) use the half-step velocity; the first-order states
+ * (Zener strains, the speed loop's integral) advance with the derivative at the step's start. One rhs
+ * evaluation per step. The step is a fraction (run.stepFraction) of the damped central-difference stability
+ * limit 2(√(1+ζ²) − ζ)/ω_max (see LiftSystem.stabilityLimit). A prescribed drive speed (ideal drive, brake)
+ * is applied exactly per half step, so a ramp or a sudden start shorter than a step is still right.
  */
 import { SimulationError } from "../errors";
-import { EVENT_ENGAGE, EVENT_RELEASE, type LiftSystem } from "../rhs";
+import { EVENTS_REEVALUATE, type LiftSystem } from "../rhs";
 import type { DynState, IntegratorResult, RunHooks } from "./types";
 
 export function verletStep(sys: LiftSystem, stepFraction: number, maxStep: number): number {
@@ -31,116 +33,77 @@ export function integrateVerlet(
     );
   }
   const dt = duration / nSteps;
-  const n = sys.n;
-  const { w, vw } = st;
-  const aw = new Float64Array(n);
+  const L = sys.layout;
+  const n = L.n;
+  const nPos = L.nPos;
+  const iV = L.iV;
+  const vD = iV + L.iD;
+  const firstOrderFrom = L.iZ;
+  const firstOrderTo = L.iWork; // Zener strains and the speed loop's integral
+  const Y = st.y;
+  const dY = new Float64Array(L.size);
   const hdt = 0.5 * dt;
-  const drive = sys.drive;
-  const dNode = sys.loop.driveNode;
-  sys.driveAccelInRhs = false;
-  sys.accel(st.t, w, vw, st.x, st.vx, st.y, st.vy, aw);
+  const dc = sys.driveControl;
+  sys.rhs(st.t, Y, dY, false);
   let steps = 0;
   const t0 = st.t;
-  try {
-    for (let k = 1; k <= nSteps; k++) {
-      const p0 = sys.drivePower;
-      const d0 = sys.dissipation;
-      const tPrev = t0 + (k - 1) * dt;
-      // Drive velocity change over each half step, taken out of the relative velocities exactly.
-      const dv1 = drive.velocity(tPrev + hdt) - drive.velocity(tPrev);
-      const dv2 = drive.velocity(tPrev + dt) - drive.velocity(tPrev + hdt);
-      for (let i = 0; i < n; i++) {
-        const v = vw[i] + hdt * aw[i] - dv1;
-        vw[i] = v;
-        w[i] += dt * v;
-      }
-      vw[dNode] = 0;
-      w[dNode] = 0;
-      st.vx += hdt * sys.ax;
-      st.x += dt * st.vx;
-      st.vy += hdt * sys.ay;
-      st.y += dt * st.vy;
-      const t = k === nSteps ? t0 + duration : t0 + k * dt;
-      st.t = t;
-      sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
-      st.work += hdt * (p0 + sys.drivePower);
-      st.dissipated += hdt * (d0 + sys.dissipation);
-      for (let i = 0; i < n; i++) vw[i] += hdt * aw[i] - dv2;
-      vw[dNode] = 0;
-      st.vx += hdt * sys.ax;
-      st.vy += hdt * sys.ay;
-      steps++;
-      const ev = sys.updateModes(t, w, st.x);
-      // A contact that just started or ended changes the forces: re-evaluate so the next kick uses them.
-      if (ev & (EVENT_ENGAGE | EVENT_RELEASE)) sys.accel(t, w, vw, st.x, st.vx, st.y, st.vy, aw);
-      if (!hooks.step(st, dt, ev, false)) return { final: st, steps, timeStep: dt, endedEarly: true };
-      if ((steps & 127) === 0) hooks.check(steps, t);
-    }
-  } finally {
-    sys.driveAccelInRhs = true;
+  // Prescribed drive: its speed change over [ta, tb] taken out of the chain's relative velocities exactly.
+  const prescribedKick = (ta: number, tb: number) => {
+    const dv = dc.prescribedVelocity(tb) - dc.prescribedVelocity(ta);
+    if (dv !== 0) for (let i = 0; i < n; i++) Y[iV + i] -= dv;
+    Y[iV + sys.driveNode] = 0;
+    Y[vD] = dc.prescribedVelocity(tb);
+  };
+  for (let k = 1; k <= nSteps; k++) {
+    const p0 = sys.drivePower;
+    const d0 = sys.dissipation;
+    const tPrev = t0 + (k - 1) * dt;
+    const t = k === nSteps ? t0 + duration : t0 + k * dt;
+    const prescribed = dc.prescribed;
+    for (let i = firstOrderFrom; i < firstOrderTo; i++) Y[i] += dt * dY[i];
+    for (let i = 0; i < nPos; i++) Y[iV + i] += hdt * dY[iV + i];
+    if (prescribed) prescribedKick(tPrev, tPrev + hdt);
+    for (let i = 0; i < nPos; i++) Y[i] += dt * Y[iV + i];
+    Y[sys.driveNode] = 0;
+    st.t = t;
+    sys.rhs(t, Y, dY, false);
+    Y[L.iWork] += hdt * (p0 + sys.drivePower);
+    Y[L.iDiss] += hdt * (d0 + sys.dissipation);
+    for (let i = 0; i < nPos; i++) Y[iV + i] += hdt * dY[iV + i];
+    if (prescribed) prescribedKick(tPrev + hdt, t);
+    steps++;
+    const ev = sys.updateModes(t, Y);
+    // A contact, a train or a drive phase that just started or ended changes the forces: re-evaluate.
+    if (ev & EVENTS_REEVALUATE) sys.rhs(t, Y, dY, false);
+    if (!hooks.step(st, dt, ev, false)) return { final: st, steps, timeStep: dt, endedEarly: true };
+    if ((steps & 127) === 0) hooks.check(steps, t);
   }
   return { final: st, steps, timeStep: dt, endedEarly: false };
 }
 
-/** Classical RK4 on the same system (first-order form), for the benchmark's comparison only. */
+/** Classical RK4 over the same rhs and layout, for the benchmark's comparison. Returns the steps taken. */
 export function integrateRk4(sys: LiftSystem, st: DynState, duration: number, dt: number, onStep?: (st: DynState) => void): number {
-  const n = sys.n;
-  const N = 2 * n + 4;
-  const y = new Float64Array(N);
-  const pack = (s: DynState) => {
-    y.set(s.w, 0);
-    y[n] = s.x;
-    y[n + 1] = s.y;
-    y.set(s.vw, n + 2);
-    y[2 * n + 2] = s.vx;
-    y[2 * n + 3] = s.vy;
-  };
-  const w = new Float64Array(n);
-  const vw = new Float64Array(n);
-  const aw = new Float64Array(n);
-  const f = (t: number, Y: Float64Array, dY: Float64Array) => {
-    for (let i = 0; i < n; i++) {
-      w[i] = Y[i];
-      vw[i] = Y[n + 2 + i];
-    }
-    sys.accel(t, w, vw, Y[n], Y[2 * n + 2], Y[n + 1], Y[2 * n + 3], aw);
-    for (let i = 0; i < n; i++) {
-      dY[i] = Y[n + 2 + i];
-      dY[n + 2 + i] = aw[i];
-    }
-    dY[n] = Y[2 * n + 2];
-    dY[n + 1] = Y[2 * n + 3];
-    dY[2 * n + 2] = sys.ax;
-    dY[2 * n + 3] = sys.ay;
-  };
-  pack(st);
+  const N = sys.layout.size;
+  const y = st.y;
   const k1 = new Float64Array(N), k2 = new Float64Array(N), k3 = new Float64Array(N), k4 = new Float64Array(N);
   const tmp = new Float64Array(N);
   const nSteps = Math.ceil(duration / dt - 1e-9);
   const h = duration / nSteps;
   let t = st.t;
   for (let k = 0; k < nSteps; k++) {
-    f(t, y, k1);
+    sys.rhs(t, y, k1, true);
     for (let i = 0; i < N; i++) tmp[i] = y[i] + 0.5 * h * k1[i];
-    f(t + 0.5 * h, tmp, k2);
+    sys.rhs(t + 0.5 * h, tmp, k2, true);
     for (let i = 0; i < N; i++) tmp[i] = y[i] + 0.5 * h * k2[i];
-    f(t + 0.5 * h, tmp, k3);
+    sys.rhs(t + 0.5 * h, tmp, k3, true);
     for (let i = 0; i < N; i++) tmp[i] = y[i] + h * k3[i];
-    f(t + h, tmp, k4);
+    sys.rhs(t + h, tmp, k4, true);
     for (let i = 0; i < N; i++) y[i] += (h / 6) * (k1[i] + 2 * k2[i] + 2 * k3[i] + k4[i]);
     t += h;
-    // Unpack and let the system see the accepted state (modes, diagnostics).
-    for (let i = 0; i < n; i++) {
-      st.w[i] = y[i];
-      st.vw[i] = y[n + 2 + i];
-    }
     st.t = t;
-    st.x = y[n];
-    st.y = y[n + 1];
-    st.vx = y[2 * n + 2];
-    st.vy = y[2 * n + 3];
-    sys.accel(t, st.w, st.vw, st.x, st.vx, st.y, st.vy, aw);
-    sys.updateModes(t, st.w, st.x);
+    // Let the system see the accepted state (modes, diagnostics).
+    sys.rhs(t, y, k1, true);
+    sys.updateModes(t, y);
     onStep?.(st);
     if (!Number.isFinite(sys.maxT)) return k + 1;
   }

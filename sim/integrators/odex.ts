@@ -1,14 +1,14 @@
 /**
- * The adaptive path: odex (Hairer & Wanner's GBS extrapolation) on the first-order system
- * [w, x, y, ẇ, ẋ, ẏ, drive work, dissipated energy]. Dense output samples the series exactly and
- * locates contact events (a catch point reaching the dog, the dog letting go at the release point);
- * the integration restarts at each located event and at the end of the drive ramp, so the right-hand
- * side is smooth within every solve.
+ * The adaptive path: odex (Hairer & Wanner's GBS extrapolation) on the flat state of integrators/types.ts
+ * through the same rhs as every other integrator. Dense output samples the series exactly and locates
+ * contact events (a catch point reaching a dog, a dog letting go where the chain ends); the integration
+ * restarts at each located event, at the drive's kinks and phase changes and at each train's startTime, so
+ * the right-hand side is smooth within every solve.
  */
 // A namespace import cannot fail at link time in any bundler; availability is checked at run time below.
 import * as odexLib from "odex";
 import { SimulationError } from "../errors";
-import { EVENT_ENGAGE, EVENT_RELEASE, type LiftSystem } from "../rhs";
+import { EVENT_ENGAGE, EVENT_RELEASE, EVENTS_REEVALUATE, type LiftSystem } from "../rhs";
 import type { DynState, IntegratorResult, RunHooks } from "./types";
 
 export interface OdexSettings {
@@ -24,65 +24,27 @@ export function integrateOdex(
   hooks: RunHooks,
   cfg: OdexSettings,
 ): IntegratorResult {
-  const n = sys.n;
-  const N = 2 * n + 6;
-  const IX = n;
-  const IY = n + 1;
-  const IVW = n + 2;
-  const IVX = 2 * n + 2;
-  const IVY = 2 * n + 3;
-  const IW = 2 * n + 4;
-  const ID = 2 * n + 5;
-  const w = new Float64Array(n);
-  const vw = new Float64Array(n);
-  const aw = new Float64Array(n);
+  const L = sys.layout;
+  const N = L.size;
+  const work = new Float64Array(N);
+  const dY = new Float64Array(N);
 
   const f = (t: number, Y: number[]): number[] => {
-    for (let i = 0; i < n; i++) {
-      w[i] = Y[i];
-      vw[i] = Y[IVW + i];
-    }
-    sys.accel(t, w, vw, Y[IX], Y[IVX], Y[IY], Y[IVY], aw);
-    const d = new Array<number>(N);
-    for (let i = 0; i < n; i++) {
-      d[i] = Y[IVW + i];
-      d[IVW + i] = aw[i];
-    }
-    d[IX] = Y[IVX];
-    d[IY] = Y[IVY];
-    d[IVX] = sys.ax;
-    d[IVY] = sys.ay;
-    d[IW] = sys.drivePower;
-    d[ID] = sys.dissipation;
-    return d;
+    work.set(Y);
+    sys.rhs(t, work, dY, true);
+    return Array.from(dY);
   };
-  const toState = (t: number, Y: ArrayLike<number>, s: DynState) => {
-    for (let i = 0; i < n; i++) {
-      s.w[i] = Y[i];
-      s.vw[i] = Y[IVW + i];
-    }
-    s.t = t;
-    s.x = Y[IX];
-    s.y = Y[IY];
-    s.vx = Y[IVX];
-    s.vy = Y[IVY];
-    s.work = Y[IW];
-    s.dissipated = Y[ID];
-  };
-  const evaluate = (s: DynState) => sys.accel(s.t, s.w, s.vw, s.x, s.vx, s.y, s.vy, aw);
+  const evaluate = (s: DynState) => sys.rhs(s.t, s.y, dY, true);
 
-  // Tolerances per state: displacements to ~10·tol m, velocities to ~100·tol m/s; the two energy
-  // integrals are carried along without steering the step size.
+  // Tolerances per state: displacements to ~10·tol m, velocities to ~100·tol m/s, Zener strains to
+  // tol·1e-3; the speed loop's integral like a displacement; the two energy integrals are carried along
+  // without steering the step size.
   const tol = cfg.tolerance;
   const atol = new Array<number>(N);
-  const rtol = new Array<number>(N);
-  for (let i = 0; i < N; i++) {
-    const isPos = i < IVW;
-    atol[i] = isPos ? 10 * tol : 100 * tol;
-    rtol[i] = tol;
-  }
-  atol[IW] = atol[ID] = 1e30;
-  rtol[IW] = rtol[ID] = 1;
+  const rtol = new Array<number>(N).fill(tol);
+  for (let i = 0; i < N; i++) atol[i] = i < L.iV ? 10 * tol : i < L.iZ ? 100 * tol : i < L.iZ + L.nZ ? 1e-3 * tol : 10 * tol;
+  atol[L.iWork] = atol[L.iDiss] = 1e30;
+  rtol[L.iWork] = rtol[L.iDiss] = 1;
 
   const { Solver, Outcome } = odexLib;
   if (typeof Solver !== "function") {
@@ -99,24 +61,15 @@ export function integrateOdex(
   if (cfg.maxExtrapolationColumns) solver.maxExtrapolationColumns = cfg.maxExtrapolationColumns;
   solver.initialStepSize = Math.min(1e-4, cfg.maxStepSize);
 
-  let Y: number[] = new Array<number>(N);
-  for (let i = 0; i < n; i++) {
-    Y[i] = st.w[i];
-    Y[IVW + i] = st.vw[i];
-  }
-  Y[IX] = st.x;
-  Y[IY] = st.y;
-  Y[IVX] = st.vx;
-  Y[IVY] = st.vy;
-  Y[IW] = st.work;
-  Y[ID] = st.dissipated;
-
+  let Y: number[] = Array.from(st.y);
   let t = st.t;
   let steps = 0;
   let lastH = solver.initialStepSize;
-  const ramp = sys.s.drive.rampTime;
-  const cur: DynState = { ...st, w: new Float64Array(n), vw: new Float64Array(n) };
-  const probe: DynState = { ...st, w: new Float64Array(n), vw: new Float64Array(n) };
+  const breaks = [...sys.driveControl.breakpoints(), ...sys.trains.map((tr) => tr.settings.startTime)]
+    .filter((b) => b > 0 && b < duration)
+    .sort((a, b) => a - b);
+  const cur: DynState = { t, y: new Float64Array(N) };
+  const probe: DynState = { t, y: new Float64Array(N) };
   let endedEarly = false;
 
   const denseState = (dense: (c: number, x: number) => number, tt: number): number[] => {
@@ -124,17 +77,17 @@ export function integrateOdex(
     for (let i = 0; i < N; i++) out[i] = dense(i, tt);
     return out;
   };
-  // Material coordinate at the dog, from dense output of the few components it needs.
-  const xiDogDense = (dense: (c: number, x: number) => number, tt: number): number => {
-    const xx = dense(IX, tt);
-    const q = xx - sys.dogOffset - sys.chainFrom;
+  // Material coordinate at a train's dog, from dense output of the few components it needs.
+  const xiDogDense = (dense: (c: number, x: number) => number, j: number, tt: number): number => {
+    const tr = sys.trains[j];
+    const q = dense(L.iX + j, tt) - tr.dogOffset - sys.chainFrom;
     const h = sys.loop.hStrand;
-    let j = Math.floor(q / h);
-    if (j < 0) j = 0;
-    else if (j >= sys.loop.nsStrand) j = sys.loop.nsStrand - 1;
-    const fr = q / h - j;
-    const wq = dense(j, tt) * (1 - fr) + dense(j + 1, tt) * fr;
-    return q - sys.drive.displacement(tt) - wq;
+    let k = Math.floor(q / h);
+    if (k < 0) k = 0;
+    else if (k >= sys.loop.nsStrand) k = sys.loop.nsStrand - 1;
+    const fr = q / h - k;
+    const wq = dense(k, tt) * (1 - fr) + dense(k + 1, tt) * fr;
+    return q - dense(L.iD, tt) - wq;
   };
   const bisect = (g: (tt: number) => number, a: number, b: number): number => {
     let ga = g(a);
@@ -149,73 +102,79 @@ export function integrateOdex(
     return b;
   };
 
+  type Restart = { t: number; Y: number[]; mode: () => void; flag: number };
   while (t < duration - 1e-12) {
-    const segEnd = ramp > 0 && t < ramp - 1e-12 && ramp < duration ? ramp : duration;
-    let restart: { t: number; Y: number[]; mode: () => void; flag: number } | null = null;
+    const segEnd = breaks.find((b) => b > t + 1e-12) ?? duration;
+    let restart: Restart | null = null;
     let stop = false;
     solver.initialStepSize = lastH;
     solver.maxSteps = Math.max(10, hooks.maxSteps - steps);
     const res = solver.solve(f, t, Y, segEnd, (nr, xold, x, yv, dense) => {
       if (nr === 1 || !dense) return true;
       lastH = x - xold;
-      // Contact events inside this step: locate them, and restart there with the new mode.
-      const inZoneEnd = sys.dogInZone(yv[IX]);
-      if (sys.engaged === sys.engaged && !inZoneEnd) {
-        const xOld = dense(IX, xold);
-        const limit = yv[IX] - sys.dogOffset >= sys.dogRelease ? sys.dogRelease : sys.chainFrom;
-        const g = (tt: number) => dense(IX, tt) - sys.dogOffset - limit;
-        const te = Math.sign(g(xold)) !== Math.sign(g(x)) ? bisect(g, xold, x) : x;
-        void xOld;
-        restart = {
-          flag: EVENT_RELEASE,
-          t: te,
-          Y: denseState(dense, te),
-          mode: () => {
-            sys.engaged = NaN;
-            sys.lastCatchIndex = NaN;
-          },
-        };
-      } else if (inZoneEnd && sys.lastCatchIndex === sys.lastCatchIndex) {
-        const K0 = sys.lastCatchIndex;
-        const xiEnd = xiDogDense(dense, x);
-        if (sys.lattice.indexAtOrBehind(xiEnd) < K0) {
-          const target = sys.lattice.at(K0);
-          const te = bisect((tt) => xiDogDense(dense, tt) - target, xold, x);
-          restart = {
-            flag: EVENT_ENGAGE,
-            t: te,
-            Y: denseState(dense, te),
-            mode: () => {
-              sys.engaged = K0;
-              sys.engageOffset = 0; // located exactly
-              sys.lastCatchIndex = K0 - 1;
-            },
-          };
+      // Contact events inside this step, per train: locate the earliest, and restart there with its mode.
+      let found: Restart | null = null;
+      for (let j = 0; j < sys.trains.length; j++) {
+        const tr = sys.trains[j];
+        if (!tr.active) continue;
+        const xEnd = yv[L.iX + j];
+        const inZoneEnd = sys.dogInZone(xEnd, tr.dogOffset);
+        let cand: Restart | null = null;
+        if (tr.engaged === tr.engaged && !inZoneEnd) {
+          const limit = xEnd - tr.dogOffset >= sys.dogRelease ? sys.dogRelease : sys.chainFrom;
+          const g = (tt: number) => dense(L.iX + j, tt) - tr.dogOffset - limit;
+          const te = Math.sign(g(xold)) !== Math.sign(g(x)) ? bisect(g, xold, x) : x;
+          cand = { flag: EVENT_RELEASE, t: te, Y: [], mode: () => ((tr.engaged = NaN), (tr.lastCatchIndex = NaN)) };
+        } else if (inZoneEnd && tr.lastCatchIndex === tr.lastCatchIndex) {
+          const K0 = tr.lastCatchIndex;
+          if (sys.lattice.indexAtOrBehind(xiDogDense(dense, j, x)) < K0) {
+            const target = sys.lattice.at(K0);
+            const te = bisect((tt) => xiDogDense(dense, j, tt) - target, xold, x);
+            cand = {
+              flag: EVENT_ENGAGE,
+              t: te,
+              Y: [],
+              mode: () => {
+                tr.engaged = K0;
+                tr.engageOffset = 0; // located exactly
+                tr.lastCatchIndex = K0 - 1;
+              },
+            };
+          }
         }
+        if (cand && (!found || cand.t < found.t)) found = cand;
+      }
+      if (found) {
+        found.Y = denseState(dense, found.t);
+        restart = found;
       }
       const tEnd = restart ? restart.t : x;
       // Exact series samples from the dense output.
       while (hooks.nextSampleTime() <= tEnd + 1e-12) {
         const ts = hooks.nextSampleTime();
-        toState(ts, denseState(dense, ts), probe);
+        probe.t = ts;
+        probe.y.set(denseState(dense, ts));
         evaluate(probe);
         hooks.sample(probe);
       }
       steps++;
       if (restart) {
-        const r = restart as { t: number; Y: number[]; mode: () => void; flag: number };
-        toState(r.t, r.Y, cur);
+        const r = restart as Restart;
+        cur.t = r.t;
+        cur.y.set(r.Y);
         evaluate(cur);
-        const ev = sys.updateModes(r.t, cur.w, cur.x);
+        const ev = sys.updateModes(r.t, cur.y);
         r.mode();
         evaluate(cur);
+        r.Y = Array.from(cur.y);
         if (!hooks.step(cur, r.t - xold, ev | r.flag, true)) stop = true;
         return false;
       }
-      toState(x, yv, cur);
+      cur.t = x;
+      cur.y.set(yv);
       evaluate(cur);
-      const ev = sys.updateModes(x, cur.w, cur.x);
-      if (ev & (EVENT_ENGAGE | EVENT_RELEASE)) evaluate(cur);
+      const ev = sys.updateModes(x, cur.y);
+      if (ev & EVENTS_REEVALUATE) evaluate(cur);
       if (!hooks.step(cur, x - xold, ev, true)) {
         stop = true;
         return false;
@@ -228,7 +187,7 @@ export function integrateOdex(
       break;
     }
     if (restart) {
-      const r = restart as { t: number; Y: number[] };
+      const r = restart as Restart;
       t = r.t;
       Y = r.Y;
       continue;
@@ -245,12 +204,15 @@ export function integrateOdex(
       throw new SimulationError("tolerance", `odex stopped at t = ${res.xEnd} s without converging.`, res.xEnd);
     }
     t = segEnd;
-    Y = res.y;
+    // Modes at a breakpoint (drive phase, a train appearing) change the state or the law: apply them.
+    cur.t = t;
+    cur.y.set(res.y);
+    evaluate(cur);
+    if (sys.updateModes(t, cur.y) & EVENTS_REEVALUATE) evaluate(cur);
+    Y = Array.from(cur.y);
   }
-  toState(t, Y, cur);
-  evaluate(cur);
-  Object.assign(st, { ...cur, w: st.w, vw: st.vw });
-  st.w.set(cur.w);
-  st.vw.set(cur.vw);
+  st.t = t;
+  st.y.set(Y);
+  evaluate(st);
   return { final: st, steps, timeStep: null, endedEarly };
 }
