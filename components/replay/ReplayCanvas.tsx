@@ -234,11 +234,14 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     }
     ctx.fill();
 
-    // Cars of every train the frame carries (frames hold the first train's position today), drawn from the front back.
+    // Cars of every train on the track (a frame saved before per-train frames existed holds train 1 only),
+    // drawn from the front back.
     const carH = Math.max(6, 1.1 * v.k);
-    const positions = [f.trainPosition];
-    scenario.trains.slice(0, positions.length).forEach((tr, i) => {
-      const front = positions[i]!;
+    const onTrack = f.trains ?? [{ position: f.trainPosition, present: true, dogEngaged: f.dogEngaged }];
+    scenario.trains.forEach((tr, i) => {
+      const ft = onTrack[i];
+      if (!ft || !ft.present) return;
+      const front = ft.position;
       for (let k = 0; k < tr.cars; k++) {
         const sFront = front - k * tr.carLength - 0.1;
         const sBack = front - (k + 1) * tr.carLength + 0.1;
@@ -271,7 +274,7 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
       ctx.lineTo(v.sx(dog.x) + 4, v.sy(dog.z));
       ctx.lineTo(v.sx(dog.x), v.sy(dog.z) + 7);
       ctx.closePath();
-      ctx.fillStyle = f.dogEngaged ? "#e08a00" : "#a9b6c2";
+      ctx.fillStyle = ft.dogEngaged ? "#e08a00" : "#a9b6c2";
       ctx.fill();
     });
     // ARD pawl at the tooth it would fall on; a ring and a label while it carries the train.

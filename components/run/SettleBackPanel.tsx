@@ -19,7 +19,7 @@ export function SettleBackPanel({ data }: { data: RunData }) {
           train: rt.train,
           gravity: data.scenario.run.gravity,
           summary: data.summary,
-          series: rt.series,
+          series: rt.signals,
         });
         return account ? [{ label: rt.label, account }] : [];
       }),
