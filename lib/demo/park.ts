@@ -132,12 +132,19 @@ const emberlineChain: In<ChainSettings> = {
 };
 
 /**
- * 200 kW four-pole motor (≈1480 rpm) through an 11.2:1 gearbox to an 11-tooth sprocket of pitch radius
- * 0.1803 m (132 rpm at 2.5 m/s): (i/r)² = (11.2 / 0.1803)² ≈ 3860 m⁻²; J ≈ 3.2 kg·m² (rotor 2.6 + brake
- * disc and coupling 0.6: assumption) → ≈ 12.4 t at the chain. Steady climb ≈ 60 kN × 2.5 m/s ÷ 0.9 ≈ 167 kW.
+ * 250 kW four-pole motor (≈1480 rpm) through an 11.2:1 gearbox to an 11-tooth sprocket of pitch radius
+ * 0.1803 m (132 rpm at 2.5 m/s): (i/r)² = (11.2 / 0.1803)² ≈ 3860 m⁻²; J ≈ 4.0 kg·m² (rotor 3.4 + brake
+ * disc and coupling 0.6: assumption) → ≈ 15.4 t at the chain. The full train's steady climb takes ≈ 215 kW
+ * at the motor (the demo run's figure), so the motor runs at about 85 % of its rating.
  */
-const emberlineMotor = { kind: "induction" as const, ratedPower: 200_000, ratedSlip: 0.015, breakdownRatio: 2.3, reflectedMass: 12_400 };
+const emberlineMotor = { kind: "induction" as const, ratedPower: 250_000, ratedSlip: 0.015, breakdownRatio: 2.3, reflectedMass: 15_400 };
 const emberlineDrive: In<DriveSettings> = { speed: 2.5, rampTime: 2, sprocketTeeth: 11, efficiency: 0.9, location: "bottom", motor: emberlineMotor };
+/**
+ * The capacity trial's climb takes ≈ 365 kW at 4.2 m/s: a 400 kW four-pole motor (rated slip 1.2 %, breakdown
+ * 2.3, typical of the size; from memory) through 6.7:1 (sprocket 222 rpm): (6.7 / 0.1803)² ≈ 1380 m⁻²;
+ * J ≈ 7 kg·m² (assumption) → ≈ 9.7 t at the chain. The 250 kW motor would stall at this speed.
+ */
+const emberlineTrialMotor = { kind: "induction" as const, ratedPower: 400_000, ratedSlip: 0.012, breakdownRatio: 2.3, reflectedMass: 9_700 };
 /** 5000 kg counterweight: friction 2 % of 49 kN ≈ 1000 N. */
 const emberlineTakeUp: In<TakeUpSettings> = { mass: 5000, travel: 2.5, position: 1.2, friction: 1000, damping: 0 };
 const emberlineArd: In<AntiRollbackSettings> = { enabled: true, from: 12, to: 118, toothSpacing: 0.15 };
@@ -194,10 +201,10 @@ export const DEMO_LIFTS: DemoLift[] = [
         antiRollback: emberlineArd,
       },
       {
-        changeSummary: "Capacity trial: chain speed raised to 4.2 m/s with a short ramp",
+        changeSummary: "Capacity trial: chain speed raised to 4.2 m/s with a short ramp; 400 kW motor through a 6.7:1 gearbox",
         geometry: emberlineGeometry,
         chain: emberlineChain,
-        drive: { ...emberlineDrive, speed: 4.2, rampTime: 0.2 },
+        drive: { ...emberlineDrive, speed: 4.2, rampTime: 0.2, motor: emberlineTrialMotor },
         takeUp: emberlineTakeUp,
         antiRollback: emberlineArd,
       },
@@ -364,7 +371,8 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
     notes: "Compare with the full train: lower chain tension, less take-up travel, less motor power.",
     shows: "an empty train: compare its tension, take-up drop and drive power with the full train",
     expect: [
-      { field: "peakTension", op: "<", than: { scenario: "foxglove-full-train", factor: 0.9 }, why: "clearly less tension than the full train" },
+      // The peak at the pick-up is close to the full train's (the lighter train snatches more); the climb is not.
+      { field: "steadyTension", op: "<", than: { scenario: "foxglove-full-train", factor: 0.9 }, why: "clearly less tension in the steady climb than the full train" },
     ],
   },
   {
@@ -395,8 +403,11 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
     startPosition: 14,
     runSettings: { duration: 30, segments: 60 },
     notes: "The train creeps in at 1 m/s and a catch point moving at 4.2 m/s hits its dog: a large snatch load on the chain.",
-    shows: "a fast chain picking up a slow train: snatch factor above the default limit of 2",
-    expect: [{ field: "snatchFactor", op: ">", value: 2, why: "above the default snatch limit of 2" }],
+    shows: "a fast chain picking up a slow train: a snatch load far above the clean pick-up's, safety factor below the required 5",
+    expect: [
+      { field: "peakTension", op: ">", than: { scenario: "emberline-clean-pickup", factor: 1.5 }, why: "the snatch load is far above the clean pick-up's peak" },
+      { field: "minSafetyFactor", op: "<", value: 5, why: "the snatch load takes the chain below the required safety factor of 5" },
+    ],
   },
 ];
 
