@@ -10,7 +10,8 @@ export function DriveDampingPanel({ data, units }: { data: RunData; units: UnitS
     const s = data.scenario;
     // Surge figures of the engine's summary (absent in runs made before they existed).
     const figures = data.summary as unknown as Record<string, unknown>;
-    const n = (k: string) => (typeof figures[k] === "number" ? (figures[k] as number) : null);
+    // null: the engine could not measure it; undefined: the run's figures do not include it.
+    const n = (k: string) => (typeof figures[k] === "number" ? (figures[k] as number) : figures[k] === null ? null : undefined);
     const summary = { steadyChainSpeed: n("steadyChainSpeed"), surgeAmplitude: n("surgeAmplitude"), surgeDampingRatio: n("surgeDampingRatio") };
     return driveDampingAccount({ drive: s.drive, chain: s.chain, takeUp: s.takeUp, contacts: s.contacts, gravity: s.run.gravity, summary }, units);
   }, [data, units]);

@@ -105,7 +105,9 @@ export function driveDampingAccount(x: DriveDampingInput, units: UnitSystem): Ac
     text:
       (typeof zeta === "number"
         ? `The train's surge on the chain decayed with a damping ratio of ${pct(zeta)} (from the logarithmic decrement of the run).`
-        : "The surge's damping ratio could not be measured in this run (too few clean cycles after the pick-up).") +
+        : zeta === null
+          ? "The surge's damping ratio could not be measured in this run (too few clean cycles after the pick-up)."
+          : "This run's figures do not include the surge's damping ratio; the sources above are what damps it.") +
       (typeof amp === "number" ? ` Over the steady climb the train speed swung ±${q(amp, "speed", units)} about its mean.` : ""),
   });
   return lines;

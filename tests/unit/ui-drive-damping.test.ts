@@ -43,6 +43,7 @@ describe("drive and damping account", () => {
     expect(t.drive).toContain("takes no energy out of the surge");
     expect(t.stop).toContain("brings the chain to rest over 0.50 s");
     expect(t.surge).toContain("could not be measured");
+    expect(text({ ...base, summary: {} }).surge).toContain("do not include the surge's damping ratio");
   });
 
   it("US customary units on screen", () => {
