@@ -10,6 +10,8 @@ import * as m0013 from "./0013_create_scenarios";
 import * as m0014 from "./0014_create_audit_entries";
 import * as m0015 from "./0015_create_comments";
 import * as m0016 from "./0016_widen_scenario_names";
+import * as m0017 from "./0017_scenario_format_2";
+import * as m0018 from "./0018_train_pawls";
 import * as m0020 from "./0020_runs";
 import * as m0021 from "./0021_run_overrides";
 import * as m0030 from "./0030_studies";
@@ -42,6 +44,8 @@ export const migrations: Migration[] = [
   { name: "0014_create_audit_entries", ...m0014 },
   { name: "0015_create_comments", ...m0015 },
   { name: "0016_widen_scenario_names", ...m0016 },
+  { name: "0017_scenario_format_2", ...m0017 },
+  { name: "0018_train_pawls", ...m0018 },
   { name: "0020_runs", ...m0020 },
   { name: "0021_run_overrides", ...m0021 },
   { name: "0030_studies", ...m0030 },

@@ -32,6 +32,13 @@ export class Scenario extends Model<InferAttributes<Scenario>, InferCreationAttr
   declare startPosition: number;
   /** Engine section `run`. */
   declare runSettings: Record<string, unknown>;
+  /** s, when the train appears at its start position (format 2 `trains[].startTime`). */
+  declare startTime: CreationOptional<number>;
+  /**
+   * The scenario's drive model and damping laid over the pinned revision's sections (format 2:
+   * drive.motor/location/stop, chain.damping/lossFactor, takeUp.friction/damping, contacts); null = none.
+   */
+  declare dynamics: Record<string, unknown> | null;
   declare notes: string | null;
   declare version: CreationOptional<number>;
   declare archivedAt: Date | null;
@@ -55,6 +62,8 @@ export function initScenario(sequelize: Sequelize): typeof Scenario {
       entrySpeed: { type: DataTypes.DOUBLE, allowNull: false },
       startPosition: { type: DataTypes.DOUBLE, allowNull: false },
       runSettings: { type: DataTypes.JSON, allowNull: false },
+      startTime: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
+      dynamics: { type: DataTypes.JSON, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: true },
       version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       archivedAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -30,6 +30,8 @@ export class Train extends Model<InferAttributes<Train>, InferCreationAttributes
   declare rollingResistance: number;
   /** m² (drag coefficient × frontal area) */
   declare dragArea: number;
+  /** m behind the front, the ARD pawls (format 2 `trains[].pawls`); null = one pawl at the dog. */
+  declare pawls: number[] | null;
   declare version: CreationOptional<number>;
   declare archivedAt: Date | null;
   declare createdBy: number | null;
@@ -52,6 +54,7 @@ export function initTrain(sequelize: Sequelize): typeof Train {
       dogOffset: { type: DataTypes.DOUBLE, allowNull: false },
       rollingResistance: { type: DataTypes.DOUBLE, allowNull: false },
       dragArea: { type: DataTypes.DOUBLE, allowNull: false },
+      pawls: { type: DataTypes.JSON, allowNull: true },
       version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       archivedAt: { type: DataTypes.DATE(3), allowNull: true },
       createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },

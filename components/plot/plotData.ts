@@ -1,11 +1,12 @@
 /** The run's series as plot panels in the user's units, and their CSV export (pure). */
 import { toCsv } from "@/lib/csv/write";
 import type { Series } from "@/sim";
+import type { SeriesKey } from "@/sim/frames";
 import { toDisplay, unitOf, type Quantity, type UnitSystem } from "@/lib/client/units";
 
 export interface PanelLine {
   /** A series of the run, or one derived from it here (chain speed) or from the frames (tension at the dog). */
-  key: keyof Series | "chainSpeed" | "dogTension";
+  key: SeriesKey | "chainSpeed" | "dogTension";
   label: string;
   colour: string;
   dash?: number[];

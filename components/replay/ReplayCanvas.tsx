@@ -234,36 +234,49 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     }
     ctx.fill();
 
-    // Cars: outlines on the track, drawn from the front back.
-    const tr = scenario.train;
+    // Cars of every train on the track (a frame saved before per-train frames existed holds train 1 only),
+    // drawn from the front back.
     const carH = Math.max(6, 1.1 * v.k);
-    for (let k = 0; k < tr.cars; k++) {
-      const sFront = f.trainPosition - k * tr.carLength - 0.1;
-      const sBack = f.trainPosition - (k + 1) * tr.carLength + 0.1;
-      const a = d.trackAt(sBack);
-      const b = d.trackAt(sFront);
-      const nx0 = -Math.sin(a.phi);
-      const nz0 = Math.cos(a.phi);
-      const nx1 = -Math.sin(b.phi);
-      const nz1 = Math.cos(b.phi);
+    const onTrack = f.trains ?? [{ position: f.trainPosition, present: true, dogEngaged: f.dogEngaged }];
+    scenario.trains.forEach((tr, i) => {
+      const ft = onTrack[i];
+      if (!ft || !ft.present) return;
+      const front = ft.position;
+      for (let k = 0; k < tr.cars; k++) {
+        const sFront = front - k * tr.carLength - 0.1;
+        const sBack = front - (k + 1) * tr.carLength + 0.1;
+        const a = d.trackAt(sBack);
+        const b = d.trackAt(sFront);
+        const nx0 = -Math.sin(a.phi);
+        const nz0 = Math.cos(a.phi);
+        const nx1 = -Math.sin(b.phi);
+        const nz1 = Math.cos(b.phi);
+        ctx.beginPath();
+        ctx.moveTo(v.sx(a.x), v.sy(a.z) - 1);
+        ctx.lineTo(v.sx(b.x), v.sy(b.z) - 1);
+        ctx.lineTo(v.sx(b.x) + nx1 * carH, v.sy(b.z) - nz1 * carH);
+        ctx.lineTo(v.sx(a.x) + nx0 * carH, v.sy(a.z) - nz0 * carH);
+        ctx.closePath();
+        ctx.fillStyle = k === 0 ? "#2a4258" : "#1a2f42";
+        ctx.fill();
+      }
+      // Several trains on the chain: each one is labelled by its number in the scenario.
+      if (scenario.trains.length > 1) {
+        const nose = d.trackAt(front);
+        ctx.fillStyle = "#2a4258";
+        ctx.font = "bold 11px ui-sans-serif, system-ui";
+        ctx.fillText(`Train ${i + 1}`, v.sx(nose.x) + 6, v.sy(nose.z) - carH - 4);
+      }
+      // The dog under the train: amber when it bears on a catch point.
+      const dog = d.trackAt(front - tr.dogOffset);
       ctx.beginPath();
-      ctx.moveTo(v.sx(a.x), v.sy(a.z) - 1);
-      ctx.lineTo(v.sx(b.x), v.sy(b.z) - 1);
-      ctx.lineTo(v.sx(b.x) + nx1 * carH, v.sy(b.z) - nz1 * carH);
-      ctx.lineTo(v.sx(a.x) + nx0 * carH, v.sy(a.z) - nz0 * carH);
+      ctx.moveTo(v.sx(dog.x) - 4, v.sy(dog.z));
+      ctx.lineTo(v.sx(dog.x) + 4, v.sy(dog.z));
+      ctx.lineTo(v.sx(dog.x), v.sy(dog.z) + 7);
       ctx.closePath();
-      ctx.fillStyle = k === 0 ? "#2a4258" : "#1a2f42";
+      ctx.fillStyle = ft.dogEngaged ? "#e08a00" : "#a9b6c2";
       ctx.fill();
-    }
-    // The dog under the train: amber when it bears on a catch point.
-    const dog = d.trackAt(f.trainPosition - tr.dogOffset);
-    ctx.beginPath();
-    ctx.moveTo(v.sx(dog.x) - 4, v.sy(dog.z));
-    ctx.lineTo(v.sx(dog.x) + 4, v.sy(dog.z));
-    ctx.lineTo(v.sx(dog.x), v.sy(dog.z) + 7);
-    ctx.closePath();
-    ctx.fillStyle = f.dogEngaged ? "#e08a00" : "#a9b6c2";
-    ctx.fill();
+    });
     // ARD pawl at the tooth it would fall on; a ring and a label while it carries the train.
     if (f.ardTooth !== null) {
       const p = d.trackAt(f.ardTooth);

@@ -14,6 +14,8 @@ export interface FrameView {
   dogForce: number;
   ardForce: number;
   ardTooth: number | null;
+  /** Every train (absent in frames saved before per-train frames existed). */
+  trains?: { position: number; present: boolean; dogEngaged: boolean }[];
 }
 
 /** Index of the last frame at or before t. */
@@ -70,6 +72,11 @@ export function frameAt(frames: readonly Frame[], t: number, out?: FrameView): F
   v.dogForce = lerp(a.dogForce, b.dogForce);
   v.ardForce = near.ardForce;
   v.ardTooth = near.ardTooth;
+  v.trains = a.trains?.map((ta, j) => {
+    const tb = b.trains?.[j] ?? ta;
+    const tn = near.trains?.[j] ?? ta;
+    return { position: lerp(ta.position, tb.position), present: tn.present, dogEngaged: tn.dogEngaged };
+  });
   return v;
 }
 

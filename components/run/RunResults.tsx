@@ -7,6 +7,8 @@ import { ReplayPanel } from "@/components/replay/ReplayPanel";
 import type { UnitSystem } from "@/lib/client/units";
 import { HeadlineFigures } from "./HeadlineFigures";
 import { SettleBackPanel } from "./SettleBackPanel";
+import { DriveDampingPanel } from "./DriveDampingPanel";
+import { runTrains } from "./runTrains";
 import type { RunData } from "./types";
 
 const ORIGIN: Record<RunData["origin"], string> = {
@@ -41,6 +43,7 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
             ))}
         </ul>
       )}
+      <DriveDampingPanel data={data} units={units} />
       <Card className="p-3">
         <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_300px]">
           <ReplayPanel scenario={data.scenario} frames={data.frames} layout={data.layout} series={data.series} summary={s} units={units} initialT={initialT} />
@@ -55,7 +58,7 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
         fileStem={fileStem}
         frames={data.frames}
         layout={data.layout}
-        dogOffset={data.scenario.train.dogOffset}
+        dogOffset={runTrains(data)[0]!.train.dogOffset}
         dogRelease={data.scenario.lift.dogRelease}
       />
       <SafetyNote />

@@ -4,30 +4,45 @@ import { useMemo } from "react";
 import { Button } from "@/components/ui/Button";
 import { useReplayStore, useReplayTime } from "@/components/replay/store";
 import type { RunData } from "./types";
-import { settleBackAccount } from "./settleBack";
+import { settleBackAccount, type SettleBackAccount } from "./settleBack";
+import { runTrains } from "./runTrains";
 
+/** One account per train that settled back onto the ARD. */
 export function SettleBackPanel({ data }: { data: RunData }) {
-  const account = useMemo(
+  const accounts = useMemo(
     () =>
-      settleBackAccount({
-        lift: data.scenario.lift,
-        chain: data.scenario.chain,
-        drive: data.scenario.drive,
-        train: data.scenario.train,
-        gravity: data.scenario.run.gravity,
-        summary: data.summary,
-        series: data.series,
+      runTrains(data).flatMap((rt) => {
+        const account = settleBackAccount({
+          lift: data.scenario.lift,
+          chain: data.scenario.chain,
+          drive: data.scenario.drive,
+          train: rt.train,
+          gravity: data.scenario.run.gravity,
+          summary: data.summary,
+          series: rt.signals,
+        });
+        return account ? [{ label: rt.label, account }] : [];
       }),
     [data],
   );
+  if (!accounts.length) return null;
+  return (
+    <div className="space-y-3">
+      {accounts.map((a) => (
+        <SettleBackCard key={a.label || "train"} label={a.label} account={a.account} />
+      ))}
+    </div>
+  );
+}
+
+function SettleBackCard({ label, account }: { label: string; account: SettleBackAccount }) {
   const t = useReplayTime(200);
-  if (!account) return null;
   const near = Math.abs(t - account.catchTime) < 0.6 || (account.pickupTime !== null && t >= account.catchTime && t <= account.pickupTime);
   return (
     <aside className={`rounded-lg border bg-white px-4 py-3 transition-colors ${near ? "border-fail/50 ring-2 ring-fail/15" : "border-steel-300/70"}`} data-testid="settle-back">
       <div className="flex items-start justify-between gap-3">
         <div>
-          <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">ARD catch at {account.catchTime.toFixed(2)} s</p>
+          <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">{label ? `${label}: ` : ""}ARD catch at {account.catchTime.toFixed(2)} s</p>
           <h3 className="text-[14.5px] font-bold text-ink-900">Why the train settled back</h3>
         </div>
         <Button

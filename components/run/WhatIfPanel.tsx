@@ -11,6 +11,7 @@ import { formatQuantity, type Quantity, type UnitSystem } from "@/lib/client/uni
 import { withWhatIf } from "./compute";
 import { useRunStore } from "./store";
 import type { WhatIf } from "./types";
+import { overridableValues } from "@/lib/runs/overrides";
 
 const SETTLE_MS = 450;
 
@@ -25,7 +26,8 @@ export function WhatIfPanel({
   runPreview: (s: Scenario) => void;
   runFull: (s: Scenario) => Promise<unknown>;
 }) {
-  const original: WhatIf = { entrySpeed: base.train.entrySpeed, chainSpeed: base.drive.speed, takeUpMass: base.takeUp.mass };
+  // The entry speed shown is the first train's; a what-if entry speed applies to every train.
+  const original: WhatIf = overridableValues(base);
   const [w, setW] = useState<WhatIf>(original);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const latency = useRunStore((s) => s.previewLatencyMs);

@@ -34,7 +34,7 @@ export function runScenario(scenario: Scenario, coarse: boolean, onProgress?: (f
 export function withWhatIf(s: Scenario, w: { entrySpeed: number; chainSpeed: number; takeUpMass: number }): Scenario {
   return {
     ...s,
-    train: { ...s.train, entrySpeed: w.entrySpeed },
+    trains: s.trains.map((t) => ({ ...t, entrySpeed: w.entrySpeed })),
     drive: { ...s.drive, speed: w.chainSpeed },
     takeUp: { ...s.takeUp, mass: w.takeUpMass },
   };

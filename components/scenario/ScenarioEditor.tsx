@@ -1,5 +1,8 @@
 "use client";
-/** Create or change a scenario: lift and pinned revision, train and loading, entry conditions, run settings. */
+/**
+ * Create or change a scenario: lift and pinned revision, train and loading, entry conditions, run
+ * settings, and the drive model and damping laid over the pinned revision (scenario format 2).
+ */
 import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import { z } from "zod";
@@ -12,9 +15,14 @@ import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/t
 import type { TrainJson } from "@/components/train/TrainEditor";
 import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
 import { useList } from "@/lib/client/hooks";
-import type { UnitSystem } from "@/lib/client/units";
-import { INTEGRATORS, runSettingsSchema, trainSchema } from "@/sim/schema";
+import { unitOf, type UnitSystem } from "@/lib/client/units";
+import { INTEGRATORS, runSettingsSchema, trainSchema, trainSchemaV1 } from "@/sim/schema";
+import { scenarioIssueMessage } from "@/lib/scenarios/schema";
+import type { Scenario as EngineScenario } from "@/sim";
+import { DYNAMICS_FIELDS, DYNAMICS_SECTIONS, dynamicsSchema } from "@/lib/scenarios/dynamics";
 import { LOADING_LABELS, type ScenarioJson } from "./types";
+import { DynamicsSection, labelledError } from "./DynamicsSection";
+import { ALL_DYNAMICS_FIELDS, START_TIME_FIELD } from "./dynamics-fields";
 
 const LOADINGS = ["empty", "full", "riders"] as const;
 
@@ -25,19 +33,49 @@ const scenarioFormSchema = z.object({
   trainId: z.number({ error: "choose a train" }).int().positive({ error: "choose a train" }),
   loading: z.enum(LOADINGS),
   riderCount: z.number().int().min(0).max(2000).nullish(),
-  entrySpeed: trainSchema.shape.entrySpeed,
-  startPosition: trainSchema.shape.startPosition,
+  entrySpeed: trainSchemaV1.shape.entrySpeed,
+  startPosition: trainSchemaV1.shape.startPosition,
+  startTime: trainSchema.shape.startTime,
   runSettings: runSettingsSchema,
+  dynamics: dynamicsSchema,
 });
+
+/** Every dynamics field, null where the draft has none: the server then drops it (back to the revision's value). */
+function dynamicsBody(d: unknown): Record<string, Record<string, unknown>> {
+  const src = (d && typeof d === "object" ? d : {}) as Record<string, Record<string, unknown> | undefined>;
+  return Object.fromEntries(
+    DYNAMICS_SECTIONS.map((sec) => [sec, Object.fromEntries(DYNAMICS_FIELDS[sec].map((k) => [k, src[sec]?.[k] ?? null]))]),
+  );
+}
 
 const FIELDS: FieldDef[] = [
   { path: "entrySpeed", label: "Entry speed", q: "speed", hint: "Train speed as it rolls onto the chain" },
   { path: "startPosition", label: "Start position (train front)", q: "length" },
+  START_TIME_FIELD,
   { path: "runSettings.duration", label: "Simulated time", q: "time" },
   { path: "runSettings.segments", label: "Chain segments", q: "count", int: true, hint: "More segments: finer waves, slower run" },
 ];
 
-export function ScenarioEditor({ scenario, units, canWrite }: { scenario: ScenarioJson | null; units: UnitSystem; canWrite: boolean }) {
+/** A field's label and unit for a server message's path (dynamics fields and the start time); else the path. */
+function labelOfPath(path: string, units: UnitSystem): string {
+  const def = ALL_DYNAMICS_FIELDS.find((f) => f.path === path);
+  if (!def) return path;
+  const unit = unitOf(def.q, units).label;
+  return `${def.label}${unit ? ` (${unit})` : ""}`;
+}
+
+export function ScenarioEditor({
+  scenario,
+  units,
+  canWrite,
+  engine = null,
+}: {
+  scenario: ScenarioJson | null;
+  units: UnitSystem;
+  canWrite: boolean;
+  /** The scenario as the engine runs it (for the drive and damping read-outs); null for a new one. */
+  engine?: EngineScenario | null;
+}) {
   const router = useRouter();
   const [draft, setDraft] = useState<Draft>(() =>
     scenario
@@ -51,9 +89,11 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
           riderCount: scenario.riderCount,
           entrySpeed: scenario.entrySpeed,
           startPosition: scenario.startPosition,
+          startTime: scenario.startTime ?? 0,
           runSettings: { duration: 40, segments: 60, ...scenario.runSettings },
+          dynamics: scenario.dynamics ?? {},
         }
-      : { name: "", notes: "", loading: "full", entrySpeed: 2, startPosition: 14, runSettings: { duration: 40, segments: 60 } },
+      : { name: "", notes: "", loading: "full", entrySpeed: 2, startPosition: 14, startTime: 0, runSettings: { duration: 40, segments: 60 }, dynamics: {} },
   );
   const [version, setVersion] = useState(scenario?.version ?? 0);
   const [touched, setTouched] = useState<Set<string>>(new Set());
@@ -68,7 +108,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
 
   const errors = useMemo(() => {
     const r = scenarioFormSchema.safeParse(draft);
-    return r.success ? {} : zodErrors(r.error.issues);
+    return r.success ? {} : zodErrors(r.error.issues.map((i) => ({ path: i.path, message: scenarioIssueMessage(i.message) })));
   }, [draft]);
   const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
   const set = (p: string, v: unknown) => {
@@ -86,7 +126,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
       return;
     }
     setBusy(true);
-    const body: Record<string, unknown> = { ...draft, notes: draft.notes || null };
+    const body: Record<string, unknown> = { ...draft, notes: draft.notes || null, dynamics: dynamicsBody(draft.dynamics) };
     if (body.loading !== "riders") delete body.riderCount;
     if (!body.liftRevisionId) delete body.liftRevisionId;
     try {
@@ -106,7 +146,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
       else if (err instanceof ApiError && err.status === 400) {
         setServerErrors(issueMap(err.issues));
         setShowAll(true);
-        setBanner({ tone: "error", title: "The server did not accept the scenario", text: err.issues.map((i) => `${i.path}: ${i.message}`).join(" · ") || err.message });
+        setBanner({ tone: "error", title: "The server did not accept the scenario", text: err.issues.map((i) => `${labelOfPath(i.path, units)}: ${i.message}`).join(" · ") || err.message });
       } else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
     } finally {
       setBusy(false);
@@ -177,9 +217,10 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
       </div>
       <Section title="Entry and run settings">
         {FIELDS.map((f) => (
-          <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
+          <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={f === START_TIME_FIELD ? labelledError(f, units, shown(f.path)) : shown(f.path)} disabled={disabled} />
         ))}
       </Section>
+      <DynamicsSection draft={draft} set={set} shown={shown} units={units} disabled={disabled} engine={engine} />
       {canWrite && (
         <Button type="submit" busy={busy} data-testid="save-scenario">
           {scenario ? "Save scenario" : "Create scenario"}

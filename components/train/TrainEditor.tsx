@@ -9,7 +9,8 @@ import { NumberField, Section } from "@/components/lift/NumberField";
 import { getPath, setPath, zodErrors, type Draft, type FieldDef } from "@/components/lift/form-model";
 import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
-import { trainInputSchema } from "@/lib/trains/schema";
+import { trainInputSchema, trainIssues } from "@/lib/trains/schema";
+import { PawlsField } from "./PawlsField";
 
 export interface TrainJson {
   id: number;
@@ -23,6 +24,8 @@ export interface TrainJson {
   dogOffset: number;
   rollingResistance: number;
   dragArea: number;
+  /** m behind the front; null = one pawl at the dog. */
+  pawls: number[] | null;
   carMassLoaded: number;
   version: number;
   archivedAt: string | null;
@@ -46,7 +49,7 @@ export function TrainEditor({ train, units, canWrite }: { train: TrainJson | nul
   const router = useRouter();
   const [draft, setDraft] = useState<Draft>(() =>
     train
-      ? Object.fromEntries(["name", "notes", ...TRAIN_FIELDS.map((f) => f.path)].map((k) => [k, (train as unknown as Draft)[k] ?? (k === "notes" ? "" : undefined)]))
+      ? Object.fromEntries(["name", "notes", "pawls", ...TRAIN_FIELDS.map((f) => f.path)].map((k) => [k, (train as unknown as Draft)[k] ?? (k === "notes" ? "" : undefined)]))
       : { ...NEW_TRAIN },
   );
   const [version, setVersion] = useState(train?.version ?? 0);
@@ -57,7 +60,7 @@ export function TrainEditor({ train, units, canWrite }: { train: TrainJson | nul
   const [busy, setBusy] = useState(false);
   const errors = useMemo(() => {
     const r = trainInputSchema.safeParse({ ...draft, notes: draft.notes || null });
-    return r.success ? {} : zodErrors(r.error.issues);
+    return r.success ? {} : zodErrors(trainIssues(r.error.issues));
   }, [draft]);
   const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
   const set = (p: string, v: unknown) => {
@@ -143,6 +146,14 @@ export function TrainEditor({ train, units, canWrite }: { train: TrainJson | nul
         {TRAIN_FIELDS.map((f) => (
           <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
         ))}
+        <PawlsField
+          key={`pawls-${units}`}
+          value={draft.pawls as number[] | null | undefined}
+          units={units}
+          onChange={(v) => set("pawls", v)}
+          error={shown("pawls") ?? Object.entries(serverErrors).concat(showAll || touched.has("pawls") ? Object.entries(errors) : []).find(([k]) => k.startsWith("pawls."))?.[1]}
+          disabled={disabled}
+        />
       </Section>
       {canWrite && (
         <div className="flex items-center gap-3">

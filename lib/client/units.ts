@@ -29,7 +29,9 @@ export type Quantity =
   | "count"
   | "rate"
   | "tempDelta"
-  | "perKelvin";
+  | "perKelvin"
+  | "frequency"
+  | "linearDamping";
 
 export interface DisplayUnit {
   /** Unit label shown beside a field. */
@@ -63,6 +65,9 @@ const SI: Record<Quantity, DisplayUnit> = {
   rate: { label: "mm/s", factor: 1000, digits: 2 },
   tempDelta: { label: "K", factor: 1, digits: 0 },
   perKelvin: { label: "1/K", factor: 1, digits: 7 },
+  frequency: { label: "Hz", factor: 1, digits: 2 },
+  /** Force per unit speed (a dashpot), N·s/m. */
+  linearDamping: { label: "N·s/m", factor: 1, digits: 0 },
 };
 
 const US: Record<Quantity, DisplayUnit> = {
@@ -82,6 +87,7 @@ const US: Record<Quantity, DisplayUnit> = {
   rate: { label: "in/s", factor: 1 / INCH, digits: 3 },
   tempDelta: { label: "°F", factor: 1.8, digits: 0 },
   perKelvin: { label: "1/°F", factor: 1 / 1.8, digits: 7 },
+  linearDamping: { label: "lbf·s/in", factor: INCH / LBF, digits: 1 },
 };
 
 export function unitOf(q: Quantity, system: UnitSystem): DisplayUnit {

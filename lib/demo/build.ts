@@ -49,6 +49,7 @@ export function demoTrainData(key: string): TrainData {
     dogOffset: t.dogOffset,
     rollingResistance: t.rollingResistance,
     dragArea: t.dragArea,
+    pawls: t.pawls ?? null,
   });
   if (!parsed.success) fail(`train ${key}`, zodIssues(parsed.error));
   return parsed.data;
@@ -65,12 +66,14 @@ export function demoScenarioFields(s: DemoScenario) {
     riderCount: s.loading === "riders" ? (s.riderCount ?? 0) : null,
     entrySpeed: s.entrySpeed,
     startPosition: s.startPosition,
+    startTime: s.startTime ?? 0,
     runSettings: run.data as unknown as Record<string, unknown>,
+    dynamics: s.dynamics ?? null,
   };
 }
 
 /**
- * The `tautline-scenario/1` object of a demo scenario with only the values park.ts gives (the engine's
+ * The `tautline-scenario/2` object of a demo scenario with only the values park.ts gives (the engine's
  * defaults are left out, so the public files stay valid and unchanged when a default changes).
  */
 export function demoScenarioInput(s: DemoScenario): Record<string, unknown> {

@@ -1,4 +1,4 @@
-// Writes the demo scenarios as tautline-scenario/1 files into public/scenarios/ (served at /scenarios/<key>.json).
+// Writes the demo scenarios as tautline-scenario/2 files into public/scenarios/ (served at /scenarios/<key>.json).
 // Usage: npm run demo:export   (tests/unit/runs-demo-scenarios.test.ts fails when the files are out of date)
 import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";

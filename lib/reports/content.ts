@@ -159,7 +159,7 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
     title: report.title,
     units: report.units,
     organisation: org?.name ?? "",
-    scenario: { id: scenario.id, name: scenario.name, loading: scenario.loading, entrySpeed: inputs.train.entrySpeed, notes: scenario.notes },
+    scenario: { id: scenario.id, name: scenario.name, loading: scenario.loading, entrySpeed: inputs.trains[0]!.entrySpeed, notes: scenario.notes },
     lift: { name: lift.name, site: lift.site, revision: revision.number, revisionId: revision.id, changeSummary: revision.changeSummary },
     train: { name: train.name, cars: train.cars, carMassEmpty: train.carMassEmpty, seatsPerCar: train.seatsPerCar, riderMass: train.riderMass },
     inputs,

@@ -255,11 +255,11 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     ["Take-up", `mass ${fmtQ(s.takeUp.mass, "mass", u, 0)}, travel ${fmtQ(s.takeUp.travel, "length", u)}`],
     [
       "Train",
-      `${c.train.name}: ${s.train.cars} cars of ${fmtQ(s.train.carMass, "mass", u, 0)} each as run` +
+      `${c.train.name}: ${s.trains[0]!.cars} cars of ${fmtQ(s.trains[0]!.carMass, "mass", u, 0)} each as run` +
         (loading === "empty" ? "" : ` (empty ${fmtQ(c.train.carMassEmpty, "mass", u, 0)}, ${c.train.seatsPerCar} seats per car)`),
     ],
     ["Loading", LOADING_WORDS[loading] ?? loading],
-    ["Entry speed", fmtQ(s.train.entrySpeed, "speed", u)],
+    ["Entry speed", fmtQ(s.trains[0]!.entrySpeed, "speed", u)],
     ["Run settings", `${s.run.duration} s simulated, ${s.run.segments} chain segments, ${s.run.integrator} integrator`],
   ]);
 

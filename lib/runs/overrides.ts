@@ -9,21 +9,25 @@ export { RUN_OVERRIDE_KEYS, type RunOverrideKey, type RunOverrides };
 
 /** The scenario field behind each override, its label and the quantity it is shown as. */
 export const OVERRIDE_FIELDS: Record<RunOverrideKey, { path: string; label: string; quantity: "speed" | "mass" }> = {
-  entrySpeed: { path: "train.entrySpeed", label: "entry speed", quantity: "speed" },
+  entrySpeed: { path: "trains.0.entrySpeed", label: "entry speed", quantity: "speed" },
   chainSpeed: { path: "drive.speed", label: "chain speed", quantity: "speed" },
   takeUpMass: { path: "takeUp.mass", label: "take-up mass", quantity: "mass" },
 };
 
-/** The scenario's own values of the overridable fields (SI). */
+/** The scenario's own values of the overridable fields (SI); the entry speed is the first train's. */
 export function overridableValues(s: Scenario): Record<RunOverrideKey, number> {
-  return { entrySpeed: s.train.entrySpeed, chainSpeed: s.drive.speed, takeUpMass: s.takeUp.mass };
+  return { entrySpeed: s.trains[0]!.entrySpeed, chainSpeed: s.drive.speed, takeUpMass: s.takeUp.mass };
 }
 
-/** The scenario with the given overrides in place of its own values; keys left out keep the scenario's. */
+/**
+ * The scenario with the given overrides in place of its own values; keys left out keep the scenario's.
+ * An entry speed applies to every train of the scenario.
+ */
 export function applyOverrides(s: Scenario, o: RunOverrides): Scenario {
+  const entry = o.entrySpeed;
   return {
     ...s,
-    train: o.entrySpeed !== undefined ? { ...s.train, entrySpeed: o.entrySpeed } : s.train,
+    trains: entry !== undefined ? s.trains.map((t) => ({ ...t, entrySpeed: entry })) : s.trains,
     drive: o.chainSpeed !== undefined ? { ...s.drive, speed: o.chainSpeed } : s.drive,
     takeUp: o.takeUpMass !== undefined ? { ...s.takeUp, mass: o.takeUpMass } : s.takeUp,
   };

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { driveSchema, runSettingsSchema, takeUpSchema, trainSchema } from "@/sim/schema";
+import { driveSchema, runSettingsSchema, takeUpSchema, trainSchemaV1 } from "@/sim/schema";
 import { RUN_STATUSES } from "./status";
 
 const run = runSettingsSchema.shape;
@@ -14,7 +14,7 @@ export const RUN_OVERRIDE_KEYS = ["entrySpeed", "chainSpeed", "takeUpMass"] as c
 export const runOverridesSchema = z
   .object(
     {
-      entrySpeed: trainSchema.shape.entrySpeed.unwrap().optional(),
+      entrySpeed: trainSchemaV1.shape.entrySpeed.unwrap().optional(),
       chainSpeed: driveSchema.shape.speed.optional(),
       takeUpMass: takeUpSchema.shape.mass.optional(),
     },

@@ -1,10 +1,11 @@
 /**
- * Scenario rows → the engine's `tautline-scenario/1` object. Plain functions (no server imports), so a
+ * Scenario rows → the engine's `tautline-scenario/2` object. Plain functions (no server imports), so a
  * browser preview can build the same object the server runs.
  */
 import { SCENARIO_FORMAT, parseScenario, type FieldIssue, type Scenario as EngineScenario } from "@/sim/schema";
 import type { Loading } from "./loading";
 import { carMassFor, ridersFor } from "@/lib/trains/mass";
+import { dynamicsPathSet, withDynamics, type Dynamics } from "./dynamics";
 
 /** The scenario fields the engine needs (a model row or unsaved data). */
 export interface ScenarioLike {
@@ -14,7 +15,11 @@ export interface ScenarioLike {
   riderCount: number | null;
   entrySpeed: number;
   startPosition: number;
+  /** s, when the train appears at its start position. */
+  startTime?: number | null;
   runSettings: Record<string, unknown>;
+  /** The scenario's drive model and damping over the revision's sections (see dynamics.ts). */
+  dynamics?: Dynamics | null;
 }
 
 /** A lift revision as stored (model row: the `lift` section lives in `geometry`). */
@@ -36,29 +41,41 @@ export interface TrainLike {
   dogOffset: number;
   rollingResistance: number;
   dragArea: number;
+  /** m behind the front; null/absent = the format's default (one pawl at the dog). */
+  pawls?: number[] | null;
 }
 
-/** The raw `tautline-scenario/1` object, before validation. */
+/**
+ * The raw `tautline-scenario/2` object, before validation. A scenario row has one train (`trains[0]`);
+ * the format's list leaves room for more.
+ */
 export function engineScenarioInput(scenario: ScenarioLike, revision: RevisionLike, train: TrainLike): Record<string, unknown> {
   const riders = ridersFor(train, scenario.loading, scenario.riderCount);
+  const dyn = scenario.dynamics ?? null;
+  const contacts = withDynamics("contacts", undefined, dyn);
   return {
     format: SCENARIO_FORMAT,
     name: scenario.name,
     ...(scenario.notes ? { description: scenario.notes } : {}),
     lift: revision.geometry,
-    chain: revision.chain,
-    drive: revision.drive,
-    takeUp: revision.takeUp,
-    train: {
-      cars: train.cars,
-      carMass: carMassFor(train, riders),
-      carLength: train.carLength,
-      dogOffset: train.dogOffset,
-      rollingResistance: train.rollingResistance,
-      dragArea: train.dragArea,
-      entrySpeed: scenario.entrySpeed,
-      startPosition: scenario.startPosition,
-    },
+    chain: withDynamics("chain", revision.chain, dyn),
+    drive: withDynamics("drive", revision.drive, dyn),
+    takeUp: withDynamics("takeUp", revision.takeUp, dyn),
+    ...(contacts ? { contacts } : {}),
+    trains: [
+      {
+        cars: train.cars,
+        carMass: carMassFor(train, riders),
+        carLength: train.carLength,
+        dogOffset: train.dogOffset,
+        rollingResistance: train.rollingResistance,
+        dragArea: train.dragArea,
+        entrySpeed: scenario.entrySpeed,
+        startPosition: scenario.startPosition,
+        ...(scenario.startTime ? { startTime: scenario.startTime } : {}),
+        ...(train.pawls && train.pawls.length ? { pawls: train.pawls } : {}),
+      },
+    ],
     antiRollback: revision.antiRollback,
     run: scenario.runSettings,
     limits: revision.limits ?? {},
@@ -73,16 +90,21 @@ export function resolveEngineScenario(scenario: ScenarioLike, revision: Revision
 }
 
 /**
- * Where an engine problem belongs in the scenario's own fields: the entry conditions and run settings
- * map one to one; a train or lift problem points at the train or the pinned revision.
+ * Where an engine problem belongs in the scenario's own fields: the entry conditions, run settings and
+ * the scenario's dynamics map one to one; a train or lift problem points at the train or the pinned revision.
  */
-export function toScenarioIssue(issue: FieldIssue): FieldIssue {
+export function toScenarioIssue(issue: FieldIssue, dynamics?: Dynamics | null): FieldIssue {
   const p = issue.path;
-  if (p === "train.entrySpeed") return { path: "entrySpeed", message: issue.message };
-  if (p === "train.startPosition") return { path: "startPosition", message: issue.message };
-  if (p === "train.carMass") return { path: "loading", message: `with this loading: ${issue.message}` };
+  // The scenario's one train is trains[0]; its fields are the scenario's entry conditions or the train row.
+  const t = p.replace(/^trains\.0(?=\.|$)/, "train");
+  if (t === "train.entrySpeed") return { path: "entrySpeed", message: issue.message };
+  if (t === "train.startPosition") return { path: "startPosition", message: issue.message };
+  if (t === "train.startTime") return { path: "startTime", message: issue.message };
+  if (t === "train.carMass") return { path: "loading", message: `with this loading: ${issue.message}` };
+  if (t === "train.pawls" || t.startsWith("train.pawls.")) return { path: "trainId", message: `the train's pawls do not fit: ${issue.message}` };
   if (p === "run" || p.startsWith("run.")) return { path: p.replace(/^run/, "runSettings"), message: issue.message };
   if (p === "name" || p === "description") return { path: p === "name" ? "name" : "notes", message: issue.message };
-  if (p.startsWith("train.")) return { path: "trainId", message: `the train does not fit: ${issue.message}` };
+  if (p === "contacts" || p.startsWith("contacts.") || dynamicsPathSet(p, dynamics)) return { path: `dynamics.${p}`, message: issue.message };
+  if (t.startsWith("train.") || p === "trains") return { path: "trainId", message: `the train does not fit: ${issue.message}` };
   return { path: "liftRevisionId", message: `the lift revision does not fit: ${issue.message}` };
 }

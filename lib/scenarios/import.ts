@@ -1,4 +1,4 @@
-import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
+import type { Scenario as EngineScenario } from "@/sim/schema";
 import { getSequelize } from "@/lib/db/sequelize";
 import { getModels } from "@/models";
 import { badRequest, zodIssues } from "@/lib/http/errors";
@@ -11,6 +11,7 @@ import { trainView, type TrainView } from "@/lib/trains/service";
 import { DEFAULT_RIDER_MASS } from "@/lib/trains/schema";
 import { createScenarioIn, type ScenarioView } from "./service";
 import { scenarioInputSchema } from "./schema";
+import { readScenarioFile } from "./format";
 
 export interface ImportResult {
   scenario: ScenarioView;
@@ -25,15 +26,23 @@ const IMPORTED_TRAIN_NOTE =
 const clip = clipText;
 
 /**
- * Imports a `tautline-scenario/1` file: validates it completely (400 with every problem at once,
- * nothing stored), then creates a lift with revision 1, a train and the scenario in one transaction.
+ * Imports a `tautline-scenario/2` file (a version 1 file is converted on read and keeps its ideal
+ * drive): validates it completely (400 with every problem at once, nothing stored), then creates a lift
+ * with revision 1, a train and the scenario in one transaction. The drive model and the chain's and
+ * take-up's damping go into the revision (they are the lift's); the contacts into the scenario.
  * Exporting the new scenario gives back the file's values (with the format's defaults filled in).
  */
 export async function importScenario(actor: Actor, file: unknown): Promise<ImportResult> {
   assertCan(actor, "design:write");
-  const parsed = parseScenario(file);
+  const parsed = readScenarioFile(file);
   if (!parsed.ok) throw badRequest("The scenario file has problems; nothing was imported.", parsed.issues);
   const s: EngineScenario = parsed.scenario;
+  // A scenario row holds one train; a file with several is refused rather than cut short.
+  if (s.trains.length !== 1)
+    throw badRequest("The scenario file has problems; nothing was imported.", [
+      { path: "trains", message: `trains has ${s.trains.length} trains; Tautline stores one train per scenario (import each train as its own scenario)` },
+    ]);
+  const train0 = s.trains[0]!;
 
   const revisionParsed = liftRevisionSchema.safeParse({
     name: clip(s.name, 120),
@@ -61,20 +70,21 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
 
   const { Train } = getModels();
   return getSequelize().transaction(async (transaction) => {
-    const lift = await createLiftIn(actor, revision, "Imported from a tautline-scenario/1 file", "import", transaction);
+    const lift = await createLiftIn(actor, revision, `Imported from a ${parsed.format} file`, "import", transaction);
     const trainRow = await Train.create(
       {
         organisationId: actor.organisationId,
         name: clip(`${s.name} – train`, 120),
         notes: IMPORTED_TRAIN_NOTE,
-        cars: s.train.cars,
-        carMassEmpty: s.train.carMass,
+        cars: train0.cars,
+        carMassEmpty: train0.carMass,
         seatsPerCar: 0,
         riderMass: DEFAULT_RIDER_MASS,
-        carLength: s.train.carLength,
-        dogOffset: s.train.dogOffset,
-        rollingResistance: s.train.rollingResistance,
-        dragArea: s.train.dragArea,
+        carLength: train0.carLength,
+        dogOffset: train0.dogOffset,
+        rollingResistance: train0.rollingResistance,
+        dragArea: train0.dragArea,
+        pawls: train0.pawls ?? null,
         archivedAt: null,
         createdBy: actor.id,
       },
@@ -97,9 +107,11 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
           trainId: trainRow.id,
           loading: "empty",
           riderCount: null,
-          entrySpeed: s.train.entrySpeed,
-          startPosition: s.train.startPosition,
+          entrySpeed: train0.entrySpeed,
+          startPosition: train0.startPosition,
+          startTime: train0.startTime,
           runSettings: s.run,
+          dynamics: { contacts: s.contacts },
         },
         lift: liftRow,
         revision: revRow,

@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { runSettingsSchema, trainSchema } from "@/sim/schema";
+import { runSettingsSchema, trainSchema, trainSchemaV1 } from "@/sim/schema";
+import { dynamicsSchema } from "./dynamics";
 import { LOADINGS } from "./loading";
 import { nameField, optionalText } from "@/lib/http/text";
 import { versionField } from "@/lib/http/version";
@@ -29,9 +30,13 @@ export const scenarioInputSchema = z
       .min(0, { error: "riderCount must be at least 0" })
       .max(2000, { error: "riderCount must be at most 2000" })
       .nullish(),
-    entrySpeed: trainSchema.shape.entrySpeed,
-    startPosition: trainSchema.shape.startPosition,
+    entrySpeed: trainSchemaV1.shape.entrySpeed,
+    startPosition: trainSchemaV1.shape.startPosition,
+    /** s, when the train appears at its start position (format 2 `trains[0].startTime`). */
+    startTime: trainSchema.shape.startTime,
     runSettings: runSettingsSchema,
+    /** The scenario's drive model and damping over the pinned revision (lib/scenarios/dynamics.ts). */
+    dynamics: dynamicsSchema,
   })
   .strict()
   .superRefine((s, ctx) => {
@@ -41,7 +46,12 @@ export const scenarioInputSchema = z
       ctx.addIssue({ code: "custom", path: ["riderCount"], message: 'riderCount is only used with loading "riders"' });
   });
 export type ScenarioInput = z.input<typeof scenarioInputSchema>;
+
+/** A scenario's one train is trains[0]: the engine's message for any train ("trains.*.startTime …") says so. */
+export function scenarioIssueMessage(message: string): string {
+  return message.replace(/trains\.\*\./g, "trains.0.");
+}
 export type ScenarioData = z.output<typeof scenarioInputSchema>;
 
-/** PATCH body: the version edited plus any fields; `runSettings` merges field by field. */
+/** PATCH body: the version edited plus any fields; `runSettings` and `dynamics` merge field by field. */
 export const scenarioUpdateSchema = z.object({ version: versionField }).loose();

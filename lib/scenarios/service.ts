@@ -17,7 +17,8 @@ import { clipText } from "@/lib/http/text";
 import { recordAudit } from "@/lib/audit/record";
 import { carMassFor, ridersFor } from "@/lib/trains/mass";
 import { resolveEngineScenario, toEngineScenario, toScenarioIssue } from "./resolve";
-import { scenarioInputSchema, scenarioUpdateSchema, type ScenarioData } from "./schema";
+import { scenarioInputSchema, scenarioIssueMessage, scenarioUpdateSchema, type ScenarioData } from "./schema";
+import { compactDynamics, mergeDynamics, type Dynamics } from "./dynamics";
 
 export interface ScenarioView {
   id: number;
@@ -39,7 +40,11 @@ export interface ScenarioView {
   carMass: number | null;
   entrySpeed: number;
   startPosition: number;
+  /** s, when the train appears at its start position. */
+  startTime: number;
   runSettings: Record<string, unknown>;
+  /** The scenario's drive model and damping over the pinned revision; null = the revision's values and defaults. */
+  dynamics: Dynamics | null;
   version: number;
   archivedAt: Date | null;
   frozenAt: Date | null;
@@ -72,7 +77,9 @@ export function scenarioView(s: Scenario, parts: { lift?: Lift | null; revision?
     carMass: train && riders !== null ? carMassFor(train, riders) : null,
     entrySpeed: s.entrySpeed,
     startPosition: s.startPosition,
+    startTime: s.startTime ?? 0,
     runSettings: s.runSettings,
+    dynamics: compactDynamics(s.dynamics),
     version: s.version,
     archivedAt: s.archivedAt,
     frozenAt: s.frozenAt,
@@ -167,7 +174,7 @@ async function resolveInput(
   transaction?: Transaction,
 ): Promise<Resolved> {
   const parsed = scenarioInputSchema.safeParse(raw);
-  if (!parsed.success) throwIfIssues(zodIssues(parsed.error));
+  if (!parsed.success) throwIfIssues(zodIssues(parsed.error).map((i) => ({ ...i, message: scenarioIssueMessage(i.message) })));
   const data = parsed.data!;
   const { Lift, LiftRevision, Train } = getModels();
   const issues: FieldIssue[] = [];
@@ -195,9 +202,10 @@ async function resolveInput(
       issues.push({ path: "riderCount", message: `riderCount must be at most the train's ${seats} seats` });
   }
 
+  const dynamics = compactDynamics(data.dynamics);
   if (revision && trainOk && issues.length === 0) {
-    const r = resolveEngineScenario({ ...data, riderCount: data.riderCount ?? null }, revision, train);
-    if (!r.ok) issues.push(...r.issues.map(toScenarioIssue));
+    const r = resolveEngineScenario({ ...data, riderCount: data.riderCount ?? null, dynamics }, revision, train);
+    if (!r.ok) issues.push(...r.issues.map((i) => toScenarioIssue(i, dynamics)));
   }
   throwIfIssues(issues);
   return { data: { ...data, liftRevisionId: revision!.id }, lift: lift!, revision: revision!, train: train! };
@@ -214,7 +222,9 @@ function rowFields(d: Resolved["data"]) {
     riderCount: d.loading === "riders" ? (d.riderCount ?? 0) : null,
     entrySpeed: d.entrySpeed,
     startPosition: d.startPosition,
+    startTime: d.startTime ?? 0,
     runSettings: d.runSettings as Record<string, unknown>,
+    dynamics: compactDynamics(d.dynamics),
   };
 }
 
@@ -271,6 +281,7 @@ export async function updateScenario(actor: Actor, id: number, input: unknown): 
       loading: row.loading,
       entrySpeed: row.entrySpeed,
       startPosition: row.startPosition,
+      startTime: row.startTime ?? 0,
     };
     // Changing the lift without naming a revision pins the new lift's current one.
     if (!("liftId" in changes) || changes.liftId === row.liftId) current.liftRevisionId = row.liftRevisionId;
@@ -280,7 +291,9 @@ export async function updateScenario(actor: Actor, id: number, input: unknown): 
       changes.runSettings && typeof changes.runSettings === "object" && !Array.isArray(changes.runSettings)
         ? { ...row.runSettings, ...(changes.runSettings as Record<string, unknown>) }
         : (changes.runSettings ?? row.runSettings);
-    const merged: Record<string, unknown> = { ...current, ...changes, runSettings };
+    // Dynamics merge section by section, field by field; a null field goes back to the revision's value.
+    const dynamics = "dynamics" in changes ? mergeDynamics(row.dynamics, changes.dynamics) : compactDynamics(row.dynamics);
+    const merged: Record<string, unknown> = { ...current, ...changes, runSettings, dynamics };
     const resolved = await resolveInput(actor, merged, { liftId: row.liftId, trainId: row.trainId }, transaction);
     assertVersion(row.version, version, "scenario");
     const parts = await loadScenarioParts(actor, id, transaction);
@@ -314,7 +327,9 @@ export async function copyScenario(actor: Actor, id: number, input: unknown = {}
     ...(scenario.loading === "riders" ? { riderCount: scenario.riderCount } : {}),
     entrySpeed: scenario.entrySpeed,
     startPosition: scenario.startPosition,
+    startTime: scenario.startTime ?? 0,
     runSettings: scenario.runSettings,
+    dynamics: compactDynamics(scenario.dynamics),
   };
   const resolved = await resolveInput(actor, raw, { liftId: scenario.liftId, trainId: scenario.trainId });
   return getSequelize().transaction((transaction) => createScenarioIn(actor, resolved, "create", transaction));
@@ -356,7 +371,7 @@ export function exportFileName(name: string): string {
   return `${slug || "scenario"}.tautline.json`;
 }
 
-/** The scenario as a `tautline-scenario/1` file (the engine's format, SI units). */
+/** The scenario as a `tautline-scenario/2` file (the engine's format, SI units). */
 export async function exportScenario(actor: Actor, id: number) {
   assertCan(actor, "design:read");
   const { scenario, revision, train } = await loadScenarioParts(actor, id);

@@ -35,12 +35,13 @@ export function caseScenario(
 ): { ok: true; scenario: EngineScenario } | { ok: false; issues: FieldIssue[] } {
   const s = structuredClone(base) as EngineScenario;
   for (const [key, v] of Object.entries(values)) {
-    if (key === "entrySpeed") s.train.entrySpeed = Number(v);
+    // Entry speed and loading apply to every train of the scenario.
+    if (key === "entrySpeed") for (const t of s.trains) t.entrySpeed = Number(v);
     else if (key === "chainSpeed") s.drive.speed = Number(v);
     else if (key === "takeUpMass") s.takeUp.mass = Number(v);
     else if (key === "loading") {
       const t = ctx.train;
-      s.train.carMass = t.carMassEmpty + t.seatsPerCar * t.riderMass * LOADING_FRACTION[v as StudyLoading];
+      for (const tr of s.trains) tr.carMass = t.carMassEmpty + t.seatsPerCar * t.riderMass * LOADING_FRACTION[v as StudyLoading];
     } else if (key === "chainSpec") {
       const c = ctx.chains.get(Number(v));
       if (!c) return { ok: false, issues: [{ path: "chainSpec", message: `chain ${v} is not in the catalogue` } as FieldIssue] };

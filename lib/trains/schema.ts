@@ -1,6 +1,7 @@
 import { z } from "zod";
-import { trainSchema } from "@/sim/schema";
+import { trainSchema, trainSchemaV1 } from "@/sim/schema";
 import { nameField, optionalText } from "@/lib/http/text";
+import { withoutDefault } from "@/lib/scenarios/dynamics";
 
 /** Mass of one rider when none is given: 75 kg, an assumption the user can change (no source). */
 export const DEFAULT_RIDER_MASS = 75;
@@ -16,15 +17,31 @@ const bounded = (field: string, unit: string, min: number, max: number, int = fa
 const fields = {
   name: nameField("name"),
   notes: optionalText("notes", 5000),
-  cars: trainSchema.shape.cars,
+  cars: trainSchemaV1.shape.cars,
   carMassEmpty: bounded("carMassEmpty", "kg", 10, 50_000),
   seatsPerCar: bounded("seatsPerCar", "seats", 0, 40, true),
   riderMass: bounded("riderMass", "kg", 20, 250).default(DEFAULT_RIDER_MASS),
-  carLength: trainSchema.shape.carLength,
-  dogOffset: trainSchema.shape.dogOffset,
-  rollingResistance: trainSchema.shape.rollingResistance,
-  dragArea: trainSchema.shape.dragArea,
+  carLength: trainSchemaV1.shape.carLength,
+  dogOffset: trainSchemaV1.shape.dogOffset,
+  rollingResistance: trainSchemaV1.shape.rollingResistance,
+  dragArea: trainSchemaV1.shape.dragArea,
+  /** m behind the front, the train's ARD pawls (the engine's rule); null/absent = one pawl at the dog. */
+  pawls: (withoutDefault(trainSchema.shape.pawls) as z.ZodType<number[]>).nullish(),
 };
+
+/**
+ * The engine writes one message for every train of a list ("trains.*.pawls.* must be at least 0 (m)").
+ * A train row is not in a list: drop the "trains.*." and put the issue's own indexes in for the rest.
+ */
+export function trainIssueMessage(message: string, path: readonly PropertyKey[]): string {
+  const idx = path.filter((p) => typeof p === "number").map(String);
+  return message.replace(/^trains\.\*\./, "").replace(/\.\*/g, () => `.${idx.shift() ?? "*"}`);
+}
+
+/** Issues of `trainInputSchema` with their messages made for a train row (see trainIssueMessage). */
+export function trainIssues(issues: ReadonlyArray<{ path: readonly PropertyKey[]; message: string }>) {
+  return issues.map((i) => ({ path: i.path, message: trainIssueMessage(i.message, i.path) }));
+}
 
 /** A train as the API takes it (SI units). Loaded car mass = carMassEmpty + seatsPerCar × riderMass. */
 export const trainInputSchema = z
@@ -37,6 +54,11 @@ export const trainInputSchema = z
         path: ["dogOffset"],
         message: "dogOffset must not exceed the train length (cars × carLength)",
       });
+    const length = t.cars * t.carLength;
+    (t.pawls ?? []).forEach((p, i) => {
+      if (p > length)
+        ctx.addIssue({ code: "custom", path: ["pawls", i], message: `pawls.${i} must lie on the train (at most cars × carLength = ${length.toFixed(2)} m behind the front)` });
+    });
     if (t.carMassEmpty + t.seatsPerCar * t.riderMass > 50_000)
       ctx.addIssue({
         code: "custom",

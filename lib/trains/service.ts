@@ -8,9 +8,17 @@ import { assertVersion, versionField } from "@/lib/http/concurrency";
 import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/http/list-query";
 import { validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
-import { trainInputSchema, type TrainData } from "./schema";
+import { trainInputSchema, trainIssues, type TrainData } from "./schema";
+import { badRequest } from "@/lib/http/errors";
 import { loadedCarMass } from "./mass";
 import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/http/outcome";
+
+/** Validates a train with the shared schema; 400 with every problem, messages made for a train row. */
+function validateTrain(input: unknown): TrainData {
+  const r = trainInputSchema.safeParse(input);
+  if (r.success) return r.data;
+  throw badRequest("The request has invalid fields.", trainIssues(r.error.issues).map((i) => ({ path: i.path.map(String).join("."), message: i.message })));
+}
 
 export interface TrainView extends TrainData {
   id: number;
@@ -34,6 +42,7 @@ function trainData(t: Train): TrainData {
     dogOffset: t.dogOffset,
     rollingResistance: t.rollingResistance,
     dragArea: t.dragArea,
+    pawls: t.pawls ?? null,
   };
 }
 
@@ -81,7 +90,7 @@ export async function getTrain(actor: Actor, id: number): Promise<TrainView> {
 
 export async function createTrain(actor: Actor, input: unknown): Promise<TrainView> {
   assertCan(actor, "design:write");
-  const data = validate(trainInputSchema, input);
+  const data = validateTrain(input);
   const { Train } = getModels();
   return getSequelize().transaction(async (transaction) => {
     const row = await Train.create(
@@ -110,7 +119,7 @@ export async function updateTrain(actor: Actor, id: number, input: unknown): Pro
     }
     const { version, ...changes } = validate(trainUpdateSchema, input);
     assertNotArchived(row, "train");
-    const data = validate(trainInputSchema, { ...trainData(row), ...changes });
+    const data = validateTrain({ ...trainData(row), ...changes });
     assertVersion(row.version, version, "train");
     const before = trainView(row);
     await keepTrainForApprovedScenarios(actor, row, transaction);

@@ -97,7 +97,7 @@ describe("what-if overrides", () => {
     expect(view.overridesFrom).toEqual({ entrySpeed: 2.2, chainSpeed: 2.5 });
     expect((await finished(view.id)).status).toBe("done");
     const inputs = (await getRun(engineer, view.id)).inputs as Record<string, Record<string, unknown>>;
-    expect(inputs.train!.entrySpeed).toBe(1.2);
+    expect((inputs.trains as unknown as { entrySpeed: number }[])[0]!.entrySpeed).toBe(1.2);
     expect(inputs.drive!.speed).toBe(3);
   });
 

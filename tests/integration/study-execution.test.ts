@@ -124,7 +124,7 @@ describe("a 22-case study through both execution modes", () => {
     // The full train's cars weigh 1000 + 4 × 75 kg (Source: the test's own train, set in study-fixtures.ts).
     const full = expected.find((e) => e.values.loading === "full")!;
     const built = caseScenario(st.base, full.values, { chains: new Map(), train: st.train });
-    expect(built.ok && built.scenario.train.carMass).toBe(1300);
+    expect(built.ok && built.scenario.trains[0]!.carMass).toBe(1300);
     // Each group names its loading and, where there is one, its interval in m/s.
     for (const g of known.groups) {
       for (const [lo, hi] of g.intervals) expect(view.window!.text).toContain(lo === hi ? `${lo.toFixed(2)} m/s` : `${lo.toFixed(2)}–${hi.toFixed(2)} m/s`);

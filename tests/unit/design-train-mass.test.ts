@@ -31,8 +31,8 @@ describe("train loading", () => {
     const r = parseScenario(raw);
     expect(r.ok).toBe(true);
     if (r.ok) {
-      expect(r.scenario.train.carMass).toBe(1300);
-      expect(r.scenario.train.startPosition).toBe(14);
+      expect(r.scenario.trains[0]!.carMass).toBe(1300);
+      expect(r.scenario.trains[0]!.startPosition).toBe(14);
       expect(r.scenario.limits.requiredSafetyFactor).toBe(5);
     }
   });

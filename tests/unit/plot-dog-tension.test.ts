@@ -9,7 +9,7 @@ describe("chain tension at the dog in the plots and the CSV", () => {
   const s = parsed.scenario;
   const r = simulate(s, { frameBudget: 150 });
   const chain = chainSpeedSeries(r.series.t, s.drive.speed, s.drive.rampTime);
-  const dog = dogTensionAt(r.layout, { dogOffset: s.train.dogOffset, dogRelease: s.lift.dogRelease }, r.frames, r.series.t);
+  const dog = dogTensionAt(r.layout, { dogOffset: s.trains[0]!.dogOffset, dogRelease: s.lift.dogRelease }, r.frames, r.series.t);
   const tension = PANELS.find((p) => p.id === "tension")!;
 
   it("is a line of the tension panel, in the user's force unit, with gaps off the chain", () => {

@@ -79,12 +79,12 @@ describe("case scenarios", () => {
     const r = caseScenario(base.scenario, { entrySpeed: 3, chainSpeed: 2, takeUpMass: 6000, chainSpec: 9, loading: "part" }, { chains, train: { carMassEmpty: 1000, seatsPerCar: 4, riderMass: 75 } });
     expect(r.ok).toBe(true);
     if (!r.ok) return;
-    expect(r.scenario.train.entrySpeed).toBe(3);
+    expect(r.scenario.trains[0]!.entrySpeed).toBe(3);
     expect(r.scenario.drive.speed).toBe(2);
     expect(r.scenario.takeUp.mass).toBe(6000);
     expect(r.scenario.chain.pitch).toBe(0.0381);
     // Part-loaded = half the seats (the study's own assumption): 1000 + 2 × 75.
-    expect(r.scenario.train.carMass).toBe(1150);
-    expect(base.scenario.train.entrySpeed).toBe(2.2); // the base is not changed
+    expect(r.scenario.trains[0]!.carMass).toBe(1150);
+    expect(base.scenario.trains[0]!.entrySpeed).toBe(2.2); // the base is not changed
   });
 });

@@ -92,7 +92,7 @@ export default async function ScenarioPage({
           <details className="rounded-lg border border-steel-300/70 bg-white" data-testid="edit-scenario">
             <summary className="cursor-pointer px-4 py-2.5 text-[13px] font-semibold text-ink-900">Edit the scenario</summary>
             <div className="border-t border-steel-100 p-4">
-              <ScenarioEditor scenario={view} units={user.units} canWrite={canWrite} />
+              <ScenarioEditor scenario={view} units={user.units} canWrite={canWrite} engine={engine} />
             </div>
           </details>
         )}

@@ -7,7 +7,7 @@ import { importScenario } from "@/lib/scenarios/import";
 export const runtime = "nodejs";
 
 /**
- * Imports a `tautline-scenario/1` file (the body): 400 lists every problem at once; otherwise a lift
+ * Imports a `tautline-scenario/2` file, or a version 1 file converted on read (the body): 400 lists every problem at once; otherwise a lift
  * (revision 1), a train and the scenario are created together.
  */
 export const POST = route(async (req) => {

@@ -7,7 +7,7 @@ import { exportScenario } from "@/lib/scenarios/service";
 
 export const runtime = "nodejs";
 
-/** The scenario as a `tautline-scenario/1` file (SI units), offered as a download. */
+/** The scenario as a `tautline-scenario/2` file (SI units), offered as a download. */
 export const GET = route(async (_req, ctx: RouteContext) => {
   const actor = await requirePermission("design:read");
   const { fileName, scenario } = await exportScenario(actor, parseId((await ctx.params).id, "Scenario not found."));
