@@ -63,7 +63,7 @@ export function dispatchCalibration(cal: { id: number; inputs: Record<string, un
   const inputs = (typeof cal.inputs === "string" ? JSON.parse(cal.inputs) : cal.inputs) as CalibrationInputs;
   const done = (async () => {
     try {
-      const outcome = await getJobPool().calibrate({ kind: "calibration", calibrationId: cal.id, ...inputs }, { signal: controller.signal, onMessage });
+      const outcome = await getJobPool().calibrate({ kind: "calibration", calibrationId: cal.id, ...inputs }, { organisationId: slot.organisationId, signal: controller.signal, onMessage });
       await tracking.written();
       await persistFinal(() => storeOutcome(cal.id, outcome));
     } catch (err) {

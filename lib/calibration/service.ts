@@ -86,9 +86,9 @@ async function recordedTrace(r: Recording): Promise<RecordedTrace> {
   return { t, takeUp, engagementTime: r.engagementTime - t0 };
 }
 
-function reserveSlot(): Slot {
+function reserveSlot(organisationId: number): Slot {
   try {
-    return getJobPool().reserve();
+    return getJobPool().reserve(organisationId);
   } catch (err) {
     if (err instanceof QueueFullError) throw unavailable("Every engine worker is busy and the queue is full; try the fit again shortly.", err.retryAfterSeconds);
     throw err;
@@ -114,7 +114,7 @@ export async function startCalibration(actor: Actor, recordingId: number, input:
   const trace = await recordedTrace(r);
   const fitFriction = body.fitFriction ?? false;
   const inputs: CalibrationInputs = { scenario: resolved.scenario as EngineScenario, trace, options: { fitFriction } };
-  const slot = reserveSlot();
+  const slot = reserveSlot(actor.organisationId);
   let row: Calibration;
   try {
     row = await Calibration.create({

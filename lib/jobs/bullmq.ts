@@ -45,34 +45,63 @@ export function redisConnection(url = redisUrl()): Redis {
   return new IORedis(url, { maxRetriesPerRequest: null });
 }
 
-const state = globalThis as unknown as { tautlineRunQueue?: { url: string; queue: Queue } };
+const state = globalThis as unknown as { tautlineRunQueue?: { url: string; queue: Queue; redis: Redis } };
 
-export function getRunQueue(): Queue {
+function queueState() {
   const url = redisUrl();
   if (state.tautlineRunQueue?.url !== url) {
-    state.tautlineRunQueue = { url, queue: new Queue(QUEUE_NAME, { connection: redisConnection(url) }) };
+    state.tautlineRunQueue = { url, queue: new Queue(QUEUE_NAME, { connection: redisConnection(url) }), redis: redisConnection(url) };
   }
-  return state.tautlineRunQueue.queue;
+  return state.tautlineRunQueue;
+}
+
+export function getRunQueue(): Queue {
+  return queueState().queue;
 }
 
 export async function closeRunQueue(): Promise<void> {
   const q = state.tautlineRunQueue;
   state.tautlineRunQueue = undefined;
-  if (q) await q.queue.close();
+  if (q) {
+    await q.queue.close();
+    q.redis.disconnect();
+  }
+}
+
+const orgQueuedKey = (organisationId: number) => `tautline:org-queued:${organisationId}`;
+// BullMQ's largest priority.
+const MAX_PRIORITY = 2_097_152;
+
+/**
+ * Fair share in Redis: a job's priority is how many jobs its organisation has waiting, itself included
+ * (lower goes first, ties in order of arrival). An organisation's n-th waiting job therefore goes after
+ * every other organisation's first n: a 400-case study queued ahead does not hold back a single run.
+ */
+async function fairPriority(organisationId: number): Promise<number> {
+  return Math.min(await queueState().redis.incr(orgQueuedKey(organisationId)), MAX_PRIORITY);
 }
 
 export async function enqueueRun(data: RunJobData): Promise<void> {
-  await getRunQueue().add("run", data, { jobId: `run-${data.runId}`, removeOnComplete: true, removeOnFail: 1000 });
+  const priority = await fairPriority(data.organisationId);
+  await getRunQueue().add("run", data, { jobId: `run-${data.runId}`, priority, removeOnComplete: true, removeOnFail: 1000 });
 }
 
 export async function enqueueCalibration(data: CalibrationJobData): Promise<void> {
-  await getRunQueue().add("calibration", data, { jobId: `calibration-${data.calibrationId}`, removeOnComplete: true, removeOnFail: 1000 });
+  const priority = await fairPriority(data.organisationId);
+  await getRunQueue().add("calibration", data, { jobId: `calibration-${data.calibrationId}`, priority, removeOnComplete: true, removeOnFail: 1000 });
 }
 
+const DECREMENT_FLOORED = `
+if redis.call('DECR', KEYS[1]) < 0 then redis.call('SET', KEYS[1], 0) end
+return 1`;
+
 /** Removes a waiting job (a cancelled run); a job already taken notices the cancel itself. */
-export async function removeQueuedRun(runId: number): Promise<void> {
+export async function removeQueuedRun(runId: number, organisationId?: number): Promise<void> {
   try {
-    await getRunQueue().remove(`run-${runId}`);
+    const removed = await getRunQueue().remove(`run-${runId}`);
+    if (removed && organisationId !== undefined) {
+      await queueState().redis.eval(DECREMENT_FLOORED, 1, orgQueuedKey(organisationId));
+    }
   } catch {
     // Locked by a worker that is running it: that worker sees the cancelled row and stops.
   }
@@ -80,6 +109,7 @@ export async function removeQueuedRun(runId: number): Promise<void> {
 
 // Atomic "take a place for this organisation": drop entries older than the stale age, then add the job
 // if there is room. Entries are refreshed while the job runs, so a crashed worker's place expires.
+// A job taken for the first time no longer waits: its organisation's waiting count (KEYS[2]) goes down.
 const ACQUIRE = `
 redis.call('ZREMRANGEBYSCORE', KEYS[1], '-inf', tonumber(ARGV[1]) - tonumber(ARGV[3]))
 if redis.call('ZSCORE', KEYS[1], ARGV[2]) then
@@ -88,6 +118,7 @@ if redis.call('ZSCORE', KEYS[1], ARGV[2]) then
 end
 if redis.call('ZCARD', KEYS[1]) < tonumber(ARGV[4]) then
   redis.call('ZADD', KEYS[1], ARGV[1], ARGV[2])
+  if redis.call('DECR', KEYS[2]) < 0 then redis.call('SET', KEYS[2], 0) end
   return 1
 end
 return 0`;
@@ -121,7 +152,7 @@ export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
     const data = job.data;
     const calibration = job.name === "calibration" ? (data as CalibrationJobData) : null;
     const member = calibration ? `calibration-${calibration.calibrationId}` : `run-${(data as RunJobData).runId}`;
-    const got = await redis.eval(ACQUIRE, 1, orgKey(data.organisationId), Date.now(), member, STALE_MS, limit);
+    const got = await redis.eval(ACQUIRE, 2, orgKey(data.organisationId), orgQueuedKey(data.organisationId), Date.now(), member, STALE_MS, limit);
     if (got !== 1) {
       // The organisation already runs its share: try again shortly, letting other organisations' jobs by.
       await job.moveToDelayed(Date.now() + RETRY_DELAY_MS, token);
@@ -152,10 +183,10 @@ export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
 }
 
 /** A place in this worker's own pool, waiting for one when every local thread is busy. */
-async function localSlot() {
+async function localSlot(organisationId: number) {
   for (;;) {
     try {
-      return getJobPool().reserve();
+      return getJobPool().reserve(organisationId);
     } catch (err) {
       if (!(err instanceof QueueFullError)) throw err;
       await new Promise((r) => setTimeout(r, RETRY_DELAY_MS));
@@ -177,7 +208,7 @@ async function calibrateOne(data: CalibrationJobData): Promise<void> {
   if (!taken) return;
   const cal = await Calibration.scope("withInputs").findByPk(data.calibrationId);
   if (!cal) return;
-  await dispatchCalibration(cal, await localSlot());
+  await dispatchCalibration(cal, await localSlot(data.organisationId));
 }
 
 /** Takes the run (if it still waits), runs it in the local pool, and stops it when its row is cancelled. */
@@ -195,7 +226,7 @@ async function runOne(data: RunJobData): Promise<void> {
   if (!taken) return;
   const run = await Run.findByPk(data.runId);
   if (!run) return;
-  const done = dispatchRun(run, data.solver, await localSlot());
+  const done = dispatchRun(run, data.solver, await localSlot(data.organisationId));
   const poll = setInterval(() => {
     void Run.findByPk(data.runId, { attributes: ["id", "status"] }).then((r) => {
       if (!r || r.status === "cancelled") void abortRun(data.runId);

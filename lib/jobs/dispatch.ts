@@ -7,6 +7,7 @@ import type { Run } from "@/models/Run";
 import { dispatchRun, type SolverSettings } from "@/lib/runs/runner";
 import { dispatchCalibration } from "@/lib/calibration/runner";
 import type { Slot } from "./pool";
+import { jobConfig } from "./config";
 
 export type JobMode = "pool" | "queue";
 
@@ -23,8 +24,7 @@ export const QUEUE_RUNNER = "redis-queue:0:0";
 
 /** Most jobs of one organisation running at once (JOB_ORG_CONCURRENCY, default 2), in both modes. */
 export function orgConcurrency(env: NodeJS.ProcessEnv = process.env): number {
-  const n = Number(env.JOB_ORG_CONCURRENCY);
-  return Number.isInteger(n) && n >= 1 ? n : 2;
+  return jobConfig(env).orgConcurrency;
 }
 
 /**

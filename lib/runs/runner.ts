@@ -110,7 +110,7 @@ export function dispatchRun(run: Pick<Run, "id" | "inputs">, solver: SolverSetti
     try {
       const outcome = await getJobPool().simulate(
         { runId: run.id, scenario: run.inputs, frameBudget: solver.frameBudget, budgetMs: solver.budgetSeconds * 1000 },
-        { signal: controller.signal, onMessage },
+        { organisationId: slot.organisationId, signal: controller.signal, onMessage },
       );
       await tracking.written();
       await persistFinal(() => storeOutcome(run.id, outcome));

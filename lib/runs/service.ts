@@ -10,7 +10,7 @@ import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { runConfig } from "./config";
 import { decodeResult } from "./result-format";
 import { abortRun, type SolverSettings } from "./runner";
-import { dispatchJob } from "@/lib/jobs/dispatch";
+import { dispatchJob, jobMode } from "@/lib/jobs/dispatch";
 import { assertRunNotFrozen } from "@/lib/review/freeze";
 import { RUNNER_ID } from "./runner-id";
 import { recoverOnce } from "./recover";
@@ -67,9 +67,9 @@ export async function resolveRunInputs(
   };
 }
 
-function reserveSlot(): Slot {
+function reserveSlot(organisationId: number): Slot {
   try {
-    return getJobPool().reserve();
+    return getJobPool().reserve(organisationId);
   } catch (err) {
     if (err instanceof QueueFullError) {
       throw unavailable("Every run worker is busy and the queue is full; try again shortly.", err.retryAfterSeconds);
@@ -89,7 +89,7 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
     budgetSeconds: body.budgetSeconds ?? runConfig().defaultBudgetSeconds,
     ...(body.frameBudget !== undefined ? { frameBudget: body.frameBudget } : {}),
   };
-  const slot = reserveSlot();
+  const slot = reserveSlot(user.organisationId);
   let run: Run;
   try {
     const { Run } = getModels();
@@ -189,6 +189,11 @@ export async function cancelRun(user: Actor, runId: number): Promise<RunView> {
   });
   // Stop the worker (ends its thread if the task is running, drops it if it waits).
   await abortRun(run.id);
+  if (changed && jobMode() === "queue") {
+    // A job still waiting in Redis leaves the queue now (one taken by a worker sees the cancel itself).
+    const { removeQueuedRun } = await import("@/lib/jobs/bullmq");
+    await removeQueuedRun(run.id, run.organisationId);
+  }
   const fresh = await findOwnRun(user, run.id);
   if (!changed && fresh.status !== "cancelled") throw conflict(`The run is already ${fresh.status}.`);
   return toRunView(fresh);

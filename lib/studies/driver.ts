@@ -88,10 +88,10 @@ async function acquireOrg(organisationId: number): Promise<() => void> {
   };
 }
 
-async function reserveWithWait(): Promise<Slot> {
+async function reserveWithWait(organisationId: number): Promise<Slot> {
   for (;;) {
     try {
-      return getJobPool().reserve();
+      return getJobPool().reserve(organisationId);
     } catch (err) {
       if (!(err instanceof QueueFullError)) throw err;
       await new Promise((r) => setTimeout(r, 250));
@@ -136,7 +136,7 @@ async function drivePool(studyId: number): Promise<void> {
       continue;
     }
     await StudyCase.update({ status: "running" }, { where: { id: next.id, status: "queued" } });
-    const slot = await reserveWithWait();
+    const slot = await reserveWithWait(study.organisationId);
     const caseId = next.id;
     const p: Promise<void> = dispatchJob(run, storedSettings(study).solver, slot)
       .then(() => settleCase(caseId).then(() => undefined))
@@ -161,7 +161,7 @@ async function driveQueue(studyId: number): Promise<void> {
     const run = await createCaseRun(study, c, QUEUE_RUNNER);
     if (!run) continue;
     // Queue mode: the slot is not used (released by dispatchJob); a dummy keeps the call shape.
-    await dispatchJob(run, st.solver, { release() {} }, { studyCaseId: c.id });
+    await dispatchJob(run, st.solver, { organisationId: study.organisationId, release() {} }, { studyCaseId: c.id });
   }
   await refreshStudy(studyId);
 }

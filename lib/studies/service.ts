@@ -294,7 +294,7 @@ export async function cancelStudy(actor: Actor, id: number): Promise<StudyView> 
   for (const runId of runIds) await abortRun(runId);
   if (jobMode() === "queue" && runIds.length) {
     const { removeQueuedRun } = await import("@/lib/jobs/bullmq");
-    for (const runId of runIds) await removeQueuedRun(runId);
+    for (const runId of runIds) await removeQueuedRun(runId, study.organisationId);
   }
   await refreshStudy(id);
   return getStudy(actor, id);
