@@ -1,7 +1,13 @@
-/** Runs once when the server starts: a production server without NEXTAUTH_SECRET refuses to start. */
+/**
+ * Runs once when the server starts: a production server without NEXTAUTH_SECRET refuses to start, and
+ * jobs interrupted by the previous server's end are recovered (in the background, off the request path).
+ */
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME === "nodejs") {
     const { assertAuthConfigured } = await import("./lib/auth/startup");
     assertAuthConfigured();
+    if (process.env.NEXT_PHASE === "phase-production-build") return;
+    const { recoverAtStartup } = await import("./lib/engine/startup");
+    void recoverAtStartup();
   }
 }

@@ -3,7 +3,7 @@ import { MessageChannel } from "node:worker_threads";
 import { jobConfig, orgPlaces, type JobConfig } from "./config";
 import { FairQueue } from "./fair-queue";
 import { ensureWorkerBundle } from "./worker-bundle";
-import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerMessage, WorkerTask } from "./protocol";
+import type { TaskPort, WorkerMessage } from "./protocol";
 
 /** Thrown by `reserve()` when every worker is busy and the queue is full. */
 export class QueueFullError extends Error {
@@ -27,7 +27,7 @@ export interface Slot {
 }
 
 interface Pending {
-  task: Omit<WorkerTask, "port">;
+  task: object;
   opts: TaskOptions;
   resolve: (v: unknown) => void;
   reject: (err: unknown) => void;
@@ -90,19 +90,13 @@ export class JobPool {
     };
   }
 
-  /** Runs one simulation in a worker thread. Aborting `signal` removes a waiting task or ends its thread. */
-  simulate(task: Omit<SimulationTask, "port">, opts: TaskOptions): Promise<SimulationOutcome> {
-    return this.run(task, opts) as Promise<SimulationOutcome>;
-  }
-
-  /** Runs one calibration fit in a worker thread (same places and queue as runs). */
-  calibrate(task: Omit<CalibrationTask, "port">, opts: TaskOptions): Promise<CalibrationOutcome> {
-    return this.run(task, opts) as Promise<CalibrationOutcome>;
-  }
-
-  /** Queues the task for its organisation's turn; aborting while it waits drops it with an AbortError. */
-  private run(task: Omit<WorkerTask, "port">, opts: TaskOptions): Promise<unknown> {
-    return new Promise((resolve, reject) => {
+  /**
+   * Runs one task in a worker thread (the worker bundle reads it; the pool does not) when its
+   * organisation's turn comes, and answers the worker's outcome. Aborting `signal` drops a waiting task
+   * with an AbortError or ends the thread of a running one.
+   */
+  run<Outcome, Task extends TaskPort = TaskPort>(task: Omit<Task, "port">, opts: TaskOptions): Promise<Outcome> {
+    return new Promise<unknown>((resolve, reject) => {
       const { signal } = opts;
       if (signal?.aborted) return reject(abortError(signal));
       const pending: Pending = { task, opts, resolve, reject };
@@ -115,7 +109,7 @@ export class JobPool {
       );
       this.queue.push(opts.organisationId, pending);
       this.pump();
-    });
+    }) as Promise<Outcome>;
   }
 
   /** Starts every job that may start now. */

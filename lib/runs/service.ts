@@ -10,10 +10,9 @@ import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { runConfig } from "./config";
 import { decodeResult } from "./result-format";
 import { abortRun, type SolverSettings } from "./runner";
-import { dispatchJob, jobMode } from "@/lib/jobs/dispatch";
+import { dispatchRunJob, removeQueuedRun } from "./queue";
 import { assertRunNotFrozen } from "@/lib/review/freeze";
-import { RUNNER_ID } from "./runner-id";
-import { recoverOnce } from "./recover";
+import { RUNNER_ID } from "@/lib/jobs/runner-id";
 import { RUN_OVERRIDE_KEYS, RUN_SECTION_OVERRIDES, type ListRunsQuery, type StartRunInput } from "./schema";
 import { applyOverrides, overridableValues } from "./overrides";
 import { ACTIVE_RUN_STATUSES, isFinished } from "./status";
@@ -83,7 +82,6 @@ function reserveSlot(organisationId: number): Slot {
  * stores the run as queued with its audit entry, and hands it to the pool. Answers at once.
  */
 export async function startRun(user: Actor, scenarioId: number, body: StartRunInput): Promise<RunView> {
-  await recoverOnce();
   const { scenarioId: sid, liftRevisionId, inputs, overrides, overridesFrom } = await resolveRunInputs(user, scenarioId, body);
   const solver: SolverSettings = {
     budgetSeconds: body.budgetSeconds ?? runConfig().defaultBudgetSeconds,
@@ -125,7 +123,7 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
     throw err;
   }
   // Pool by default; BullMQ on Redis when REDIS_URL is set (lib/jobs/dispatch.ts).
-  void dispatchJob(run, solver, slot).catch((err) => console.error(`run ${run.id}: could not queue`, err));
+  void dispatchRunJob(run, solver, slot).catch((err) => console.error(`run ${run.id}: could not queue`, err));
   return toRunView(run);
 }
 
@@ -143,7 +141,6 @@ export async function findOwnRun(user: Actor, runId: number, opts: { withResult?
 }
 
 export async function getRun(user: Actor, runId: number): Promise<RunView> {
-  await recoverOnce();
   return toRunView(await findOwnRun(user, runId), { inputs: true });
 }
 
@@ -157,7 +154,6 @@ export interface RunPage {
 
 export async function listRuns(user: Actor, scenarioId: number, q: ListRunsQuery): Promise<RunPage> {
   const { Run } = getModels();
-  await recoverOnce();
   await assertOwnScenario(user, scenarioId);
   const where: WhereOptions = { organisationId: user.organisationId, scenarioId, ...(q.status ? { status: q.status } : {}) };
   const { rows, count } = await Run.findAndCountAll({
@@ -189,11 +185,8 @@ export async function cancelRun(user: Actor, runId: number): Promise<RunView> {
   });
   // Stop the worker (ends its thread if the task is running, drops it if it waits).
   await abortRun(run.id);
-  if (changed && jobMode() === "queue") {
-    // A job still waiting in Redis leaves the queue now (one taken by a worker sees the cancel itself).
-    const { removeQueuedRun } = await import("@/lib/jobs/bullmq");
-    await removeQueuedRun(run.id, run.organisationId);
-  }
+  // A job still waiting in Redis leaves the queue now (one taken by a worker sees the cancel itself).
+  if (changed) await removeQueuedRun(run);
   const fresh = await findOwnRun(user, run.id);
   if (!changed && fresh.status !== "cancelled") throw conflict(`The run is already ${fresh.status}.`);
   return toRunView(fresh);

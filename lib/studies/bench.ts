@@ -6,6 +6,7 @@ import os from "node:os";
 import path from "node:path";
 import { JobPool } from "@/lib/jobs/pool";
 import { jobConfig } from "@/lib/jobs/config";
+import type { SimulationOutcome, SimulationTask } from "@/lib/engine/protocol";
 import { parseScenario } from "@/sim/schema";
 import { caseScenario } from "./cases";
 import { expandGrid } from "./schema";
@@ -18,9 +19,9 @@ async function throughput(workers: number, scenarios: unknown[]): Promise<{ perM
   const own = { organisationId: 1 };
   try {
     // Warm the threads (module load) so the figure is about cases, not start-up.
-    await Promise.all(Array.from({ length: workers }, (_, i) => pool.simulate({ runId: -1 - i, scenario: scenarios[0] }, own)));
+    await Promise.all(Array.from({ length: workers }, (_, i) => pool.run<SimulationOutcome, SimulationTask>({ runId: -1 - i, scenario: scenarios[0] }, own)));
     const t0 = performance.now();
-    const outcomes = await Promise.all(scenarios.map((s, i) => pool.simulate({ runId: i + 1, scenario: s }, own)));
+    const outcomes = await Promise.all(scenarios.map((s, i) => pool.run<SimulationOutcome, SimulationTask>({ runId: i + 1, scenario: s }, own)));
     const seconds = (performance.now() - t0) / 1000;
     const failed = outcomes.filter((o) => !o.ok).length;
     if (failed) throw new Error(`${failed} case(s) failed in the bench`);

@@ -13,8 +13,9 @@ import { fromZod } from "@/lib/http/errors";
 import { resolveRunInputs } from "@/lib/runs/service";
 import { runConfig } from "@/lib/runs/config";
 import { recoverInterruptedRuns } from "@/lib/runs/recover";
-import { runnerMayBeAlive, RUNNER_ID } from "@/lib/runs/runner-id";
+import { runnerMayBeAlive, RUNNER_ID } from "@/lib/jobs/runner-id";
 import { abortRun, type SolverSettings } from "@/lib/runs/runner";
+import { removeQueuedRun } from "@/lib/runs/queue";
 import { jobMode } from "@/lib/jobs/dispatch";
 import type { UnitSystem } from "@/sim/units";
 import { caseScenario, type ChainValues } from "./cases";
@@ -134,7 +135,6 @@ export async function createStudy(actor: Actor, raw: unknown): Promise<StudyView
   const parsed = createStudySchema.safeParse(raw);
   if (!parsed.success) throw fromZod(parsed.error, "The study has invalid fields.");
   const body = parsed.data;
-  await recoverStudiesOnce();
   const { ChainSpec, Train, Scenario, Study, StudyCase } = getModels();
   const { settings } = body;
   const { requireNoArdCatch, frameBudget, budgetSeconds, ...runOverrides } = settings;
@@ -242,7 +242,6 @@ async function findOwnStudy(actor: Actor, id: number): Promise<Study> {
 
 export async function getStudy(actor: Actor, id: number, opts: { units?: UnitSystem } = {}): Promise<StudyView> {
   assertCan(actor, "study:read");
-  await recoverStudiesOnce();
   let study = await findOwnStudy(actor, id);
   if (study.status === "running" || study.status === "queued") {
     await settleOpenCases(study.id);
@@ -254,7 +253,6 @@ export async function getStudy(actor: Actor, id: number, opts: { units?: UnitSys
 
 export async function listStudies(actor: Actor, q: { scenarioId?: number; page: number; pageSize: number }) {
   assertCan(actor, "study:read");
-  await recoverStudiesOnce();
   const { Study } = getModels();
   const { rows, count } = await Study.findAndCountAll({
     where: { organisationId: actor.organisationId, ...(q.scenarioId ? { scenarioId: q.scenarioId } : {}) },
@@ -292,10 +290,7 @@ export async function cancelStudy(actor: Actor, id: number): Promise<StudyView> 
     await recordAudit({ transaction, actor, entity: "study", entityId: id, action: "update", before: { status: study.status }, after: { status: "cancelled" } });
   });
   for (const runId of runIds) await abortRun(runId);
-  if (jobMode() === "queue" && runIds.length) {
-    const { removeQueuedRun } = await import("@/lib/jobs/bullmq");
-    for (const runId of runIds) await removeQueuedRun(runId, study.organisationId);
-  }
+  for (const runId of runIds) await removeQueuedRun({ id: runId, organisationId: study.organisationId });
   await refreshStudy(id);
   return getStudy(actor, id);
 }
@@ -313,7 +308,6 @@ async function requeueOpenCases(studyId: number): Promise<number> {
 export async function resumeStudy(actor: Actor, id: number): Promise<StudyView> {
   assertCan(actor, "study:run");
   const { Study } = getModels();
-  await recoverStudiesOnce();
   const study = await findOwnStudy(actor, id);
   const driverGone = study.status === "running" && study.mode === "pool" && !runnerMayBeAlive(study.driver);
   if (study.status === "done" && study.casesFailed === 0) throw conflict("Every case of this study has finished.");
@@ -334,6 +328,7 @@ export async function resumeStudy(actor: Actor, id: number): Promise<StudyView> 
 /**
  * After a restart: studies driven by a process that is gone continue in this one, keeping every
  * finished case (cases whose run was interrupted are queued again). Queue-mode studies need no driver.
+ * Called at server start (lib/engine/startup.ts).
  */
 export async function recoverStudies(): Promise<number> {
   const { Study } = getModels();
@@ -350,22 +345,4 @@ export async function recoverStudies(): Promise<number> {
     n += 1;
   }
   return n;
-}
-
-const recoverState = globalThis as unknown as { tautlineStudiesRecovered?: Promise<number> };
-
-export function recoverStudiesOnce(): Promise<number> {
-  if (!recoverState.tautlineStudiesRecovered) {
-    recoverState.tautlineStudiesRecovered = recoverStudies().catch((err) => {
-      console.error("could not resume interrupted studies", err);
-      recoverState.tautlineStudiesRecovered = undefined;
-      return 0;
-    });
-  }
-  return recoverState.tautlineStudiesRecovered;
-}
-
-/** For tests: forget that recovery ran in this process. */
-export function resetStudyRecovery(): void {
-  recoverState.tautlineStudiesRecovered = undefined;
 }

@@ -1,12 +1,12 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { getModels } from "@/models";
 import { closeJobPool } from "@/lib/jobs/pool";
-import { closeRunQueue, startQueueWorker, type QueueWorker } from "@/lib/jobs/bullmq";
+import { closeRunQueue } from "@/lib/jobs/bullmq";
+import { startEngineWorker, type QueueWorker } from "@/lib/engine/queue-worker";
 import { cancelRun, startRun } from "@/lib/runs/service";
 import { runEventStream } from "@/lib/runs/events";
 import { cancelStudy, createStudy } from "@/lib/studies/service";
 import { waitForStudyDriver } from "@/lib/studies/driver";
-import { settleCaseOfJob } from "@/lib/studies/progress";
 import type { Actor } from "@/lib/api/actor";
 import { HttpError } from "@/lib/http/errors";
 import { closeDb, makeOrganisation } from "./design-fixtures";
@@ -134,7 +134,7 @@ describe("the Redis queue", () => {
   beforeAll(() => {
     expect(process.env.TEST_REDIS_URL, "npm test starts redis-server and sets TEST_REDIS_URL").toBeTruthy();
     process.env.REDIS_URL = process.env.TEST_REDIS_URL;
-    worker = startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob });
+    worker = startEngineWorker({ concurrency: 1 });
   });
   afterAll(async () => {
     delete process.env.REDIS_URL;

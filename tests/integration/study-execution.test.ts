@@ -3,13 +3,13 @@ import os from "node:os";
 import { getModels } from "@/models";
 import { simulate } from "@/sim/simulate";
 import { closeJobPool } from "@/lib/jobs/pool";
-import { closeRunQueue, startQueueWorker, type QueueWorker } from "@/lib/jobs/bullmq";
+import { closeRunQueue } from "@/lib/jobs/bullmq";
+import { startEngineWorker, type QueueWorker } from "@/lib/engine/queue-worker";
 import { cancelStudy, createStudy, recoverStudies, resumeStudy } from "@/lib/studies/service";
 import { waitForStudyDriver } from "@/lib/studies/driver";
 import { caseScenario } from "@/lib/studies/cases";
 import { judgeCase } from "@/lib/studies/headline";
 import { operatingWindow } from "@/lib/studies/window";
-import { settleCaseOfJob } from "@/lib/studies/progress";
 import { storedSettings } from "@/lib/studies/driver";
 import type { StudyParameter } from "@/lib/studies/schema";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
@@ -79,7 +79,7 @@ describe("a 22-case study through both execution modes", () => {
     process.env.REDIS_URL = redisUrl;
     let worker: QueueWorker | null = null;
     try {
-      worker = startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob });
+      worker = startEngineWorker({ concurrency: 1 });
       const { StudyCase, Study } = getModels();
       const pool = await Study.findByPk(poolStudyId);
       const created = await createStudy(engineer, { scenarioId: pool!.scenarioId, name: "Entry speed × loading (queue)", parameters: GRID });
@@ -143,7 +143,7 @@ describe("per-organisation limits in the queue mode", () => {
     let peak = 0;
     let sampling = true;
     try {
-      workers.push(startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob }), startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob }));
+      workers.push(startEngineWorker({ concurrency: 1 }), startEngineWorker({ concurrency: 1 }));
       const { scenarioId } = await studyScenario(engineer, "Study: organisation limit");
       const created = await createStudy(engineer, { scenarioId, name: "Limited", parameters: [{ key: "takeUpMass", values: [4000, 4500, 5000, 5500, 6000] }] });
       const { Run, StudyCase } = getModels();
