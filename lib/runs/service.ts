@@ -9,6 +9,7 @@ import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { runConfig } from "./config";
 import { decodeResult } from "./result-format";
+import { resultJsonStream } from "./result-stream";
 import { abortRun, type SolverSettings } from "./runner";
 import { dispatchRunJob, removeQueuedRun } from "./queue";
 import { assertRunNotFrozen } from "@/lib/review/freeze";
@@ -238,6 +239,12 @@ export async function getRunResultBlob(user: Actor, runId: number): Promise<{ ru
     throw new HttpError(409, run.status === "done" ? "This run stored no result." : `The run is ${run.status}; it has no result yet.`);
   }
   return { run, blob: run.result };
+}
+
+/** The JSON of getRunResult as a stream (lib/runs/result-stream.ts): what the download route answers. */
+export async function getRunResultStream(user: Actor, runId: number): Promise<ReadableStream<Uint8Array>> {
+  const { run, blob } = await getRunResultBlob(user, runId);
+  return resultJsonStream(run, blob);
 }
 
 export async function getRunResult(user: Actor, runId: number): Promise<RunResult> {
