@@ -96,6 +96,27 @@ describe("cancelling the running job (pool mode)", () => {
   });
 });
 
+describe("cancelling a study whose case is running (pool mode)", () => {
+  it("starts the next waiting run at once, and that run's event stream ends", async () => {
+    const { scenarioId } = await importForRuns(busy.as.engineer, shortScenarioFile("Fair share: study to cancel", { duration: 600, segments: 1000 }));
+    const study = await createStudy(busy.as.engineer, {
+      scenarioId,
+      name: "Cancel while a case runs",
+      parameters: [{ key: "takeUpMass", values: [4000, 4500] }],
+      settings: { budgetSeconds: 600 },
+    });
+    await waitForStudy(busy.as.engineer, study.id, (s) => s.cases!.some((c) => c.status === "running"));
+    // Same organisation, one thread, its share of running jobs taken by the study: the run waits.
+    const { scenarioId: shortOwn } = await importForRuns(busy.as.engineer, shortScenarioFile("Fair share: after the study"));
+    const next = await startRun(busy.as.operator, shortOwn, {});
+    expect((await getModels().Run.findByPk(next.id))!.status).toBe("queued");
+    await cancelStudy(busy.as.engineer, study.id);
+    const end = await endOfStream(busy.as.viewer, next.id);
+    expect(end.status).toBe("done");
+    await waitForStudyDriver(study.id);
+  });
+});
+
 describe("fair share between organisations (pool mode)", () => {
   it("one organisation's long runs neither refuse nor hold back another organisation's first run", async () => {
     const held = await fillShare();
