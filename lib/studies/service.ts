@@ -8,19 +8,19 @@ import type { Study } from "@/models/Study";
 import type { StudyCase } from "@/models/StudyCase";
 import { assertCan, ownOr404, type Actor } from "@/lib/api/actor";
 import { recordAudit } from "@/lib/audit/record";
-import { badRequest, conflict } from "@/lib/http/errors";
+import { conflict } from "@/lib/http/errors";
 import { fromZod } from "@/lib/http/errors";
 import { resolveRunInputs } from "@/lib/runs/service";
 import { runConfig } from "@/lib/runs/config";
 import { recoverInterruptedRuns } from "@/lib/runs/recover";
 import { runnerMayBeAlive, RUNNER_ID } from "@/lib/jobs/runner-id";
-import { abortRun, type SolverSettings } from "@/lib/runs/runner";
+import { abortRun } from "@/lib/runs/runner";
 import { removeQueuedRun } from "@/lib/runs/queue";
 import { jobMode } from "@/lib/jobs/dispatch";
 import type { UnitSystem } from "@/sim/units";
-import { caseScenario, type ChainValues } from "./cases";
-import { createStudySchema, expandGrid, MAX_STUDY_CASES, type StudyParameter } from "./schema";
-import { driveStudy, storedSettings, type StoredStudySettings } from "./driver";
+import { createStudySchema, type StudyParameter } from "./schema";
+import { planStudy } from "./plan";
+import { driveStudy, storedSettings } from "./driver";
 import { settleOpenCases, refreshStudy } from "./progress";
 import { operatingWindow, type OperatingWindow, type ValueNamer } from "./window";
 
@@ -136,56 +136,20 @@ export async function createStudy(actor: Actor, raw: unknown): Promise<StudyView
   if (!parsed.success) throw fromZod(parsed.error, "The study has invalid fields.");
   const body = parsed.data;
   const { ChainSpec, Train, Scenario, Study, StudyCase } = getModels();
-  const { settings } = body;
-  const { requireNoArdCatch, frameBudget, budgetSeconds, ...runOverrides } = settings;
-  const resolved = await resolveRunInputs(actor, body.scenarioId, runOverrides);
+  // Only the settings of the scenario's run section apply to the base scenario (resolveRunInputs picks them).
+  const resolved = await resolveRunInputs(actor, body.scenarioId, body.settings);
   const scenario = await Scenario.findByPk(resolved.scenarioId);
   const train = await Train.findByPk(scenario!.trainId);
-
   const chainIds = body.parameters.flatMap((p) => (p.key === "chainSpec" ? p.values : []));
   const chainRows = chainIds.length ? await ChainSpec.findAll({ where: { id: { [Op.in]: chainIds } } }) : [];
-  const chains: ChainValues[] = [];
-  for (const id of chainIds) {
-    const row = chainRows.find((r) => r.id === id);
-    if (!row || (row.organisationId !== null && row.organisationId !== actor.organisationId)) {
-      throw badRequest("The study names a chain that is not in the catalogue.", [
-        { path: `parameters.${body.parameters.findIndex((p) => p.key === "chainSpec")}.values`, message: `chain ${id} is not in the catalogue` },
-      ]);
-    }
-    chains.push({
-      id: row.id,
-      designation: row.designation,
-      pitch: row.pitch,
-      massPerLength: row.massPerLength,
-      axialStiffness: row.axialStiffness,
-      breakingStrength: row.breakingStrength,
-    });
-  }
-
-  const grid = expandGrid(body.parameters);
-  if (grid.length > MAX_STUDY_CASES) {
-    throw badRequest(`The study has ${grid.length} cases; at most ${MAX_STUDY_CASES} are allowed.`, [
-      { path: "parameters", message: `${grid.length} cases is more than ${MAX_STUDY_CASES}` },
-    ]);
-  }
-  const solver: SolverSettings = {
-    budgetSeconds: budgetSeconds ?? runConfig().defaultBudgetSeconds,
-    ...(frameBudget !== undefined ? { frameBudget } : {}),
-  };
-  const stored: StoredStudySettings = {
-    requireNoArdCatch,
-    solver,
+  const { grid, stored } = planStudy({
+    body,
+    organisationId: actor.organisationId,
     base: resolved.inputs,
-    chains,
     train: { carMassEmpty: train!.carMassEmpty, seatsPerCar: train!.seatsPerCar, riderMass: train!.riderMass },
-  };
-  // Every case must make a valid engine scenario before anything is stored.
-  const ctx = { chains: new Map(chains.map((c) => [c.id, c])), train: stored.train };
-  const issues = grid.flatMap((values, i) => {
-    const r = caseScenario(resolved.inputs, values, ctx);
-    return r.ok ? [] : r.issues.map((iss) => ({ path: `cases.${i}.${iss.path}`, message: `${iss.message} (case ${JSON.stringify(values)})` }));
+    chainRows,
+    defaultBudgetSeconds: runConfig().defaultBudgetSeconds,
   });
-  if (issues.length) throw badRequest("Some cases of the study would not make a valid scenario.", issues.slice(0, 20));
 
   const study = await Study.sequelize!.transaction(async (transaction) => {
     const s = await Study.create(
