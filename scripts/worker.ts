@@ -1,11 +1,10 @@
 // npm run worker: a BullMQ worker for runs, study cases and calibration fits. Start it on any machine
 // that reaches the database (DB_*) and Redis (REDIS_URL); it runs JOB_WORKERS engine threads. Ctrl-C /
 // SIGTERM stops taking jobs, lets the jobs in hand finish, then exits (a killed worker's jobs go back to the queue as stalled).
-import { startQueueWorker } from "../lib/jobs/bullmq";
+import { startEngineWorker } from "../lib/engine/queue-worker";
 import { closeJobPool, getJobPool } from "../lib/jobs/pool";
-import { settleCaseOfJob } from "../lib/studies/progress";
 import { getSequelize } from "../lib/db/sequelize";
-import { RUNNER_ID } from "../lib/runs/runner-id";
+import { RUNNER_ID } from "../lib/jobs/runner-id";
 
 async function main(): Promise<void> {
   if (!process.env.REDIS_URL) {
@@ -14,7 +13,7 @@ async function main(): Promise<void> {
   }
   await getSequelize().authenticate();
   const threads = getJobPool().config.workers;
-  const w = startQueueWorker({ concurrency: threads, onFinished: settleCaseOfJob });
+  const w = startEngineWorker({ concurrency: threads });
   const redisHost = new URL(process.env.REDIS_URL).host;
   console.log(`[tautline worker] ${RUNNER_ID}: ${threads} engine thread(s), Redis ${redisHost}, database ${process.env.DB_HOST ?? "127.0.0.1"}:${process.env.DB_PORT ?? 3306}`);
   let stopping = false;

@@ -47,7 +47,7 @@ export function MailList({ messages }: { messages: FakeMessage[] }) {
         <div className="flex items-center justify-between px-4 py-2">
           <span className="text-[12px] text-steel-500">{messages.length} kept, newest first</span>
           <Button size="sm" variant="ghost" busy={busy} onClick={clear}>
-            Delete all
+            Delete these
           </Button>
         </div>
         <ul data-testid="mail-list">

@@ -3,7 +3,7 @@
  * friction coefficient) so the engine's take-up trace matches a recorded one, by least squares over the
  * recorded samples (Nelder–Mead on log E·A and log damping). The recording is aligned to the run at
  * engagement (recorded engagement time ↔ the run's first dog contact). Pure: engine + numbers only (no
- * database), so it runs in the job pool's worker thread (lib/jobs/run-worker.ts) or in a test. Kept cheap: a coarse mesh and a short window around the pick-up.
+ * database), so it runs in the job pool's worker thread (lib/engine/worker.ts) or in a test. Kept cheap: a coarse mesh and a short window around the pick-up.
  */
 import { designStatics, parseScenario, simulate, type Scenario } from "@/sim";
 import { nelderMead } from "./nelder-mead";

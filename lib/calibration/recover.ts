@@ -1,6 +1,6 @@
 import { Op } from "sequelize";
 import { getModels, type Models } from "@/models";
-import { runnerMayBeAlive } from "@/lib/runs/runner-id";
+import { runnerMayBeAlive } from "@/lib/jobs/runner-id";
 import { ACTIVE_CALIBRATION_STATUSES } from "./status";
 
 export const INTERRUPTED_CALIBRATION_MESSAGE = "The calibration was interrupted by a restart of the server; start it again.";
@@ -20,18 +20,4 @@ export async function recoverInterruptedCalibrations(models: Pick<Models, "Calib
     { where: { id: { [Op.in]: dead }, status: { [Op.in]: [...ACTIVE_CALIBRATION_STATUSES] } } },
   );
   return count;
-}
-
-const state = globalThis as unknown as { tautlineCalibrationsRecovered?: Promise<number> };
-
-/** Recovery once per process, before this process answers its first calibration request. */
-export function recoverCalibrationsOnce(): Promise<number> {
-  if (!state.tautlineCalibrationsRecovered) {
-    state.tautlineCalibrationsRecovered = recoverInterruptedCalibrations().catch((err) => {
-      console.error("could not mark interrupted calibrations", err);
-      state.tautlineCalibrationsRecovered = undefined;
-      return 0;
-    });
-  }
-  return state.tautlineCalibrationsRecovered;
 }

@@ -6,7 +6,7 @@ import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Calibration } from "@/models/Calibration";
 import { getJobPool, type Slot } from "@/lib/jobs/pool";
-import type { CalibrationOutcome, CalibrationTask } from "@/lib/jobs/protocol";
+import type { CalibrationOutcome, CalibrationTask } from "@/lib/engine/protocol";
 import { persistFinal, trackJob } from "@/lib/jobs/tracking";
 import { ACTIVE_CALIBRATION_STATUSES, type CalibrationStatus } from "./status";
 
@@ -63,7 +63,7 @@ export function dispatchCalibration(cal: { id: number; inputs: Record<string, un
   const inputs = (typeof cal.inputs === "string" ? JSON.parse(cal.inputs) : cal.inputs) as CalibrationInputs;
   const done = (async () => {
     try {
-      const outcome = await getJobPool().calibrate({ kind: "calibration", calibrationId: cal.id, ...inputs }, { signal: controller.signal, onMessage });
+      const outcome = await getJobPool().run<CalibrationOutcome, CalibrationTask>({ kind: "calibration", calibrationId: cal.id, ...inputs }, { organisationId: slot.organisationId, signal: controller.signal, onMessage });
       await tracking.written();
       await persistFinal(() => storeOutcome(cal.id, outcome));
     } catch (err) {

@@ -1,20 +1,19 @@
 /**
  * Calibration jobs of a recording: start (validate, hold a place in the job pool — 503 when full, nothing
  * stored — store the job as queued, hand it to the pool or the Redis queue, answer at once) and read
- * (status, progress, the fit once done). The fit itself runs in a worker thread (lib/jobs/run-worker.ts).
+ * (status, progress, the fit once done). The fit itself runs in a worker thread (lib/engine/worker.ts).
  */
 import type { Scenario as EngineScenario } from "@/sim";
 import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { validate } from "@/lib/http/validate";
 import { badRequest, HttpError, notFound, unavailable } from "@/lib/http/errors";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
-import { dispatchCalibrationJob } from "@/lib/jobs/dispatch";
-import { RUNNER_ID } from "@/lib/runs/runner-id";
+import { dispatchCalibrationJob } from "./queue";
+import { RUNNER_ID } from "@/lib/jobs/runner-id";
 import { resolveEngineScenario } from "@/lib/scenarios/engine";
 import { getModels, type Calibration, type Recording } from "@/models";
 import type { CalibrationResult, RecordedTrace } from "./fit";
 import type { CalibrationInputs } from "./runner";
-import { recoverCalibrationsOnce } from "./recover";
 import { calibrateInputSchema } from "./schema";
 import type { CalibrationStatus } from "./status";
 
@@ -86,9 +85,9 @@ async function recordedTrace(r: Recording): Promise<RecordedTrace> {
   return { t, takeUp, engagementTime: r.engagementTime - t0 };
 }
 
-function reserveSlot(): Slot {
+function reserveSlot(organisationId: number): Slot {
   try {
-    return getJobPool().reserve();
+    return getJobPool().reserve(organisationId);
   } catch (err) {
     if (err instanceof QueueFullError) throw unavailable("Every engine worker is busy and the queue is full; try the fit again shortly.", err.retryAfterSeconds);
     throw err;
@@ -100,7 +99,6 @@ function reserveSlot(): Slot {
  * scenario's train and entry conditions on the recording's lift revision. Answers the queued job at once.
  */
 export async function startCalibration(actor: Actor, recordingId: number, input: unknown): Promise<CalibrationView> {
-  await recoverCalibrationsOnce();
   const r = await ownRecording(actor, recordingId);
   assertCan(actor, "run:start");
   const body = validate(calibrateInputSchema, input);
@@ -114,7 +112,7 @@ export async function startCalibration(actor: Actor, recordingId: number, input:
   const trace = await recordedTrace(r);
   const fitFriction = body.fitFriction ?? false;
   const inputs: CalibrationInputs = { scenario: resolved.scenario as EngineScenario, trace, options: { fitFriction } };
-  const slot = reserveSlot();
+  const slot = reserveSlot(actor.organisationId);
   let row: Calibration;
   try {
     row = await Calibration.create({
@@ -138,7 +136,6 @@ export async function startCalibration(actor: Actor, recordingId: number, input:
 
 /** One calibration of the recording (404 for another recording's or organisation's). */
 export async function getCalibration(actor: Actor, recordingId: number, calibrationId: number): Promise<CalibrationView> {
-  await recoverCalibrationsOnce();
   const r = await ownRecording(actor, recordingId);
   const c = await getModels().Calibration.findByPk(calibrationId);
   if (!c || c.recordingId !== r.id || c.organisationId !== actor.organisationId) throw notFound("Calibration not found.");
@@ -147,7 +144,6 @@ export async function getCalibration(actor: Actor, recordingId: number, calibrat
 
 /** The recording's latest calibration, or null when it has none. */
 export async function latestCalibration(actor: Actor, recordingId: number): Promise<CalibrationView | null> {
-  await recoverCalibrationsOnce();
   const r = await ownRecording(actor, recordingId);
   const c = await getModels().Calibration.findOne({ where: { recordingId: r.id, organisationId: actor.organisationId }, order: [["id", "DESC"]] });
   return c ? toCalibrationView(c) : null;

@@ -1,4 +1,4 @@
-// Bundles the run worker (lib/jobs/run-worker.ts and the engine it imports) into one plain JavaScript
+// Bundles the engine worker (lib/engine/worker.ts and the engine it imports) into one plain JavaScript
 // file that Node worker threads can load: Next's production build cannot hand a .ts file to a worker.
 // Run by `npm run build` before `next build`, and on demand by lib/jobs/worker-bundle.ts in dev and tests.
 // Usage: node lib/jobs/build-worker.mjs [outfile]
@@ -26,7 +26,8 @@ export async function buildWorker(outfile = DEFAULT_OUTFILE) {
   // must never load a half-written file.
   const tmp = `${outfile}.${process.pid}.tmp`;
   await build({
-    entryPoints: [path.join(root, "lib", "jobs", "run-worker.ts")],
+    // The pool's worker-thread entry: the engine side of the jobs, outside lib/jobs (which knows no domain).
+    entryPoints: [path.join(root, "lib", "engine", "worker.ts")],
     outfile: tmp,
     bundle: true,
     platform: "node",

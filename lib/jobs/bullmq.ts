@@ -1,38 +1,33 @@
 /**
- * The BullMQ execution mode: one Redis queue of run and calibration jobs; workers (`npm run worker`, or
- * the test's own) take a job, run the engine in their local worker-thread pool, and write the outcome to
- * the database exactly as the in-process pool does (lib/runs/runner.ts, lib/calibration/runner.ts). Per-organisation concurrency is a Redis
- * sorted set of the organisation's running jobs (stale entries expire), checked atomically.
+ * The BullMQ execution mode: one Redis queue of jobs (runs, calibration fits: the caller names the kinds
+ * and hands their handlers to the worker); workers (`npm run worker`, or a test's own) take a job and call
+ * its handler, which runs it in the local worker-thread pool and writes its outcome exactly as the
+ * in-process pool does. Per-organisation concurrency is a Redis sorted set of the organisation's running
+ * jobs (stale entries expire), checked atomically; per-organisation priorities keep the waiting line fair.
+ * Knows no domain: the handlers come from the caller (lib/engine/queue-worker.ts).
  */
 import { Queue, Worker, DelayedError, type Job } from "bullmq";
 import IORedis, { type Redis } from "ioredis";
-import { Op } from "sequelize";
-import { getModels } from "@/models";
-import { dispatchRun, abortRun, type SolverSettings } from "@/lib/runs/runner";
-import { dispatchCalibration } from "@/lib/calibration/runner";
-import { RUNNER_ID, runnerMayBeAlive } from "@/lib/runs/runner-id";
-import { getJobPool, QueueFullError } from "./pool";
+import { getJobPool, QueueFullError, type Slot } from "./pool";
 import { orgConcurrency, QUEUE_RUNNER } from "./dispatch";
 
 export const QUEUE_NAME = "tautline-runs";
 
-export interface RunJobData {
-  runId: number;
-  organisationId: number;
-  solver: SolverSettings;
-  studyCaseId?: number;
-}
-
-/** A calibration job (job name "calibration"): the row holds the fit's inputs. */
-export interface CalibrationJobData {
-  calibrationId: number;
+/** What every queued job carries; the rest of its data is its handler's. */
+export interface QueuedJobData {
   organisationId: number;
 }
 
-type JobData = RunJobData | CalibrationJobData;
+export interface QueueJobContext {
+  /** A place in this process's worker-thread pool for the job's organisation, waiting while it is full. */
+  localSlot(): Promise<Slot>;
+}
 
-/** A job that finished (any outcome): studies use it to copy the run's figures into the case. */
-export type RunFinishedHook = (data: RunJobData) => Promise<void>;
+/** Runs one taken job to its end (its data as enqueued). */
+export type QueueJobHandler = (data: QueuedJobData, ctx: QueueJobContext) => Promise<void>;
+
+/** A job that finished (any outcome), by kind: e.g. studies copy a run's figures into its case. */
+export type JobFinishedHook = (name: string, data: QueuedJobData) => Promise<void>;
 
 function redisUrl(): string {
   const url = process.env.REDIS_URL;
@@ -45,34 +40,59 @@ export function redisConnection(url = redisUrl()): Redis {
   return new IORedis(url, { maxRetriesPerRequest: null });
 }
 
-const state = globalThis as unknown as { tautlineRunQueue?: { url: string; queue: Queue } };
+const state = globalThis as unknown as { tautlineRunQueue?: { url: string; queue: Queue; redis: Redis } };
 
-export function getRunQueue(): Queue {
+function queueState() {
   const url = redisUrl();
   if (state.tautlineRunQueue?.url !== url) {
-    state.tautlineRunQueue = { url, queue: new Queue(QUEUE_NAME, { connection: redisConnection(url) }) };
+    state.tautlineRunQueue = { url, queue: new Queue(QUEUE_NAME, { connection: redisConnection(url) }), redis: redisConnection(url) };
   }
-  return state.tautlineRunQueue.queue;
+  return state.tautlineRunQueue;
+}
+
+export function getRunQueue(): Queue {
+  return queueState().queue;
 }
 
 export async function closeRunQueue(): Promise<void> {
   const q = state.tautlineRunQueue;
   state.tautlineRunQueue = undefined;
-  if (q) await q.queue.close();
+  if (q) {
+    await q.queue.close();
+    q.redis.disconnect();
+  }
 }
 
-export async function enqueueRun(data: RunJobData): Promise<void> {
-  await getRunQueue().add("run", data, { jobId: `run-${data.runId}`, removeOnComplete: true, removeOnFail: 1000 });
+const orgQueuedKey = (organisationId: number) => `tautline:org-queued:${organisationId}`;
+// BullMQ's largest priority.
+const MAX_PRIORITY = 2_097_152;
+
+/**
+ * Fair share in Redis: a job's priority is how many jobs its organisation has waiting, itself included
+ * (lower goes first, ties in order of arrival). An organisation's n-th waiting job therefore goes after
+ * every other organisation's first n: a 400-case study queued ahead does not hold back a single run.
+ */
+async function fairPriority(organisationId: number): Promise<number> {
+  return Math.min(await queueState().redis.incr(orgQueuedKey(organisationId)), MAX_PRIORITY);
 }
 
-export async function enqueueCalibration(data: CalibrationJobData): Promise<void> {
-  await getRunQueue().add("calibration", data, { jobId: `calibration-${data.calibrationId}`, removeOnComplete: true, removeOnFail: 1000 });
+/** Adds a job of kind `name` (id unique within the kind); it waits for its organisation's turn. */
+export async function enqueueJob(name: string, id: number, data: QueuedJobData): Promise<void> {
+  const priority = await fairPriority(data.organisationId);
+  await getRunQueue().add(name, data, { jobId: `${name}-${id}`, priority, removeOnComplete: true, removeOnFail: 1000 });
 }
+
+const DECREMENT_FLOORED = `
+if redis.call('DECR', KEYS[1]) < 0 then redis.call('SET', KEYS[1], 0) end
+return 1`;
 
 /** Removes a waiting job (a cancelled run); a job already taken notices the cancel itself. */
-export async function removeQueuedRun(runId: number): Promise<void> {
+export async function removeQueuedJob(name: string, id: number, organisationId: number): Promise<void> {
   try {
-    await getRunQueue().remove(`run-${runId}`);
+    const removed = await getRunQueue().remove(`${name}-${id}`);
+    if (removed) {
+      await queueState().redis.eval(DECREMENT_FLOORED, 1, orgQueuedKey(organisationId));
+    }
   } catch {
     // Locked by a worker that is running it: that worker sees the cancelled row and stops.
   }
@@ -80,6 +100,7 @@ export async function removeQueuedRun(runId: number): Promise<void> {
 
 // Atomic "take a place for this organisation": drop entries older than the stale age, then add the job
 // if there is room. Entries are refreshed while the job runs, so a crashed worker's place expires.
+// A job taken for the first time no longer waits: its organisation's waiting count (KEYS[2]) goes down.
 const ACQUIRE = `
 redis.call('ZREMRANGEBYSCORE', KEYS[1], '-inf', tonumber(ARGV[1]) - tonumber(ARGV[3]))
 if redis.call('ZSCORE', KEYS[1], ARGV[2]) then
@@ -88,6 +109,7 @@ if redis.call('ZSCORE', KEYS[1], ARGV[2]) then
 end
 if redis.call('ZCARD', KEYS[1]) < tonumber(ARGV[4]) then
   redis.call('ZADD', KEYS[1], ARGV[1], ARGV[2])
+  if redis.call('DECR', KEYS[2]) < 0 then redis.call('SET', KEYS[2], 0) end
   return 1
 end
 return 0`;
@@ -95,14 +117,15 @@ return 0`;
 const STALE_MS = 30_000;
 const HEARTBEAT_MS = 5_000;
 const RETRY_DELAY_MS = 300;
-const CANCEL_POLL_MS = 400;
 
 const orgKey = (organisationId: number) => `tautline:org-running:${organisationId}`;
 
 export interface QueueWorkerOptions {
+  /** The handler of each kind of job (job name → handler). */
+  handlers: Record<string, QueueJobHandler>;
   /** Jobs run at once by this worker (default JOB_WORKERS). */
   concurrency?: number;
-  onFinished?: RunFinishedHook;
+  onFinished?: JobFinishedHook;
 }
 
 export interface QueueWorker {
@@ -110,18 +133,19 @@ export interface QueueWorker {
   close(): Promise<void>;
 }
 
-/** Starts a BullMQ worker for run and calibration jobs in this process. */
-export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
+/** Starts a BullMQ worker in this process for the kinds of job in `opts.handlers`. */
+export function startQueueWorker(opts: QueueWorkerOptions): QueueWorker {
   const url = redisUrl();
   const redis = redisConnection(url);
   const concurrency = opts.concurrency ?? getJobPool().config.workers;
   const limit = orgConcurrency();
 
-  const processor = async (job: Job<JobData>, token?: string) => {
+  const processor = async (job: Job<QueuedJobData>, token?: string) => {
     const data = job.data;
-    const calibration = job.name === "calibration" ? (data as CalibrationJobData) : null;
-    const member = calibration ? `calibration-${calibration.calibrationId}` : `run-${(data as RunJobData).runId}`;
-    const got = await redis.eval(ACQUIRE, 1, orgKey(data.organisationId), Date.now(), member, STALE_MS, limit);
+    const handler = opts.handlers[job.name];
+    if (!handler) throw new Error(`No handler for queued jobs of kind "${job.name}".`);
+    const member = job.id ?? `${job.name}-?`;
+    const got = await redis.eval(ACQUIRE, 2, orgKey(data.organisationId), orgQueuedKey(data.organisationId), Date.now(), member, STALE_MS, limit);
     if (got !== 1) {
       // The organisation already runs its share: try again shortly, letting other organisations' jobs by.
       await job.moveToDelayed(Date.now() + RETRY_DELAY_MS, token);
@@ -131,17 +155,16 @@ export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
       void redis.zadd(orgKey(data.organisationId), Date.now(), member).catch(() => undefined);
     }, HEARTBEAT_MS);
     try {
-      if (calibration) await calibrateOne(calibration);
-      else await runOne(data as RunJobData);
+      await handler(data, { localSlot: () => localSlot(data.organisationId) });
     } finally {
       clearInterval(heartbeat);
       await redis.zrem(orgKey(data.organisationId), member);
     }
-    if (!calibration && opts.onFinished) await opts.onFinished(data as RunJobData);
+    if (opts.onFinished) await opts.onFinished(job.name, data);
   };
 
-  const worker = new Worker<JobData>(QUEUE_NAME, processor, { connection: redisConnection(url), concurrency });
-  worker.on("error", (err) => console.error("run queue worker:", err.message));
+  const worker = new Worker<QueuedJobData>(QUEUE_NAME, processor, { connection: redisConnection(url), concurrency });
+  worker.on("error", (err) => console.error("job queue worker:", err.message));
   return {
     worker,
     close: async () => {
@@ -152,59 +175,14 @@ export function startQueueWorker(opts: QueueWorkerOptions = {}): QueueWorker {
 }
 
 /** A place in this worker's own pool, waiting for one when every local thread is busy. */
-async function localSlot() {
+async function localSlot(organisationId: number): Promise<Slot> {
   for (;;) {
     try {
-      return getJobPool().reserve();
+      return getJobPool().reserve(organisationId);
     } catch (err) {
       if (!(err instanceof QueueFullError)) throw err;
       await new Promise((r) => setTimeout(r, RETRY_DELAY_MS));
     }
-  }
-}
-
-/** Takes the calibration (if it still waits, or its worker died) and fits it in the local pool. */
-async function calibrateOne(data: CalibrationJobData): Promise<void> {
-  const { Calibration } = getModels();
-  const before = await Calibration.findByPk(data.calibrationId, { attributes: ["id", "status", "runner"] });
-  if (!before) return;
-  const takeOver = before.status === "running" && before.runner !== QUEUE_RUNNER && !runnerMayBeAlive(before.runner);
-  if (before.status !== "queued" && !takeOver) return;
-  const [taken] = await Calibration.update(
-    { runner: RUNNER_ID },
-    { where: { id: data.calibrationId, status: before.status, runner: before.runner ?? { [Op.is]: null } } },
-  );
-  if (!taken) return;
-  const cal = await Calibration.scope("withInputs").findByPk(data.calibrationId);
-  if (!cal) return;
-  await dispatchCalibration(cal, await localSlot());
-}
-
-/** Takes the run (if it still waits), runs it in the local pool, and stops it when its row is cancelled. */
-async function runOne(data: RunJobData): Promise<void> {
-  const { Run } = getModels();
-  // A job whose run was cancelled or finished meanwhile is dropped; a run whose worker died is taken over.
-  const before = await Run.findByPk(data.runId, { attributes: ["id", "status", "runner"] });
-  if (!before) return;
-  const takeOver = before.status === "running" && before.runner !== QUEUE_RUNNER && !runnerMayBeAlive(before.runner);
-  if (before.status !== "queued" && !takeOver) return;
-  const [taken] = await Run.update(
-    { runner: RUNNER_ID },
-    { where: { id: data.runId, status: before.status, runner: before.runner ?? { [Op.is]: null } } },
-  );
-  if (!taken) return;
-  const run = await Run.findByPk(data.runId);
-  if (!run) return;
-  const done = dispatchRun(run, data.solver, await localSlot());
-  const poll = setInterval(() => {
-    void Run.findByPk(data.runId, { attributes: ["id", "status"] }).then((r) => {
-      if (!r || r.status === "cancelled") void abortRun(data.runId);
-    });
-  }, CANCEL_POLL_MS);
-  try {
-    await done;
-  } finally {
-    clearInterval(poll);
   }
 }
 

@@ -42,7 +42,7 @@ function addresses(a: AddressObject | AddressObject[] | undefined): string[] {
 /**
  * A local stand-in for a mail provider: accepts every message over SMTP on loopback (no TLS, no auth),
  * keeps it in memory and in `dir/messages.json`, and serves the list over HTTP:
- * `GET /messages` (newest first) and `DELETE /messages`.
+ * `GET /messages` (newest first) and `DELETE /messages` (`?id=…` repeated: only those).
  */
 export async function startMailFake(opts: MailFakeOptions): Promise<MailFake> {
   const host = opts.host ?? "127.0.0.1";
@@ -100,7 +100,9 @@ export async function startMailFake(opts: MailFakeOptions): Promise<MailFake> {
     };
     if (url.pathname === "/messages" && req.method === "GET") return send(200, messages);
     if (url.pathname === "/messages" && req.method === "DELETE") {
-      messages = [];
+      // ?id=…&id=… deletes those messages only; no id deletes all.
+      const ids = new Set(url.searchParams.getAll("id"));
+      messages = ids.size ? messages.filter((m) => !ids.has(m.id)) : [];
       persist().then(
         () => send(200, { deleted: true }),
         (err: Error) => send(500, { error: err.message }),

@@ -1,7 +1,7 @@
 import { Op } from "sequelize";
 import { getModels, type Models } from "@/models";
 import { ACTIVE_RUN_STATUSES } from "./status";
-import { runnerMayBeAlive } from "./runner-id";
+import { runnerMayBeAlive } from "@/lib/jobs/runner-id";
 
 export const INTERRUPTED_MESSAGE = "The run was interrupted by a restart of the server; start it again.";
 
@@ -9,6 +9,7 @@ export const INTERRUPTED_MESSAGE = "The run was interrupted by a restart of the 
  * Marks failed every queued or running run whose owning process is gone (a server restart or crash).
  * Runs are not re-queued: a restart may come from a run that brought the server down, and the person
  * who started it should decide. Runs of a live process (another test process, the server) stay as they are.
+ * Called at server start (lib/engine/startup.ts).
  */
 export async function recoverInterruptedRuns(models: Pick<Models, "Run"> = getModels()): Promise<number> {
   const { Run } = models;
@@ -29,18 +30,4 @@ export async function recoverInterruptedRuns(models: Pick<Models, "Run"> = getMo
     { where: { id: { [Op.in]: dead }, status: { [Op.in]: [...ACTIVE_RUN_STATUSES] } } },
   );
   return count;
-}
-
-const state = globalThis as unknown as { tautlineRunsRecovered?: Promise<number> };
-
-/** Recovery once per process, before this process runs its first job. */
-export function recoverOnce(): Promise<number> {
-  if (!state.tautlineRunsRecovered) {
-    state.tautlineRunsRecovered = recoverInterruptedRuns().catch((err) => {
-      console.error("could not mark interrupted runs", err);
-      state.tautlineRunsRecovered = undefined;
-      return 0;
-    });
-  }
-  return state.tautlineRunsRecovered;
 }

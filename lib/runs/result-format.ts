@@ -125,14 +125,15 @@ export class ResultFormatError extends Error {
   }
 }
 
-/** Unpacks a blob made by encodeResult. */
-export function decodeResult(blob: Uint8Array, options: DecodeOptions = {}): unknown {
-  let raw: Buffer;
-  try {
-    raw = gunzipSync(blob);
-  } catch {
-    throw new ResultFormatError("The stored result is not gzip data.");
-  }
+/** The unzipped container: its tree (with `{ $array: i }` references) and each array as a typed array. */
+export interface ResultContainer {
+  value: unknown;
+  dtype(i: number): Dtype;
+  array(i: number): NumericArray;
+}
+
+/** Reads an unzipped container (checks the magic, the format and every array's bounds as it is read). */
+export function openContainer(raw: Buffer): ResultContainer {
   if (raw.byteLength < 8 || raw.toString("latin1", 0, 4) !== MAGIC) {
     throw new ResultFormatError(`The stored result does not start with ${MAGIC}.`);
   }
@@ -140,35 +141,71 @@ export function decodeResult(blob: Uint8Array, options: DecodeOptions = {}): unk
   const header = JSON.parse(raw.toString("utf8", 8, 8 + headerLength)) as Header;
   if (header.format !== RESULT_FORMAT) throw new ResultFormatError(`Unknown result format ${String(header.format)}.`);
   const dataStart = align8(8 + headerLength);
+  const entry = (i: number) => {
+    const e = header.arrays[i];
+    if (!e) throw new ResultFormatError(`Array reference ${i} is missing.`);
+    return e;
+  };
+  return {
+    value: header.value,
+    dtype: (i) => entry(i).dtype,
+    array: (i) => {
+      const e = entry(i);
+      const start = dataStart + e.offset;
+      const byteLength = e.length * BYTES[e.dtype];
+      if (start + byteLength > raw.byteLength) throw new ResultFormatError("The stored result is truncated.");
+      // Copy into a fresh, aligned buffer: the gunzipped Buffer may sit at any offset of a shared pool.
+      const copy = new Uint8Array(byteLength);
+      copy.set(raw.subarray(start, start + byteLength));
+      const typed = { f32: Float32Array, f64: Float64Array, i32: Int32Array, u32: Uint32Array, u8: Uint8Array }[e.dtype];
+      return new typed(copy.buffer) as NumericArray;
+    },
+  };
+}
+
+/** An array reference of the container's tree, or null. */
+export function arrayRef(v: unknown): number | null {
+  if (!v || typeof v !== "object" || Array.isArray(v)) return null;
+  const o = v as Record<string, unknown>;
+  return typeof o.$array === "number" && Object.keys(o).length === 1 ? o.$array : null;
+}
+
+/** A stored f32 value as JSON shows it: rounded to `digits` significant digits (the f32 noise dropped). */
+export function roundF32(x: number, digits = 7): number {
+  return Number(x.toPrecision(digits));
+}
+
+export function gunzipResult(blob: Uint8Array): Buffer {
+  try {
+    return gunzipSync(blob);
+  } catch {
+    throw new ResultFormatError("The stored result is not gzip data.");
+  }
+}
+
+/** Unpacks a blob made by encodeResult. */
+export function decodeResult(blob: Uint8Array, options: DecodeOptions = {}): unknown {
+  const c = openContainer(gunzipResult(blob));
   const plain = options.arrays === "plain";
   const digits = options.significantDigits ?? 7;
 
   const materialise = (i: number): unknown => {
-    const e = header.arrays[i];
-    if (!e) throw new ResultFormatError(`Array reference ${i} is missing.`);
-    const start = dataStart + e.offset;
-    const byteLength = e.length * BYTES[e.dtype];
-    if (start + byteLength > raw.byteLength) throw new ResultFormatError("The stored result is truncated.");
-    // Copy into a fresh, aligned buffer: the gunzipped Buffer may sit at any offset of a shared pool.
-    const copy = new Uint8Array(byteLength);
-    copy.set(raw.subarray(start, start + byteLength));
-    const typed = { f32: Float32Array, f64: Float64Array, i32: Int32Array, u32: Uint32Array, u8: Uint8Array }[e.dtype];
-    const arr = new typed(copy.buffer) as NumericArray;
+    const arr = c.array(i);
     if (!plain) return arr;
     const list = Array.from(arr);
-    return e.dtype === "f32" ? list.map((x) => Number(x.toPrecision(digits))) : list;
+    return c.dtype(i) === "f32" ? list.map((x) => roundF32(x, digits)) : list;
   };
 
   const walk = (v: unknown): unknown => {
     if (Array.isArray(v)) return v.map(walk);
     if (v && typeof v === "object") {
-      const o = v as Record<string, unknown>;
-      if (typeof o.$array === "number" && Object.keys(o).length === 1) return materialise(o.$array);
+      const ref = arrayRef(v);
+      if (ref !== null) return materialise(ref);
       const out: Record<string, unknown> = {};
-      for (const [k, x] of Object.entries(o)) out[k] = walk(x);
+      for (const [k, x] of Object.entries(v)) out[k] = walk(x);
       return out;
     }
     return v;
   };
-  return walk(header.value);
+  return walk(c.value);
 }

@@ -2,7 +2,7 @@ import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
 import { getJobPool, type Slot } from "@/lib/jobs/pool";
-import type { SimulationOutcome } from "@/lib/jobs/protocol";
+import type { SimulationOutcome, SimulationTask } from "@/lib/engine/protocol";
 import { persistFinal, trackJob } from "@/lib/jobs/tracking";
 import { runConfig } from "./config";
 import { ACTIVE_RUN_STATUSES, type RunStatus } from "./status";
@@ -108,9 +108,9 @@ export function dispatchRun(run: Pick<Run, "id" | "inputs">, solver: SolverSetti
 
   const done = (async () => {
     try {
-      const outcome = await getJobPool().simulate(
+      const outcome = await getJobPool().run<SimulationOutcome, SimulationTask>(
         { runId: run.id, scenario: run.inputs, frameBudget: solver.frameBudget, budgetMs: solver.budgetSeconds * 1000 },
-        { signal: controller.signal, onMessage },
+        { organisationId: slot.organisationId, signal: controller.signal, onMessage },
       );
       await tracking.written();
       await persistFinal(() => storeOutcome(run.id, outcome));

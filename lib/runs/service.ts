@@ -9,11 +9,11 @@ import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { runConfig } from "./config";
 import { decodeResult } from "./result-format";
+import { resultJsonStream } from "./result-stream";
 import { abortRun, type SolverSettings } from "./runner";
-import { dispatchJob } from "@/lib/jobs/dispatch";
+import { dispatchRunJob, removeQueuedRun } from "./queue";
 import { assertRunNotFrozen } from "@/lib/review/freeze";
-import { RUNNER_ID } from "./runner-id";
-import { recoverOnce } from "./recover";
+import { RUNNER_ID } from "@/lib/jobs/runner-id";
 import { RUN_OVERRIDE_KEYS, RUN_SECTION_OVERRIDES, type ListRunsQuery, type StartRunInput } from "./schema";
 import { applyOverrides, overridableValues } from "./overrides";
 import { ACTIVE_RUN_STATUSES, isFinished } from "./status";
@@ -64,9 +64,9 @@ export async function resolveRunInputs(
   };
 }
 
-function reserveSlot(): Slot {
+function reserveSlot(organisationId: number): Slot {
   try {
-    return getJobPool().reserve();
+    return getJobPool().reserve(organisationId);
   } catch (err) {
     if (err instanceof QueueFullError) {
       throw unavailable("Every run worker is busy and the queue is full; try again shortly.", err.retryAfterSeconds);
@@ -80,13 +80,12 @@ function reserveSlot(): Slot {
  * stores the run as queued with its audit entry, and hands it to the pool. Answers at once.
  */
 export async function startRun(user: Actor, scenarioId: number, body: StartRunInput): Promise<RunView> {
-  await recoverOnce();
   const { scenarioId: sid, liftRevisionId, inputs, overrides, overridesFrom } = await resolveRunInputs(user, scenarioId, body);
   const solver: SolverSettings = {
     budgetSeconds: body.budgetSeconds ?? runConfig().defaultBudgetSeconds,
     ...(body.frameBudget !== undefined ? { frameBudget: body.frameBudget } : {}),
   };
-  const slot = reserveSlot();
+  const slot = reserveSlot(user.organisationId);
   let run: Run;
   try {
     const { Run } = getModels();
@@ -122,7 +121,7 @@ export async function startRun(user: Actor, scenarioId: number, body: StartRunIn
     throw err;
   }
   // Pool by default; BullMQ on Redis when REDIS_URL is set (lib/jobs/dispatch.ts).
-  void dispatchJob(run, solver, slot).catch((err) => console.error(`run ${run.id}: could not queue`, err));
+  void dispatchRunJob(run, solver, slot).catch((err) => console.error(`run ${run.id}: could not queue`, err));
   return toRunView(run);
 }
 
@@ -140,7 +139,6 @@ export async function findOwnRun(user: Actor, runId: number, opts: { withResult?
 }
 
 export async function getRun(user: Actor, runId: number): Promise<RunView> {
-  await recoverOnce();
   return toRunView(await findOwnRun(user, runId), { inputs: true });
 }
 
@@ -163,7 +161,6 @@ const STUDY_RUN_IDS = "(SELECT sc.run_id FROM study_cases sc WHERE sc.run_id IS 
 
 export async function listRuns(user: Actor, scenarioId: number, q: Omit<ListRunsQuery, "source"> & Partial<Pick<ListRunsQuery, "source">>): Promise<RunPage> {
   const { Run } = getModels();
-  await recoverOnce();
   await assertOwnScenario(user, scenarioId);
   const bySource =
     q.source === "own"
@@ -227,6 +224,8 @@ export async function cancelRun(user: Actor, runId: number): Promise<RunView> {
   });
   // Stop the worker (ends its thread if the task is running, drops it if it waits).
   await abortRun(run.id);
+  // A job still waiting in Redis leaves the queue now (one taken by a worker sees the cancel itself).
+  if (changed) await removeQueuedRun(run);
   const fresh = await findOwnRun(user, run.id);
   if (!changed && fresh.status !== "cancelled") throw conflict(`The run is already ${fresh.status}.`);
   return toRunView(fresh);
@@ -303,6 +302,12 @@ export async function getRunResultBlob(user: Actor, runId: number): Promise<{ ru
     throw new HttpError(409, run.status === "done" ? "This run stored no result." : `The run is ${run.status}; it has no result yet.`);
   }
   return { run, blob: run.result };
+}
+
+/** The JSON of getRunResult as a stream (lib/runs/result-stream.ts): what the download route answers. */
+export async function getRunResultStream(user: Actor, runId: number): Promise<ReadableStream<Uint8Array>> {
+  const { run, blob } = await getRunResultBlob(user, runId);
+  return resultJsonStream(run, blob);
 }
 
 export async function getRunResult(user: Actor, runId: number): Promise<RunResult> {

@@ -11,9 +11,11 @@ import type { Study } from "@/models/Study";
 import type { StudyCase } from "@/models/StudyCase";
 import type { Scenario as EngineScenario } from "@/sim/schema";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
-import { dispatchJob, jobMode, orgConcurrency, QUEUE_RUNNER } from "@/lib/jobs/dispatch";
+import { jobMode, orgConcurrency, QUEUE_RUNNER } from "@/lib/jobs/dispatch";
+import { OrgLimiter } from "@/lib/jobs/org-limiter";
+import { dispatchRunJob } from "@/lib/runs/queue";
 import type { SolverSettings } from "@/lib/runs/runner";
-import { RUNNER_ID } from "@/lib/runs/runner-id";
+import { RUNNER_ID } from "@/lib/jobs/runner-id";
 import { caseScenario, type ChainValues, type TrainMasses } from "./cases";
 import { settleCase, refreshStudy } from "./progress";
 
@@ -66,32 +68,17 @@ export async function createCaseRun(study: Study, c: StudyCase, runner: string):
   });
 }
 
-// ---- per-organisation limit inside this process (pool mode) ----
-
-const limiterState = globalThis as unknown as { tautlineOrgLimiter?: Map<number, { active: number; waiting: (() => void)[] }> };
-
-async function acquireOrg(organisationId: number): Promise<() => void> {
-  if (!limiterState.tautlineOrgLimiter) limiterState.tautlineOrgLimiter = new Map();
-  const map = limiterState.tautlineOrgLimiter;
-  let e = map.get(organisationId);
-  if (!e) map.set(organisationId, (e = { active: 0, waiting: [] }));
-  const entry = e;
-  if (entry.active >= orgConcurrency()) await new Promise<void>((resolve) => entry.waiting.push(resolve));
-  else entry.active += 1;
-  let released = false;
-  return () => {
-    if (released) return;
-    released = true;
-    const next = entry.waiting.shift();
-    if (next) next(); // hand the place straight on
-    else entry.active -= 1;
-  };
+// Per-organisation limit inside this process (pool mode): cases handed out at once.
+const limiterState = globalThis as unknown as { tautlineStudyOrgLimiter?: OrgLimiter };
+function acquireOrg(organisationId: number): Promise<() => void> {
+  limiterState.tautlineStudyOrgLimiter ??= new OrgLimiter(() => orgConcurrency());
+  return limiterState.tautlineStudyOrgLimiter.acquire(organisationId);
 }
 
-async function reserveWithWait(): Promise<Slot> {
+async function reserveWithWait(organisationId: number): Promise<Slot> {
   for (;;) {
     try {
-      return getJobPool().reserve();
+      return getJobPool().reserve(organisationId);
     } catch (err) {
       if (!(err instanceof QueueFullError)) throw err;
       await new Promise((r) => setTimeout(r, 250));
@@ -136,9 +123,9 @@ async function drivePool(studyId: number): Promise<void> {
       continue;
     }
     await StudyCase.update({ status: "running" }, { where: { id: next.id, status: "queued" } });
-    const slot = await reserveWithWait();
+    const slot = await reserveWithWait(study.organisationId);
     const caseId = next.id;
-    const p: Promise<void> = dispatchJob(run, storedSettings(study).solver, slot)
+    const p: Promise<void> = dispatchRunJob(run, storedSettings(study).solver, slot)
       .then(() => settleCase(caseId).then(() => undefined))
       .catch((err) => console.error(`study ${studyId} case ${caseId}:`, err))
       .finally(() => {
@@ -161,7 +148,7 @@ async function driveQueue(studyId: number): Promise<void> {
     const run = await createCaseRun(study, c, QUEUE_RUNNER);
     if (!run) continue;
     // Queue mode: the slot is not used (released by dispatchJob); a dummy keeps the call shape.
-    await dispatchJob(run, st.solver, { release() {} }, { studyCaseId: c.id });
+    await dispatchRunJob(run, st.solver, { organisationId: study.organisationId, release() {} }, { studyCaseId: c.id });
   }
   await refreshStudy(studyId);
 }

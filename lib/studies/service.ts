@@ -8,18 +8,19 @@ import type { Study } from "@/models/Study";
 import type { StudyCase } from "@/models/StudyCase";
 import { assertCan, ownOr404, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
-import { badRequest, conflict } from "@/lib/http/errors";
+import { conflict } from "@/lib/http/errors";
 import { fromZod } from "@/lib/http/errors";
 import { resolveRunInputs } from "@/lib/runs/service";
 import { runConfig } from "@/lib/runs/config";
 import { recoverInterruptedRuns } from "@/lib/runs/recover";
-import { runnerMayBeAlive, RUNNER_ID } from "@/lib/runs/runner-id";
-import { abortRun, type SolverSettings } from "@/lib/runs/runner";
+import { runnerMayBeAlive, RUNNER_ID } from "@/lib/jobs/runner-id";
+import { abortRun } from "@/lib/runs/runner";
+import { removeQueuedRun } from "@/lib/runs/queue";
 import { jobMode } from "@/lib/jobs/dispatch";
 import type { UnitSystem } from "@/sim/units";
-import { caseScenario, type ChainValues } from "./cases";
-import { createStudySchema, expandGrid, MAX_STUDY_CASES, type StudyParameter } from "./schema";
-import { driveStudy, storedSettings, type StoredStudySettings } from "./driver";
+import { createStudySchema, type StudyParameter } from "./schema";
+import { planStudy } from "./plan";
+import { driveStudy, storedSettings } from "./driver";
 import { settleOpenCases, refreshStudy } from "./progress";
 import { operatingWindow, type OperatingWindow, type ValueNamer } from "./window";
 
@@ -134,58 +135,21 @@ export async function createStudy(actor: Actor, raw: unknown): Promise<StudyView
   const parsed = createStudySchema.safeParse(raw);
   if (!parsed.success) throw fromZod(parsed.error, "The study has invalid fields.");
   const body = parsed.data;
-  await recoverStudiesOnce();
   const { ChainSpec, Train, Scenario, Study, StudyCase } = getModels();
-  const { settings } = body;
-  const { requireNoArdCatch, frameBudget, budgetSeconds, ...runOverrides } = settings;
-  const resolved = await resolveRunInputs(actor, body.scenarioId, runOverrides);
+  // Only the settings of the scenario's run section apply to the base scenario (resolveRunInputs picks them).
+  const resolved = await resolveRunInputs(actor, body.scenarioId, body.settings);
   const scenario = await Scenario.findByPk(resolved.scenarioId);
   const train = await Train.findByPk(scenario!.trainId);
-
   const chainIds = body.parameters.flatMap((p) => (p.key === "chainSpec" ? p.values : []));
   const chainRows = chainIds.length ? await ChainSpec.findAll({ where: { id: { [Op.in]: chainIds } } }) : [];
-  const chains: ChainValues[] = [];
-  for (const id of chainIds) {
-    const row = chainRows.find((r) => r.id === id);
-    if (!row || (row.organisationId !== null && row.organisationId !== actor.organisationId)) {
-      throw badRequest("The study names a chain that is not in the catalogue.", [
-        { path: `parameters.${body.parameters.findIndex((p) => p.key === "chainSpec")}.values`, message: `chain ${id} is not in the catalogue` },
-      ]);
-    }
-    chains.push({
-      id: row.id,
-      designation: row.designation,
-      pitch: row.pitch,
-      massPerLength: row.massPerLength,
-      axialStiffness: row.axialStiffness,
-      breakingStrength: row.breakingStrength,
-    });
-  }
-
-  const grid = expandGrid(body.parameters);
-  if (grid.length > MAX_STUDY_CASES) {
-    throw badRequest(`The study has ${grid.length} cases; at most ${MAX_STUDY_CASES} are allowed.`, [
-      { path: "parameters", message: `${grid.length} cases is more than ${MAX_STUDY_CASES}` },
-    ]);
-  }
-  const solver: SolverSettings = {
-    budgetSeconds: budgetSeconds ?? runConfig().defaultBudgetSeconds,
-    ...(frameBudget !== undefined ? { frameBudget } : {}),
-  };
-  const stored: StoredStudySettings = {
-    requireNoArdCatch,
-    solver,
+  const { grid, stored } = planStudy({
+    body,
+    organisationId: actor.organisationId,
     base: resolved.inputs,
-    chains,
     train: { carMassEmpty: train!.carMassEmpty, seatsPerCar: train!.seatsPerCar, riderMass: train!.riderMass },
-  };
-  // Every case must make a valid engine scenario before anything is stored.
-  const ctx = { chains: new Map(chains.map((c) => [c.id, c])), train: stored.train };
-  const issues = grid.flatMap((values, i) => {
-    const r = caseScenario(resolved.inputs, values, ctx);
-    return r.ok ? [] : r.issues.map((iss) => ({ path: `cases.${i}.${iss.path}`, message: `${iss.message} (case ${JSON.stringify(values)})` }));
+    chainRows,
+    defaultBudgetSeconds: runConfig().defaultBudgetSeconds,
   });
-  if (issues.length) throw badRequest("Some cases of the study would not make a valid scenario.", issues.slice(0, 20));
 
   const study = await Study.sequelize!.transaction(async (transaction) => {
     const s = await Study.create(
@@ -242,7 +206,6 @@ async function findOwnStudy(actor: Actor, id: number): Promise<Study> {
 
 export async function getStudy(actor: Actor, id: number, opts: { units?: UnitSystem } = {}): Promise<StudyView> {
   assertCan(actor, "study:read");
-  await recoverStudiesOnce();
   let study = await findOwnStudy(actor, id);
   if (study.status === "running" || study.status === "queued") {
     await settleOpenCases(study.id);
@@ -254,7 +217,6 @@ export async function getStudy(actor: Actor, id: number, opts: { units?: UnitSys
 
 export async function listStudies(actor: Actor, q: { scenarioId?: number; page: number; pageSize: number }) {
   assertCan(actor, "study:read");
-  await recoverStudiesOnce();
   const { Study } = getModels();
   const { rows, count } = await Study.findAndCountAll({
     where: { organisationId: actor.organisationId, ...(q.scenarioId ? { scenarioId: q.scenarioId } : {}) },
@@ -292,10 +254,7 @@ export async function cancelStudy(actor: Actor, id: number): Promise<StudyView> 
     await recordAudit({ transaction, actor, entity: "study", entityId: id, action: "update", before: { status: study.status }, after: { status: "cancelled" } });
   });
   for (const runId of runIds) await abortRun(runId);
-  if (jobMode() === "queue" && runIds.length) {
-    const { removeQueuedRun } = await import("@/lib/jobs/bullmq");
-    for (const runId of runIds) await removeQueuedRun(runId);
-  }
+  for (const runId of runIds) await removeQueuedRun({ id: runId, organisationId: study.organisationId });
   await refreshStudy(id);
   return getStudy(actor, id);
 }
@@ -313,7 +272,6 @@ async function requeueOpenCases(studyId: number): Promise<number> {
 export async function resumeStudy(actor: Actor, id: number): Promise<StudyView> {
   assertCan(actor, "study:run");
   const { Study } = getModels();
-  await recoverStudiesOnce();
   const study = await findOwnStudy(actor, id);
   const driverGone = study.status === "running" && study.mode === "pool" && !runnerMayBeAlive(study.driver);
   if (study.status === "done" && study.casesFailed === 0) throw conflict("Every case of this study has finished.");
@@ -334,6 +292,7 @@ export async function resumeStudy(actor: Actor, id: number): Promise<StudyView> 
 /**
  * After a restart: studies driven by a process that is gone continue in this one, keeping every
  * finished case (cases whose run was interrupted are queued again). Queue-mode studies need no driver.
+ * Called at server start (lib/engine/startup.ts).
  */
 export async function recoverStudies(): Promise<number> {
   const { Study } = getModels();
@@ -350,22 +309,4 @@ export async function recoverStudies(): Promise<number> {
     n += 1;
   }
   return n;
-}
-
-const recoverState = globalThis as unknown as { tautlineStudiesRecovered?: Promise<number> };
-
-export function recoverStudiesOnce(): Promise<number> {
-  if (!recoverState.tautlineStudiesRecovered) {
-    recoverState.tautlineStudiesRecovered = recoverStudies().catch((err) => {
-      console.error("could not resume interrupted studies", err);
-      recoverState.tautlineStudiesRecovered = undefined;
-      return 0;
-    });
-  }
-  return recoverState.tautlineStudiesRecovered;
-}
-
-/** For tests: forget that recovery ran in this process. */
-export function resetStudyRecovery(): void {
-  recoverState.tautlineStudiesRecovered = undefined;
 }

@@ -3,7 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { designStatics, parseScenario, simulate, type Scenario } from "@/sim";
 import { getModels } from "@/models";
 import { closeJobPool, getJobPool } from "@/lib/jobs/pool";
-import { closeRunQueue, startQueueWorker, type QueueWorker } from "@/lib/jobs/bullmq";
+import { closeRunQueue } from "@/lib/jobs/bullmq";
+import { startEngineWorker, type QueueWorker } from "@/lib/engine/queue-worker";
 import { QUEUE_RUNNER } from "@/lib/jobs/dispatch";
 import { startRun } from "@/lib/runs/service";
 import { createRecording, listRecordings } from "@/lib/recordings/service";
@@ -217,7 +218,7 @@ describe("calibration as a job", () => {
       expect(waiting.status).toBe("queued");
       const { Calibration } = getModels();
       await expect.poll(async () => (await Calibration.findByPk(view.id))?.runner).toBe(QUEUE_RUNNER);
-      worker = startQueueWorker({ concurrency: 1 });
+      worker = startEngineWorker({ concurrency: 1 });
       const done = await waitForState(view.id, (c) => c.status === "done" || c.status === "failed");
       expect(done.status).toBe("done");
       // Source: self-consistency with the engine, as above.

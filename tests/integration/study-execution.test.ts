@@ -3,13 +3,13 @@ import os from "node:os";
 import { getModels } from "@/models";
 import { simulate } from "@/sim/simulate";
 import { closeJobPool } from "@/lib/jobs/pool";
-import { closeRunQueue, startQueueWorker, type QueueWorker } from "@/lib/jobs/bullmq";
-import { cancelStudy, createStudy, recoverStudies, resumeStudy } from "@/lib/studies/service";
+import { closeRunQueue } from "@/lib/jobs/bullmq";
+import { startEngineWorker, type QueueWorker } from "@/lib/engine/queue-worker";
+import { cancelStudy, createStudy, getStudy, recoverStudies, resumeStudy } from "@/lib/studies/service";
 import { waitForStudyDriver } from "@/lib/studies/driver";
 import { caseScenario } from "@/lib/studies/cases";
 import { judgeCase } from "@/lib/studies/headline";
 import { operatingWindow } from "@/lib/studies/window";
-import { settleCaseOfJob } from "@/lib/studies/progress";
 import { storedSettings } from "@/lib/studies/driver";
 import type { StudyParameter } from "@/lib/studies/schema";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
@@ -18,6 +18,33 @@ import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
 let engineer: Actor;
+
+// The heavy tests run dozens of engine cases on a shared machine: they say how long they may take, and
+// every wait inside them stays below that.
+const LONG = 150_000;
+const WAIT = 140_000;
+
+/** Pool mode: the study's driver in this process ends when every case has finished (an event, not a poll). */
+async function poolStudyDone(actor: Actor, id: number) {
+  await waitForStudyDriver(id);
+  return getStudy(actor, id);
+}
+
+/** Most runs that were running at the same moment, from their stored start and end times. */
+function peakOverlap(runs: { startedAt: Date | null; finishedAt: Date | null }[]): number {
+  const edges = runs
+    .filter((r) => r.startedAt && r.finishedAt)
+    .flatMap((r) => [
+      { t: r.startedAt!.getTime(), d: 1 },
+      { t: r.finishedAt!.getTime(), d: -1 },
+    ])
+    // At the same millisecond an end comes before a start: touching is not overlapping.
+    .sort((a, b) => a.t - b.t || a.d - b.d);
+  let now = 0;
+  let peak = 0;
+  for (const e of edges) peak = Math.max(peak, (now += e.d));
+  return peak;
+}
 
 // 11 entry speeds × 2 loadings = 22 cases.
 const GRID: StudyParameter[] = [
@@ -57,15 +84,15 @@ async function caseRunsSummaries(studyId: number) {
 describe("a 22-case study through both execution modes", () => {
   let poolStudyId = 0;
 
-  it("runs every case in the worker-thread pool, with progress and a window", async () => {
+  it("runs every case in the worker-thread pool, with progress and a window", { timeout: LONG }, async () => {
     const { scenarioId } = await studyScenario(engineer, "Study: pool mode");
     const created = await createStudy(engineer, { scenarioId, name: "Entry speed × loading (pool)", parameters: GRID });
     expect(created.casesTotal).toBe(22);
     expect(created.mode).toBe("pool");
     poolStudyId = created.id;
-    const partial = await waitForStudy(engineer, created.id, (s) => s.casesDone >= 1);
+    const partial = await waitForStudy(engineer, created.id, (s) => s.casesDone >= 1, WAIT);
     expect(partial.cases!.some((c) => c.status === "done" && c.headline)).toBe(true); // partial results are visible
-    const done = await waitForStudy(engineer, created.id, finishedStudy);
+    const done = await poolStudyDone(engineer, created.id);
     expect(done.status).toBe("done");
     expect(done.casesDone + done.casesFailed).toBe(22);
     expect(done.casesDone).toBe(22);
@@ -73,18 +100,18 @@ describe("a 22-case study through both execution modes", () => {
     expect(done.window!.text.length).toBeGreaterThan(10);
   });
 
-  it("gives identical figures through BullMQ on Redis", async () => {
+  it("gives identical figures through BullMQ on Redis", { timeout: LONG }, async () => {
     const redisUrl = process.env.TEST_REDIS_URL;
     expect(redisUrl, "npm test starts redis-server and sets TEST_REDIS_URL").toBeTruthy();
     process.env.REDIS_URL = redisUrl;
     let worker: QueueWorker | null = null;
     try {
-      worker = startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob });
+      worker = startEngineWorker({ concurrency: 1 });
       const { StudyCase, Study } = getModels();
       const pool = await Study.findByPk(poolStudyId);
       const created = await createStudy(engineer, { scenarioId: pool!.scenarioId, name: "Entry speed × loading (queue)", parameters: GRID });
       expect(created.mode).toBe("queue");
-      const done = await waitForStudy(engineer, created.id, finishedStudy);
+      const done = await waitForStudy(engineer, created.id, finishedStudy, WAIT);
       expect(done.status).toBe("done");
       expect(done.casesDone).toBe(22);
       // Every case's run was taken by a worker from Redis, not by the in-process driver.
@@ -133,34 +160,26 @@ describe("a 22-case study through both execution modes", () => {
 });
 
 describe("per-organisation limits in the queue mode", () => {
-  it("never runs more of one organisation's jobs at once than JOB_ORG_CONCURRENCY, with two workers", async () => {
+  it("never runs more of one organisation's jobs at once than JOB_ORG_CONCURRENCY, with two workers", { timeout: LONG }, async () => {
     process.env.REDIS_URL = process.env.TEST_REDIS_URL;
     process.env.JOB_ORG_CONCURRENCY = "1";
     // Two engine threads, so two jobs could run at once if the limit let them.
     await closeJobPool();
     process.env.JOB_WORKERS = "2";
     const workers: QueueWorker[] = [];
-    let peak = 0;
-    let sampling = true;
     try {
-      workers.push(startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob }), startQueueWorker({ concurrency: 1, onFinished: settleCaseOfJob }));
+      workers.push(startEngineWorker({ concurrency: 1 }), startEngineWorker({ concurrency: 1 }));
       const { scenarioId } = await studyScenario(engineer, "Study: organisation limit");
       const created = await createStudy(engineer, { scenarioId, name: "Limited", parameters: [{ key: "takeUpMass", values: [4000, 4500, 5000, 5500, 6000] }] });
       const { Run, StudyCase } = getModels();
-      const sampler = (async () => {
-        while (sampling) {
-          const ids = (await StudyCase.findAll({ where: { studyId: created.id }, attributes: ["runId"] })).map((c) => c.runId!).filter(Boolean);
-          peak = Math.max(peak, await Run.count({ where: { id: ids, status: "running" } }));
-          await new Promise((r) => setTimeout(r, 20));
-        }
-      })();
-      const done = await waitForStudy(engineer, created.id, finishedStudy);
-      sampling = false;
-      await sampler;
+      const done = await waitForStudy(engineer, created.id, finishedStudy, WAIT);
+      // Each case run's stored start and end: no two overlap in time.
+      const ids = (await StudyCase.findAll({ where: { studyId: created.id }, attributes: ["runId"] })).map((c) => c.runId!);
+      const runs = await Run.findAll({ where: { id: ids }, attributes: ["id", "startedAt", "finishedAt"] });
+      const peak = peakOverlap(runs);
       expect(done.casesDone).toBe(5);
       expect(peak).toBeLessThanOrEqual(1);
     } finally {
-      sampling = false;
       delete process.env.REDIS_URL;
       delete process.env.JOB_ORG_CONCURRENCY;
       for (const w of workers) await w.close();
@@ -172,7 +191,7 @@ describe("per-organisation limits in the queue mode", () => {
 });
 
 describe("cancel and resume", () => {
-  it("cancels a study, keeps its finished cases, and resumes the rest", async () => {
+  it("cancels a study, keeps its finished cases, and resumes the rest", { timeout: LONG }, async () => {
     const { scenarioId } = await studyScenario(engineer, "Study: cancel and resume");
     const created = await createStudy(engineer, {
       scenarioId,
@@ -180,7 +199,7 @@ describe("cancel and resume", () => {
       parameters: [{ key: "entrySpeed", range: { from: 0.5, to: 5.25, step: 0.25 } }],
     });
     expect(created.casesTotal).toBe(20);
-    await waitForStudy(engineer, created.id, (s) => s.casesDone >= 3);
+    await waitForStudy(engineer, created.id, (s) => s.casesDone >= 3, WAIT);
     const cancelled = await cancelStudy(engineer, created.id);
     expect(cancelled.status).toBe("cancelled");
     await waitForStudyDriver(created.id);
@@ -192,7 +211,7 @@ describe("cancel and resume", () => {
 
     const resumed = await resumeStudy(engineer, created.id);
     expect(["queued", "running"]).toContain(resumed.status);
-    const done = await waitForStudy(engineer, created.id, finishedStudy);
+    const done = await poolStudyDone(engineer, created.id);
     expect(done.status).toBe("done");
     expect(done.casesDone).toBe(20);
     // The finished cases kept their runs: nothing was run twice.
@@ -200,14 +219,14 @@ describe("cancel and resume", () => {
     for (const [id, runId] of kept) expect(after.get(id!)).toBe(runId);
   });
 
-  it("resumes a study whose driving process died, keeping the finished cases", async () => {
+  it("resumes a study whose driving process died, keeping the finished cases", { timeout: LONG }, async () => {
     const { scenarioId } = await studyScenario(engineer, "Study: restart");
     const created = await createStudy(engineer, {
       scenarioId,
       name: "Restart me",
       parameters: [{ key: "takeUpMass", values: [4000, 4500, 5000, 5500, 6000, 6500] }],
     });
-    await waitForStudy(engineer, created.id, (s) => s.casesDone >= 2);
+    await waitForStudy(engineer, created.id, (s) => s.casesDone >= 2, WAIT);
     const stopped = await cancelStudy(engineer, created.id);
     await waitForStudyDriver(created.id);
     const kept = stopped.cases!.filter((c) => c.status === "done").map((c) => [c.id, c.runId]);
@@ -222,7 +241,7 @@ describe("cancel and resume", () => {
       await StudyCase.update({ status: c.runId ? "running" : "queued" }, { where: { id: c.id } });
     }
     expect(await recoverStudies()).toBeGreaterThanOrEqual(1);
-    const done = await waitForStudy(engineer, created.id, finishedStudy);
+    const done = await poolStudyDone(engineer, created.id);
     expect(done.status).toBe("done");
     expect(done.casesDone).toBe(6);
     const after = new Map(done.cases!.map((c) => [c.id, c.runId]));

@@ -11,7 +11,11 @@ export async function studyScenario(actor: Actor, name: string) {
   return ids;
 }
 
-export async function waitForStudy(actor: Actor, id: number, pred: (s: StudyView) => boolean, timeoutMs = 90_000): Promise<StudyView> {
+/**
+ * Reads the study (as a client would) until `pred` holds. The default wait stays inside vitest's 60 s test
+ * limit, so a stuck study fails with its state rather than a bare timeout; longer tests pass their own.
+ */
+export async function waitForStudy(actor: Actor, id: number, pred: (s: StudyView) => boolean, timeoutMs = 50_000): Promise<StudyView> {
   const until = Date.now() + timeoutMs;
   for (;;) {
     const s = await getStudy(actor, id);

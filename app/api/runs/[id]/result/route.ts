@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { route } from "@/lib/http/route";
 import { parseQuery } from "@/lib/http/request";
 import { requirePermission } from "@/lib/auth/session";
-import { getRunResult, getRunResultBlob } from "@/lib/runs/service";
+import { getRunResultBlob, getRunResultStream } from "@/lib/runs/service";
 import { resultQuerySchema } from "@/lib/runs/schema";
 import { parseId } from "@/lib/http/ids";
 import type { RouteContext } from "@/lib/http/params";
@@ -13,6 +13,7 @@ export const dynamic = "force-dynamic";
 /**
  * The result of a finished run. Default: JSON { runId, format, summary, result: { series, frames, notes } }.
  * `?format=binary` (or Accept: application/octet-stream): the stored gzipped tautline-result/1 blob.
+ * The JSON is streamed in slices (lib/runs/result-stream.ts): a 20 MB answer never holds the server.
  */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
@@ -30,5 +31,7 @@ export const GET = route<RouteContext>(async (req, ctx) => {
       },
     });
   }
-  return NextResponse.json(await getRunResult(user, runId), { headers: { "Cache-Control": "private, max-age=31536000, immutable" } });
+  return new Response(await getRunResultStream(user, runId), {
+    headers: { "Content-Type": "application/json", "Cache-Control": "private, max-age=31536000, immutable" },
+  });
 });

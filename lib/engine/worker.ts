@@ -1,6 +1,7 @@
 /**
- * Worker-thread entry: runs the engine for one run and packs its result, or runs one calibration fit.
- * Bundled into one .mjs file by lib/jobs/build-worker.mjs; piscina calls the default export once per task.
+ * Worker-thread entry of the job pool: runs the engine for one run and packs its result, or runs one
+ * calibration fit. Bundled into one .mjs file by lib/jobs/build-worker.mjs; piscina calls the default
+ * export once per task.
  */
 import os from "node:os";
 import { simulate } from "@/sim/simulate";
@@ -8,7 +9,8 @@ import { SimulationError } from "@/sim/errors";
 import type { Scenario } from "@/sim/schema";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
 import { calibrate } from "@/lib/calibration/fit";
-import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerMessage, WorkerTask } from "./protocol";
+import type { WorkerMessage } from "@/lib/jobs/protocol";
+import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerTask } from "./protocol";
 
 // Engine threads yield the CPU to the request thread: on Linux a thread's nice value is its own, so this
 // lowers only this worker thread (JOB_NICE, default 10; 0 keeps the normal priority). Where the platform
