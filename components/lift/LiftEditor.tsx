@@ -15,7 +15,8 @@ import { useList } from "@/lib/client/hooks";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { liftSchema } from "@/sim/schema";
 import { LiftPreview, type PreviewInput } from "./LiftPreview";
-import { CheckField, NumberField, Section } from "./NumberField";
+import { NumberInput } from "@/components/ui/NumberInput";
+import { CheckField, Section } from "@/components/ui/FormSection";
 import { getPath, setPath, type Draft, type FieldDef } from "./form-model";
 import {
   ARD_FIELDS,
@@ -131,7 +132,7 @@ export function LiftEditor({
   if (previewInput && previewInput !== lastPreview) setLastPreview(previewInput);
 
   const field = (def: FieldDef, extraDisabled = false) => (
-    <NumberField
+    <NumberInput
       key={`${def.path}-${units}`}
       def={def}
       units={units}

@@ -1,5 +1,5 @@
 /** Small helpers shared by the design forms: dotted paths into nested drafts, field definitions. */
-import type { Quantity } from "@/lib/client/units";
+import type { NumberFieldDef } from "@/components/ui/NumberInput";
 
 export type Draft = Record<string, unknown>;
 
@@ -26,16 +26,8 @@ export function setPath<T extends Draft>(obj: T, path: string, value: unknown): 
   return copy as T;
 }
 
-export interface FieldDef {
-  path: string;
-  label: string;
-  q: Quantity;
-  hint?: string;
-  /** May be left empty (absent in the data). */
-  optional?: boolean;
-  /** Whole numbers only (teeth, cars, seats). */
-  int?: boolean;
-}
+/** A numeric field of a design form (label, quantity, path in the draft). */
+export type FieldDef = NumberFieldDef;
 
 /** Field path → message, from zod issues (dotted paths, as the API answers them). */
 export function zodErrors(issues: ReadonlyArray<{ path: ReadonlyArray<PropertyKey>; message: string }>): Record<string, string> {

@@ -6,7 +6,8 @@ import { z } from "zod";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { Input, Select } from "@/components/ui/Field";
-import { NumberField, Section } from "@/components/lift/NumberField";
+import { NumberInput } from "@/components/ui/NumberInput";
+import { Section } from "@/components/ui/FormSection";
 import { getPath, setPath, zodErrors, type Draft, type FieldDef } from "@/components/lift/form-model";
 import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/types";
 import type { TrainJson } from "@/components/train/TrainEditor";
@@ -166,7 +167,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
           </Select>
         </div>
         {draft.loading === "riders" && (
-          <NumberField def={{ path: "riderCount", label: "Riders in the train", q: "count", int: true }} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
+          <NumberInput def={{ path: "riderCount", label: "Riders in the train", q: "count", int: true }} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
         )}
         <div>
           <label htmlFor="f-integrator" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Integrator</label>
@@ -177,7 +178,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
       </div>
       <Section title="Entry and run settings">
         {FIELDS.map((f) => (
-          <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
+          <NumberInput key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
         ))}
       </Section>
       {canWrite && (
