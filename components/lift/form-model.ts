@@ -28,13 +28,3 @@ export function setPath<T extends Draft>(obj: T, path: string, value: unknown): 
 
 /** A numeric field of a design form (label, quantity, path in the draft). */
 export type FieldDef = NumberFieldDef;
-
-/** Field path → message, from zod issues (dotted paths, as the API answers them). */
-export function zodErrors(issues: ReadonlyArray<{ path: ReadonlyArray<PropertyKey>; message: string }>): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const i of issues) {
-    const p = i.path.length ? i.path.map(String).join(".") : "(body)";
-    if (!(p in out)) out[p] = i.message;
-  }
-  return out;
-}

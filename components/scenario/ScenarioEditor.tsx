@@ -1,6 +1,6 @@
 "use client";
 /** Create or change a scenario: lift and pinned revision, train and loading, entry conditions, run settings. */
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { z } from "zod";
 import { Alert } from "@/components/ui/Alert";
@@ -8,10 +8,11 @@ import { Button } from "@/components/ui/Button";
 import { Input, Select } from "@/components/ui/Field";
 import { NumberInput } from "@/components/ui/NumberInput";
 import { Section } from "@/components/ui/FormSection";
-import { getPath, setPath, zodErrors, type Draft, type FieldDef } from "@/components/lift/form-model";
+import { getPath, setPath, type Draft, type FieldDef } from "@/components/lift/form-model";
+import { fieldErrors, type FieldLabel } from "@/lib/client/field-messages";
 import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/types";
 import type { TrainJson } from "@/components/train/TrainEditor";
-import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
+import { ApiError, sendJson } from "@/lib/client/fetch";
 import { useList } from "@/lib/client/hooks";
 import type { UnitSystem } from "@/lib/client/units";
 import { INTEGRATORS, runSettingsSchema, trainSchema } from "@/sim/schema";
@@ -31,11 +32,24 @@ const scenarioFormSchema = z.object({
   runSettings: runSettingsSchema,
 });
 
+const RIDER_FIELD: FieldDef = { path: "riderCount", label: "Riders in the train", q: "count", int: true };
+
 const FIELDS: FieldDef[] = [
   { path: "entrySpeed", label: "Entry speed", q: "speed", hint: "Train speed as it rolls onto the chain" },
   { path: "startPosition", label: "Start position (train front)", q: "length" },
   { path: "runSettings.duration", label: "Simulated time", q: "time" },
   { path: "runSettings.segments", label: "Chain segments", q: "count", int: true, hint: "More segments: finer waves, slower run" },
+];
+
+const FORM_LABELS: FieldLabel[] = [
+  ...FIELDS,
+  RIDER_FIELD,
+  { path: "name", label: "Name" },
+  { path: "liftId", label: "Lift" },
+  { path: "liftRevisionId", label: "Pinned revision" },
+  { path: "trainId", label: "Train" },
+  { path: "loading", label: "Loading" },
+  { path: "runSettings.integrator", label: "Integrator" },
 ];
 
 export function ScenarioEditor({ scenario, units, canWrite }: { scenario: ScenarioJson | null; units: UnitSystem; canWrite: boolean }) {
@@ -69,8 +83,8 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
 
   const errors = useMemo(() => {
     const r = scenarioFormSchema.safeParse(draft);
-    return r.success ? {} : zodErrors(r.error.issues);
-  }, [draft]);
+    return r.success ? {} : fieldErrors(r.error.issues, FORM_LABELS, units);
+  }, [draft, units]);
   const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
   const set = (p: string, v: unknown) => {
     setDraft((d) => setPath(d, p, v));
@@ -79,13 +93,17 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
   };
   const disabled = !canWrite || busy;
 
+  const inFlight = useRef(false);
   async function save() {
+    // A second click while the first save is in flight must not create a second scenario.
+    if (inFlight.current) return;
     setBanner(null);
     if (Object.keys(errors).length) {
       setShowAll(true);
       setBanner({ tone: "error", title: "Some fields need attention", text: "Nothing was saved." });
       return;
     }
+    inFlight.current = true;
     setBusy(true);
     const body: Record<string, unknown> = { ...draft, notes: draft.notes || null };
     if (body.loading !== "riders") delete body.riderCount;
@@ -105,11 +123,13 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
       if (err instanceof ApiError && err.status === 409)
         setBanner({ tone: "caution", title: "This scenario changed while you were editing", text: `${err.message} Nothing was saved.` });
       else if (err instanceof ApiError && err.status === 400) {
-        setServerErrors(issueMap(err.issues));
+        const words = fieldErrors(err.issues, FORM_LABELS, units);
+        setServerErrors(words);
         setShowAll(true);
-        setBanner({ tone: "error", title: "The server did not accept the scenario", text: err.issues.map((i) => `${i.path}: ${i.message}`).join(" · ") || err.message });
+        setBanner({ tone: "error", title: "The server did not accept the scenario", text: Object.values(words).join(" · ") || err.message });
       } else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
     } finally {
+      inFlight.current = false;
       setBusy(false);
     }
   }
@@ -167,7 +187,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
           </Select>
         </div>
         {draft.loading === "riders" && (
-          <NumberInput def={{ path: "riderCount", label: "Riders in the train", q: "count", int: true }} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
+          <NumberInput def={RIDER_FIELD} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
         )}
         <div>
           <label htmlFor="f-integrator" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Integrator</label>

@@ -40,6 +40,7 @@ export function useSchemaForm({
   fields,
   units,
   prepare = (d) => d,
+  also,
 }: {
   schema: ZodType;
   initial: () => Draft;
@@ -47,6 +48,8 @@ export function useSchemaForm({
   units: UnitSystem;
   /** The draft as the schema reads it (e.g. empty notes → null). */
   prepare?: (d: Draft) => unknown;
+  /** Rules between fields checked even while single fields are wrong (all messages at once). */
+  also?: (d: Draft) => ReadonlyArray<{ path: string; message: string }>;
 }): SchemaForm {
   const [draft, setDraftState] = useState<Draft>(initial);
   const [touched, setTouched] = useState<Set<string>>(new Set());
@@ -57,7 +60,7 @@ export function useSchemaForm({
 
   const errors = useMemo(() => {
     const r = schema.safeParse(prepare(draft));
-    return r.success ? {} : fieldErrors(r.error.issues, fields, units);
+    return fieldErrors([...(r.success ? [] : r.error.issues), ...(also?.(draft) ?? [])], fields, units);
     // `prepare` and `fields` are fixed per form.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [draft, schema, units]);
