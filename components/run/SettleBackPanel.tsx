@@ -4,9 +4,10 @@ import { useMemo } from "react";
 import { Button } from "@/components/ui/Button";
 import { useReplayStore, useReplayTime } from "@/components/replay/store";
 import type { RunData } from "./types";
-import { settleBackAccount } from "./settleBack";
+import { settleBackAccount } from "@/lib/runs/settle-back";
+import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 
-export function SettleBackPanel({ data }: { data: RunData }) {
+export function SettleBackPanel({ data, units }: { data: RunData; units: UnitSystem }) {
   const account = useMemo(
     () =>
       settleBackAccount({
@@ -17,8 +18,8 @@ export function SettleBackPanel({ data }: { data: RunData }) {
         gravity: data.scenario.run.gravity,
         summary: data.summary,
         series: data.series,
-      }),
-    [data],
+      }, units),
+    [data, units],
   );
   const t = useReplayTime(200);
   if (!account) return null;
@@ -27,7 +28,7 @@ export function SettleBackPanel({ data }: { data: RunData }) {
     <aside className={`rounded-lg border bg-white px-4 py-3 transition-colors ${near ? "border-fail/50 ring-2 ring-fail/15" : "border-steel-300/70"}`} data-testid="settle-back">
       <div className="flex items-start justify-between gap-3">
         <div>
-          <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">ARD catch at {account.catchTime.toFixed(2)} s</p>
+          <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">ARD catch at {formatQuantity(account.catchTime, "time", units)}</p>
           <h3 className="text-[14.5px] font-bold text-ink-900">Why the train settled back</h3>
         </div>
         <Button
@@ -50,13 +51,13 @@ export function SettleBackPanel({ data }: { data: RunData }) {
       </div>
       <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1 border-t border-steel-100 pt-2 font-mono text-[11.5px] tabular-nums text-steel-500">
         <dt>stretch needed</dt>
-        <dd className="text-right text-ink-900">{(account.stretch * 1000).toFixed(0)} mm</dd>
+        <dd className="text-right text-ink-900">{formatQuantity(account.stretch, "smallLength", units, units === "si" ? 0 : undefined)}</dd>
         <dt>pay-out at chain speed</dt>
-        <dd className="text-right text-ink-900">{account.stretchTime.toFixed(2)} s</dd>
+        <dd className="text-right text-ink-900">{formatQuantity(account.stretchTime, "time", units)}</dd>
         <dt>rest on the ARD (run)</dt>
-        <dd className="text-right text-ink-900" data-testid="settle-rest">{account.restTime === null ? "—" : `${account.restTime.toFixed(2)} s`}</dd>
+        <dd className="text-right text-ink-900" data-testid="settle-rest">{formatQuantity(account.restTime, "time", units)}</dd>
         <dt>rollback</dt>
-        <dd className="text-right text-ink-900">{(account.rollback * 1000).toFixed(0)} mm</dd>
+        <dd className="text-right text-ink-900">{formatQuantity(account.rollback, "smallLength", units, units === "si" ? 0 : undefined)}</dd>
       </dl>
       <p className="mt-2 text-[11px] text-steel-500">
         A simple reading of the run (static stretch of the loaded chain); the simulation itself includes the take-up, damping and the dog contact.
