@@ -56,7 +56,7 @@ export function LiftEditor({
         if (mode.kind === "new") {
           const created = await sendJson<LiftJson>("/api/lifts", "POST", bodyOf(draft, changeSummary));
           router.push(`/lifts/${created.id}?saved=1`);
-          return;
+          return "leaving";
         }
         const res = await sendJson<LiftJson & { changes: unknown[] }>(`/api/lifts/${mode.lift.id}`, "PATCH", {
           version: baseVersion,

@@ -105,6 +105,8 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
     }
     inFlight.current = true;
     setBusy(true);
+    // A create that navigates to the new scenario stays busy until the page goes.
+    let leaving = false;
     const body: Record<string, unknown> = { ...draft, notes: draft.notes || null };
     if (body.loading !== "riders") delete body.riderCount;
     if (!body.liftRevisionId) delete body.liftRevisionId;
@@ -112,6 +114,7 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
       if (!scenario) {
         const created = await sendJson<ScenarioJson>("/api/scenarios", "POST", body);
         router.push(`/scenarios/${created.id}`);
+        leaving = true;
         return;
       }
       const saved = await sendJson<ScenarioJson>(`/api/scenarios/${scenario.id}`, "PATCH", { version, ...body });
@@ -129,8 +132,10 @@ export function ScenarioEditor({ scenario, units, canWrite }: { scenario: Scenar
         setBanner({ tone: "error", title: "The server did not accept the scenario", text: Object.values(words).join(" · ") || err.message });
       } else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
     } finally {
-      inFlight.current = false;
-      setBusy(false);
+      if (!leaving) {
+        inFlight.current = false;
+        setBusy(false);
+      }
     }
   }
 

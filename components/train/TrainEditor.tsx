@@ -59,7 +59,7 @@ export function TrainEditor({ train, units, canWrite }: { train: TrainJson | nul
         if (!train) {
           const created = await sendJson<TrainJson>("/api/trains", "POST", body);
           router.push(`/trains/${created.id}`);
-          return;
+          return "leaving";
         }
         const saved = await sendJson<TrainJson>(`/api/trains/${train.id}`, "PATCH", { version, ...body });
         setVersion(saved.version);

@@ -35,7 +35,10 @@ export function NumberInput({
   onChange,
   error,
   disabled,
+  id: idProp,
 }: {
+  /** The input's id when the page names it itself (default: from the path). */
+  id?: string;
   def: NumberFieldDef;
   units: UnitSystem;
   value: unknown;
@@ -57,7 +60,7 @@ export function NumberInput({
       setParseError(null);
     }
   }
-  const id = fieldId(def.path);
+  const id = idProp ?? fieldId(def.path);
   const message = parseError ?? error;
   return (
     <div className="min-w-0">

@@ -11,6 +11,7 @@ import { ApiError } from "@/lib/client/fetch";
 import { fieldErrors, type FieldLabel } from "@/lib/client/field-messages";
 import type { UnitSystem } from "@/lib/client/units";
 import { setPath, type Draft } from "@/components/lift/form-model";
+import type { SendOutcome } from "./useSubmitOnce";
 
 export interface SchemaForm {
   draft: Draft;
@@ -29,7 +30,7 @@ export interface SchemaForm {
    * shown), "rejected" (the server's 400 issues now shown beside their fields) or "done"; other errors
    * are thrown to the caller.
    */
-  submit: (send: () => Promise<void>) => Promise<"invalid" | "rejected" | "done" | "busy">;
+  submit: (send: () => Promise<SendOutcome>) => Promise<"invalid" | "rejected" | "done" | "busy">;
   /** After a save: nothing touched, messages only as they arise. */
   settle: () => void;
 }
@@ -71,7 +72,7 @@ export function useSchemaForm({
     setServerErrors((e) => (path in e ? Object.fromEntries(Object.entries(e).filter(([k]) => k !== path)) : e));
   };
 
-  async function submit(send: () => Promise<void>) {
+  async function submit(send: () => Promise<SendOutcome>) {
     if (inFlight.current) return "busy" as const;
     if (Object.keys(errors).length) {
       setShowAll(true);
@@ -79,8 +80,10 @@ export function useSchemaForm({
     }
     inFlight.current = true;
     setBusy(true);
+    let leaving = false;
     try {
-      await send();
+      // A create that navigates to the new row stays busy until the page goes.
+      leaving = (await send()) === "leaving";
       return "done" as const;
     } catch (err) {
       if (err instanceof ApiError && err.status === 400 && err.issues.length) {
@@ -90,8 +93,10 @@ export function useSchemaForm({
       }
       throw err;
     } finally {
-      inFlight.current = false;
-      setBusy(false);
+      if (!leaving) {
+        inFlight.current = false;
+        setBusy(false);
+      }
     }
   }
 
