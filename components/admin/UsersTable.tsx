@@ -12,11 +12,12 @@ import { sendJson } from "@/components/ui/form-errors";
 import { Table, Td, Th, THead, Tr } from "@/components/ui/Table";
 import { useHydrated } from "@/components/ui/ClientForm";
 import { ConfirmBar, type PendingAction } from "@/components/ui/ConfirmBar";
+import { formatDate } from "@/lib/client/dates";
 
 const STATUS_TONE: Record<UserSummary["status"], Tone> = { active: "pass", invited: "caution", deactivated: "neutral" };
 
 function date(iso: string | null): string {
-  return iso ? new Date(iso).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "never";
+  return formatDate(iso, "utcDayTime", "never");
 }
 
 export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number }) {

@@ -11,6 +11,7 @@ import { json } from "@/lib/runs/serialize";
 import type { RunStatus } from "@/lib/runs/status";
 import { getModels } from "@/models";
 import type { Check, Scenario, Summary } from "@/sim";
+import { formatDate } from "@/lib/client/dates";
 
 // The checks of a finished run never change (its inputs and summary are frozen), and working them out means
 // the design statics of the whole lift: remember them per run version instead of on every dashboard view.
@@ -75,7 +76,7 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
                 <Badge tone={TONE[r.status]}>{r.status}</Badge>
                 {/* A what-if run varied the scenario's entry speed, chain speed or take-up mass. */}
                 {r.whatIf && <Badge tone="caution">what-if</Badge>}
-                <span className="text-[11.5px] text-steel-500">{new Date(r.finishedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short" })}</span>
+                <span className="text-[11.5px] text-steel-500">{formatDate(r.finishedAt, "dayMonth")}</span>
               </div>
             </li>
           ))}

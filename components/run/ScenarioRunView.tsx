@@ -23,6 +23,7 @@ import { WhatIfPanel } from "./WhatIfPanel";
 import { withWhatIf } from "./compute";
 import { changedOverrides } from "@/lib/runs/overrides";
 import { overrideLines } from "./overridesText";
+import { formatDate } from "@/lib/client/dates";
 
 function withSegments(s: Scenario, n: number | null): Scenario {
   return n ? { ...s, run: { ...s.run, segments: n } } : s;
@@ -188,7 +189,7 @@ export function ScenarioRunView({
                     <Badge tone="caution">what-if</Badge>
                   </span>
                 )}
-                <span className="ml-auto text-[11.5px] text-steel-500">{new Date(r.queuedAt).toLocaleString("en-GB", { dateStyle: "short", timeStyle: "short" })}</span>
+                <span className="ml-auto text-[11.5px] text-steel-500">{formatDate(r.queuedAt, "shortDayTime")}</span>
               </li>
             ))}
             {runList && runList.length === 0 && <li className="px-4 py-2 text-[12.5px] text-steel-500">No saved runs yet.</li>}

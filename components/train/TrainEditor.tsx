@@ -22,7 +22,7 @@ export const TRAIN_FIELDS: FieldDef[] = [
   { path: "cars", label: "Cars", q: "count", int: true },
   { path: "carMassEmpty", label: "Empty car mass", q: "mass" },
   { path: "seatsPerCar", label: "Seats per car", q: "count", int: true },
-  { path: "riderMass", label: "Mass per rider", q: "mass", hint: "75 kg default: an assumption" },
+  { path: "riderMass", label: "Mass per rider", q: "mass", hint: "The default is an assumption (no source)" },
   { path: "carLength", label: "Car length", q: "length", hint: "Coupling to coupling" },
   { path: "dogOffset", label: "Dog behind the nose", q: "length", hint: "Where the chain dog sits" },
   { path: "rollingResistance", label: "Rolling resistance", q: "ratio" },

@@ -11,6 +11,7 @@ import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
 import { NumberInput } from "@/components/ui/NumberInput";
 import { useSubmitOnce } from "@/components/ui/useSubmitOnce";
 import type { SessionJson } from "./types";
+import { formatDate } from "@/lib/client/dates";
 
 /** "items.1.captions.0.at" → "Run 2, caption 1, time:" (never the dotted path). */
 function placeOf(path: string): string {
@@ -118,7 +119,7 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
       <Card>
         <CardHeader
           title="Session"
-          description={session.sharedAt ? `Shared ${new Date(session.sharedAt).toLocaleString("en-GB")}` : "Draft: only trainers see it until you share it."}
+          description={session.sharedAt ? `Shared ${formatDate(session.sharedAt, "dayTime")}` : "Draft: only trainers see it until you share it."}
           actions={
             <Link href={`/replays/${session.id}`} className="text-[13.5px] font-semibold text-lamp-600 hover:underline">
               Play
