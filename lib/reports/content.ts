@@ -14,7 +14,9 @@ import type { Summary } from "@/sim/summary";
 import { decodeResult } from "@/lib/runs/result-format";
 import { json } from "@/lib/runs/serialize";
 import { OVERRIDE_FIELDS, RUN_OVERRIDE_KEYS, type RunOverrideKey } from "@/lib/runs/overrides";
-import { reasonIn } from "./format";
+import { fmtQ, reasonIn } from "./format";
+import type { Quantity, UnitSystem } from "@/sim/units";
+import { DEFAULT_RIDER_MASS } from "@/lib/trains/schema";
 import { operatingWindow } from "@/lib/studies/window";
 import { studyNamer } from "@/lib/studies/service";
 import type { StudyParameter } from "@/lib/studies/schema";
@@ -73,10 +75,11 @@ function pick(series: Record<string, ArrayLike<number>>, key: string, every: num
   return out;
 }
 
-function whatIfText(o: Partial<Record<RunOverrideKey, number>>, from: Partial<Record<RunOverrideKey, number>> | null): string {
-  const units: Record<RunOverrideKey, string> = { entrySpeed: "m/s", chainSpeed: "m/s", takeUpMass: "kg" };
+function whatIfText(o: Partial<Record<RunOverrideKey, number>>, from: Partial<Record<RunOverrideKey, number>> | null, units: UnitSystem): string {
+  const quantity: Record<RunOverrideKey, Quantity> = { entrySpeed: "speed", chainSpeed: "speed", takeUpMass: "mass" };
+  const q = (k: RunOverrideKey, v: number) => fmtQ(v, quantity[k], units, quantity[k] === "mass" ? 0 : 2);
   return RUN_OVERRIDE_KEYS.filter((k) => o[k] !== undefined)
-    .map((k) => `${OVERRIDE_FIELDS[k].label} ${o[k]} ${units[k]}${from?.[k] !== undefined ? ` (scenario: ${from[k]} ${units[k]})` : ""}`)
+    .map((k) => `${OVERRIDE_FIELDS[k].label} ${q(k, o[k]!)}${from?.[k] !== undefined ? ` (scenario: ${q(k, from[k]!)})` : ""}`)
     .join(", ");
 }
 
@@ -149,10 +152,10 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
         value: fmtLimit(limits[k]),
         source: LIMIT_SOURCES[k],
       })),
-      { key: "riderMass", value: `${train.riderMass} kg`, source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." },
+      { key: "riderMass", value: fmtQ(train.riderMass, "mass", report.units, 0), source: `Mass per rider used for loaded cars: an assumption of the train entry (default ${fmtQ(DEFAULT_RIDER_MASS, "mass", report.units, 0)}).` },
       { key: "model", value: `${inputs.run.segments} segments, ${inputs.run.integrator}`, source: "Chain as spring segments, solved by the Tautline engine; see the engine's notes." },
       // A what-if run's inputs already hold its overrides; say so beside the scenario's own values.
-      ...(run.overrides ? [{ key: "whatIf", value: whatIfText(json(run.overrides), json(run.overridesFrom ?? null)), source: "What-if run: the server ran the scenario with these values in place of its own; the scenario itself is unchanged." }] : []),
+      ...(run.overrides ? [{ key: "whatIf", value: whatIfText(json(run.overrides), json(run.overridesFrom ?? null), report.units), source: "What-if run: the server ran the scenario with these values in place of its own; the scenario itself is unchanged." }] : []),
     ],
     statics: {
       steadyTension: statics.worst.driveTension ?? 0,
