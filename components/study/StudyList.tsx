@@ -3,7 +3,7 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import useSWR from "swr";
-import { fromUnit, DISPLAY_UNITS, type UnitSystem } from "@/sim/units";
+import { fromDisplay, unitOf, type UnitSystem } from "@/lib/client/units";
 import { PARAMETER_LABELS, STUDY_LOADINGS, STUDY_PARAMETER_KEYS, type StudyParameterKey } from "@/lib/studies/schema";
 import type { StudyView } from "@/lib/studies/service";
 import { Badge } from "@/components/ui/Badge";
@@ -29,7 +29,7 @@ function toSi(key: StudyParameterKey, v: string, units: UnitSystem): number {
   const q = PARAMETER_LABELS[key].quantity;
   const r = parseNumber(v);
   const n = r.ok ? r.value : Number.NaN;
-  return q ? fromUnit(n, DISPLAY_UNITS[q][units]) : n;
+  return q ? fromDisplay(n, q, units) : n;
 }
 
 /** A list of values: separated by ";" or by a comma followed by a space, so "2,5; 3" keeps its decimal comma. */
@@ -53,7 +53,7 @@ function buildParam(p: ParamDraft, units: UnitSystem): Record<string, unknown> |
 
 function ParamFields({ n, p, set, units }: { n: number; p: ParamDraft; set: (p: ParamDraft) => void; units: UnitSystem }) {
   const q = p.key ? PARAMETER_LABELS[p.key].quantity : null;
-  const unit = q ? DISPLAY_UNITS[q][units] : "";
+  const unit = q ? unitOf(q, units).label : "";
   const listOnly = p.key === "loading" || p.key === "chainSpec";
   return (
     <fieldset className="grid gap-2 rounded border border-steel-200 p-3 text-sm md:grid-cols-5">
