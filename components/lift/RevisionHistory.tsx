@@ -68,7 +68,7 @@ export function RevisionHistory({ liftId, units }: { liftId: number; units: Unit
             >
               <span className="w-9 shrink-0 font-mono font-semibold text-ink-900">r{r.number}</span>
               <span className="min-w-0 flex-1">
-                <span className="block truncate text-ink-900">{r.changeSummary ?? "No note"}</span>
+                <span className="block truncate text-ink-900" data-user-text>{r.changeSummary ?? "No note"}</span>
                 <span className="block text-[11.5px] text-steel-500">{formatDate(r.createdAt, "dayTime")}</span>
               </span>
               {r.current && <Badge tone="pass">Current</Badge>}
