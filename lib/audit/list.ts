@@ -7,7 +7,7 @@ import type { User } from "@/models/User";
 import { assertCan, type Actor } from "@/lib/api/actor";
 import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/api/list-query";
 import { validate } from "@/lib/api/validate";
-import { diffValues, type FieldChange } from "@/lib/lifts/diff";
+import { diffValues, type FieldChange } from "@/lib/diff/values";
 
 const isoDate = (name: string) =>
   z
