@@ -30,7 +30,12 @@ const pathText = (p: IssueLike["path"]) => (typeof p === "string" ? p : p.length
 export function labelPaths(message: string, fields: readonly FieldLabel[]): string {
   const byLength = [...fields].sort((a, b) => b.path.length - a.path.length);
   let out = message;
-  for (const f of byLength) if (f.path.includes(".") || /^[a-z]+[A-Z]/.test(f.path)) out = out.split(f.path).join(f.label);
+  for (const f of byLength) {
+    if (!f.path.includes(".") && !/^[a-z]+[A-Z]/.test(f.path)) continue;
+    // Whole tokens only, and the engine's section prefix with them ("train.startPosition" → its label).
+    const token = new RegExp(`(?<![\\w.])(?:[a-zA-Z]+\\.)*${f.path.replace(/\./g, "\\.")}(?![\\w.])`, "g");
+    out = out.replace(token, f.label);
+  }
   return out;
 }
 

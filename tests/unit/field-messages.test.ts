@@ -35,5 +35,9 @@ describe("form messages in words", () => {
     expect(errs["rows.2.takeUpPosition"]).toBe("This value must be a finite number");
     expect(Object.keys(errs)).toHaveLength(2);
     expect(labelPaths("lift.chainFrom is required", FIELDS)).toBe("Chain starts at is required");
+    // The engine's section prefix goes with the path; a path inside a longer word is left alone.
+    const scenario = [{ path: "startPosition", label: "Start position", q: "length" as const }];
+    expect(labelPaths("train.startPosition must lie on the track", scenario)).toBe("Start position must lie on the track");
+    expect(labelPaths("startPositionX stays", scenario)).toBe("startPositionX stays");
   });
 });
