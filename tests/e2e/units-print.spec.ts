@@ -105,6 +105,22 @@ test.describe("units everywhere", () => {
     }
   });
 
+  test("a study export speaks the unit system asked for", async ({ page }) => {
+    await signInUi(page, ACCOUNT);
+    const study = await firstDetail(page, "/studies", /^\/studies\/\d+$/);
+    expect(study).not.toBeNull();
+    for (const [units, forbidden, expected] of [
+      ["us", /\((?:m|mm|kN|kg|kW|m\/s)\)/, "(kip)"],
+      ["si", /\((?:ft|in|lb|kip|hp|ft\/s)\)/, "(kN)"],
+    ] as const) {
+      const res = await api.get(`/api/${study!.slice(1)}/export?format=csv&units=${units}`);
+      expect(res.status()).toBe(200);
+      const header = (await res.text()).split(/\r?\n/)[0];
+      expect(header).toContain(expected);
+      expect(header).not.toMatch(forbidden);
+    }
+  });
+
   test("the run view prints without navigation and with every plot inside the page", async ({ page }) => {
     test.setTimeout(90_000);
     await setUnits(api, "si");
