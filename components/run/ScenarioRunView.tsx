@@ -6,7 +6,7 @@
  */
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import type { Scenario } from "@/sim";
 import { Alert } from "@/components/ui/Alert";
 import { Badge } from "@/components/ui/Badge";
@@ -82,7 +82,11 @@ export function ScenarioRunView({
   // Only the values the sliders actually changed travel as overrides; the server applies them itself.
   const overrides = scenario && whatIf ? changedOverrides(scenario, whatIf) : null;
 
+  // One save at a time: a second click before the page moves to the new run must not start a second run.
+  const saveInFlight = useRef(false);
   async function saveOnServer() {
+    if (saveInFlight.current) return;
+    saveInFlight.current = true;
     setSaving(true);
     setSaveMsg(null);
     try {
@@ -94,6 +98,7 @@ export function ScenarioRunView({
       router.push(`/runs/${res.run.id}`);
     } catch (err) {
       setSaveMsg({ tone: "error", text: err instanceof ApiError ? err.message : String(err) });
+      saveInFlight.current = false;
       setSaving(false);
     }
   }
