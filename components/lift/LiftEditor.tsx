@@ -17,7 +17,7 @@ import { liftRevisionSchema } from "@/lib/lifts/schema";
 import { crossFieldIssues } from "@/sim/schema";
 import { bodyOf, draftOf, type Mode } from "./draft";
 import { LIFT_FORM_LABELS } from "./fields";
-import type { Draft } from "./form-model";
+import type { Draft } from "@/components/ui/form-draft";
 import { LiftFormSections } from "./LiftFormSections";
 import { LiftPreview } from "./LiftPreview";
 import type { LiftJson } from "./types";

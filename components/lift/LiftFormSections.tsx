@@ -6,7 +6,7 @@ import { CheckField, Section } from "@/components/ui/FormSection";
 import type { SchemaForm } from "@/components/ui/useSchemaForm";
 import { useList } from "@/lib/client/hooks";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
-import { getPath, setPath, type FieldDef } from "./form-model";
+import { getPath, setPath, type FieldDef } from "@/components/ui/form-draft";
 import { ARD_FIELDS, CHAIN_ROUTING_FIELDS, CHAIN_VALUE_FIELDS, DRIVE_FIELDS, GEOMETRY_FIELDS, LIMIT_FIELDS, TAKEUP_FIELDS } from "./fields";
 import type { ChainSpecJson } from "./types";
 

@@ -1,6 +1,6 @@
 /** A lift form's draft from a lift (or the new-lift template), and the request body a draft becomes. */
 import { CHAIN_VALUE_FIELDS } from "./fields";
-import type { Draft } from "./form-model";
+import type { Draft } from "@/components/ui/form-draft";
 import type { LiftJson } from "./types";
 
 export type Mode = { kind: "new" } | { kind: "edit"; lift: LiftJson };

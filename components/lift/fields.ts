@@ -1,6 +1,6 @@
 /** The lift form's fields, grouped as the revision stores them (SI inside, units per quantity). */
 import { LIMIT_SOURCES } from "@/sim/schema";
-import type { FieldDef } from "./form-model";
+import type { FieldDef } from "@/components/ui/form-draft";
 import type { FieldLabel } from "@/lib/client/field-messages";
 
 export const GEOMETRY_FIELDS: FieldDef[] = [

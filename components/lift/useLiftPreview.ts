@@ -3,7 +3,7 @@
 import { useMemo, useState } from "react";
 import { liftSchema } from "@/sim/schema";
 import type { PreviewInput } from "./LiftPreview";
-import { getPath, type Draft } from "./form-model";
+import { getPath, type Draft } from "@/components/ui/form-draft";
 
 export function useLiftPreview(draft: Draft): { previewInput: PreviewInput | null; lastPreview: PreviewInput | null } {
   const [lastPreview, setLastPreview] = useState<PreviewInput | null>(null);

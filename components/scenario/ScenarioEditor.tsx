@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/Button";
 import { Input, Select } from "@/components/ui/Field";
 import { NumberInput } from "@/components/ui/NumberInput";
 import { Section } from "@/components/ui/FormSection";
-import { getPath, setPath, type Draft, type FieldDef } from "@/components/lift/form-model";
+import { getPath, setPath, type Draft, type FieldDef } from "@/components/ui/form-draft";
 import { fieldErrors, type FieldLabel } from "@/lib/client/field-messages";
 import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/types";
 import type { TrainJson } from "@/components/train/TrainEditor";

@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/Button";
 import { Input } from "@/components/ui/Field";
 import { NumberInput } from "@/components/ui/NumberInput";
 import { Section } from "@/components/ui/FormSection";
-import { getPath, type Draft, type FieldDef } from "@/components/lift/form-model";
+import { getPath, type Draft, type FieldDef } from "@/components/ui/form-draft";
 import { useSchemaForm } from "@/components/ui/useSchemaForm";
 import { ApiError, sendJson } from "@/lib/client/fetch";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";

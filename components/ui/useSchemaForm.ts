@@ -10,7 +10,7 @@ import type { ZodType } from "zod";
 import { ApiError } from "@/lib/client/fetch";
 import { fieldErrors, type FieldLabel } from "@/lib/client/field-messages";
 import type { UnitSystem } from "@/lib/client/units";
-import { setPath, type Draft } from "@/components/lift/form-model";
+import { setPath, type Draft } from "./form-draft";
 import type { SendOutcome } from "./useSubmitOnce";
 
 export interface SchemaForm {

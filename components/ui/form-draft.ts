@@ -1,5 +1,5 @@
-/** Small helpers shared by the design forms: dotted paths into nested drafts, field definitions. */
-import type { NumberFieldDef } from "@/components/ui/NumberInput";
+/** Small helpers shared by the forms: dotted paths into nested drafts, numeric field definitions. */
+import type { NumberFieldDef } from "./NumberInput";
 
 export type Draft = Record<string, unknown>;
 
