@@ -11,6 +11,7 @@ import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input, Select } from "@/components/ui/Field";
 import { validate, type FieldErrors } from "@/components/ui/form-errors";
 import { submitJson } from "@/lib/client/fetch";
+import { useSubmitOnce } from "@/components/ui/useSubmitOnce";
 
 const EMPTY = { email: "", name: "", role: "viewer" as Role };
 
@@ -19,24 +20,24 @@ export function InviteForm({ showMailbox }: { showMailbox: boolean }) {
   const [values, setValues] = useState(EMPTY);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [result, setResult] = useState<{ tone: "success" | "error"; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const [busy, once] = useSubmitOnce();
 
-  async function submit(e: FormEvent) {
+  function submit(e: FormEvent) {
     e.preventDefault();
-    setResult(null);
-    const checked = validate(inviteUserSchema, values);
-    if (checked.errors) return setErrors(checked.errors);
-    setErrors({});
-    setBusy(true);
-    const res = await submitJson<{ user: { email: string } }>("/api/admin/users", "POST", checked.data);
-    setBusy(false);
-    if (!res.ok) {
-      setErrors(res.errors);
-      return setResult({ tone: "error", text: res.error ?? "The invitation was not sent." });
-    }
-    setResult({ tone: "success", text: `Invitation sent to ${res.data?.user.email}. The link works once, within 72 hours.` });
-    setValues(EMPTY);
-    router.refresh();
+    void once(async () => {
+      setResult(null);
+      const checked = validate(inviteUserSchema, values);
+      if (checked.errors) return setErrors(checked.errors);
+      setErrors({});
+      const res = await submitJson<{ user: { email: string } }>("/api/admin/users", "POST", checked.data);
+      if (!res.ok) {
+        setErrors(res.errors);
+        return setResult({ tone: "error", text: res.error ?? "The invitation was not sent." });
+      }
+      setResult({ tone: "success", text: `Invitation sent to ${res.data?.user.email}. The link works once, within 72 hours.` });
+      setValues(EMPTY);
+      router.refresh();
+    });
   }
 
   return (

@@ -6,6 +6,7 @@ import type { FakeMessage } from "@/lib/mail/mailbox";
 import { Button } from "@/components/ui/Button";
 import { submitJson } from "@/lib/client/fetch";
 import { cx } from "@/components/ui/cx";
+import { formatDate } from "@/lib/client/dates";
 
 /** Turns URLs in plain text into links, leaving everything else as text (no HTML from the message runs). */
 function Linkified({ text }: { text: string }) {
@@ -60,7 +61,7 @@ export function MailList({ messages }: { messages: FakeMessage[] }) {
               >
                 <span className="block truncate text-[13px] font-semibold">{m.subject || "(no subject)"}</span>
                 <span className="block truncate font-mono text-[11.5px] text-steel-500">
-                  {m.to.join(", ")} · {new Date(m.date).toISOString().slice(11, 16)} UTC
+                  {m.to.join(", ")} · {formatDate(m.date, "utcTime")}
                 </span>
               </button>
             </li>
@@ -76,7 +77,7 @@ export function MailList({ messages }: { messages: FakeMessage[] }) {
             <dt>To</dt>
             <dd>{open.to.join(", ")}</dd>
             <dt>Date</dt>
-            <dd>{new Date(open.date).toISOString().replace("T", " ").slice(0, 19)} UTC</dd>
+            <dd>{formatDate(open.date, "utcDayTime")}</dd>
           </dl>
           <div className="mt-4 whitespace-pre-wrap rounded-md border border-steel-100 bg-paper/50 p-4 text-[14px] leading-relaxed">
             <Linkified text={open.text} />

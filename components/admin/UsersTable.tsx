@@ -11,11 +11,13 @@ import { Select } from "@/components/ui/Field";
 import { submitJson } from "@/lib/client/fetch";
 import { Table, Td, Th, THead, Tr } from "@/components/ui/Table";
 import { useHydrated } from "@/components/ui/ClientForm";
+import { ConfirmBar, type PendingAction } from "@/components/ui/ConfirmBar";
+import { formatDate } from "@/lib/client/dates";
 
 const STATUS_TONE: Record<UserSummary["status"], Tone> = { active: "pass", invited: "caution", deactivated: "neutral" };
 
 function date(iso: string | null): string {
-  return iso ? new Date(iso).toISOString().slice(0, 16).replace("T", " ") + " UTC" : "never";
+  return formatDate(iso, "utcDayTime", "never");
 }
 
 export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number }) {
@@ -23,8 +25,12 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
   const hydrated = useHydrated();
   const [busyId, setBusyId] = useState<number | null>(null);
   const [message, setMessage] = useState<{ tone: "success" | "error"; text: string } | null>(null);
+  const [pending, setPending] = useState<PendingAction | null>(null);
+  const ask = (question: string, confirmLabel: string, run: () => Promise<void>) =>
+    setPending({ question, confirmLabel, run: () => void run().finally(() => setPending(null)) });
 
   async function act(id: number, url: string, method: "POST" | "PATCH" | "DELETE", body: unknown, done: string) {
+    if (busyId !== null) return;
     setBusyId(id);
     setMessage(null);
     const res = await submitJson(url, method, body);
@@ -41,6 +47,7 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
           {message.text}
         </Alert>
       )}
+      <ConfirmBar pending={pending} onCancel={() => setPending(null)} busy={busyId !== null} />
       <Table>
         <THead>
           <tr>
@@ -70,9 +77,12 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                     value={u.role}
                     disabled={!hydrated || me || busyId === u.id}
                     title={me ? "Another administrator must change your role." : undefined}
-                    onChange={(e) =>
-                      act(u.id, `/api/admin/users/${u.id}`, "PATCH", { role: e.target.value as Role }, `${u.name} is now ${ROLE_LABELS[e.target.value as Role]}.`)
-                    }
+                    onChange={(e) => {
+                      const role = e.target.value as Role;
+                      ask(`Change ${u.name}'s role from ${ROLE_LABELS[u.role]} to ${ROLE_LABELS[role]}? It applies at their next request.`, "Change role", () =>
+                        act(u.id, `/api/admin/users/${u.id}`, "PATCH", { role }, `${u.name} is now ${ROLE_LABELS[role]}.`),
+                      );
+                    }}
                   >
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
@@ -116,7 +126,11 @@ export function UsersTable({ users, meId }: { users: UserSummary[]; meId: number
                         data-testid={`deactivate-${u.email}`}
                         busy={busyId === u.id}
                         disabled={!hydrated}
-                        onClick={() => act(u.id, `/api/admin/users/${u.id}`, "PATCH", { active: false }, `${u.name} is deactivated and signed out.`)}
+                        onClick={() =>
+                          ask(`Deactivate ${u.name} (${u.email})? They are signed out at once and cannot sign in until reactivated.`, "Deactivate", () =>
+                            act(u.id, `/api/admin/users/${u.id}`, "PATCH", { active: false }, `${u.name} is deactivated and signed out.`),
+                          )
+                        }
                       >
                         Deactivate
                       </Button>

@@ -12,6 +12,7 @@ import { studyCaseLabels } from "@/lib/runs/service";
 import type { RunStatus } from "@/lib/runs/status";
 import { getModels } from "@/models";
 import type { Check, Scenario, Summary } from "@/sim";
+import { formatDate } from "@/lib/client/dates";
 
 // The checks of a finished run never change (its inputs and summary are frozen), and working them out means
 // the design statics of the whole lift: remember them per run version instead of on every dashboard view.
@@ -83,7 +84,7 @@ export async function RecentRuns({ organisationId, units, limit = 8 }: { organis
                     <Badge tone="caution">study case</Badge>
                   </Link>
                 )}
-                <span className="text-[11.5px] text-steel-500">{new Date(r.finishedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short" })}</span>
+                                <span className="text-[11.5px] text-steel-500">{formatDate(r.finishedAt, "dayMonth")}</span>
               </div>
             </li>
           ))}

@@ -164,7 +164,3 @@ export function DataTable<T extends { id: number }>({
     </div>
   );
 }
-
-export function formatDate(iso: string): string {
-  return new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
-}

@@ -1,12 +1,13 @@
 "use client";
-import { DataTable, formatDate, type Column } from "./DataTable";
+import { DataTable, type Column } from "./DataTable";
 import type { LiftListItemJson } from "./types";
+import { formatDate } from "@/lib/client/dates";
 
 const columns: Column<LiftListItemJson>[] = [
   { key: "name", label: "Lift", sort: "name", render: (r) => r.name },
   { key: "site", label: "Site", sort: "site", render: (r) => r.site ?? "—" },
   { key: "revision", label: "Revision", align: "right", render: (r) => (r.currentRevisionNumber ? `r${r.currentRevisionNumber}` : "—") },
-  { key: "updatedAt", label: "Last saved", sort: "updatedAt", align: "right", render: (r) => formatDate(r.updatedAt) },
+  { key: "updatedAt", label: "Last saved", sort: "updatedAt", align: "right", render: (r) => formatDate(r.updatedAt, "day") },
 ];
 
 export function LiftTable() {

@@ -8,6 +8,7 @@ import { useList, useResource } from "@/lib/client/hooks";
 import { editText, unitOf, type UnitSystem } from "@/lib/client/units";
 import { ALL_NUMBER_FIELDS, labelOf } from "./fields";
 import type { FieldChangeJson, RevisionDetailJson, RevisionListItemJson } from "./types";
+import { formatDate } from "@/lib/client/dates";
 
 function shownValue(path: string, v: unknown, units: UnitSystem): string {
   if (v === null || v === undefined) return "—";
@@ -67,8 +68,8 @@ export function RevisionHistory({ liftId, units }: { liftId: number; units: Unit
             >
               <span className="w-9 shrink-0 font-mono font-semibold text-ink-900">r{r.number}</span>
               <span className="min-w-0 flex-1">
-                <span className="block truncate text-ink-900">{r.changeSummary ?? "No note"}</span>
-                <span className="block text-[11.5px] text-steel-500">{new Date(r.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}</span>
+                <span className="block truncate text-ink-900" data-user-text>{r.changeSummary ?? "No note"}</span>
+                <span className="block text-[11.5px] text-steel-500">{formatDate(r.createdAt, "dayTime")}</span>
               </span>
               {r.current && <Badge tone="pass">Current</Badge>}
             </button>

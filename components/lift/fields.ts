@@ -1,6 +1,7 @@
 /** The lift form's fields, grouped as the revision stores them (SI inside, units per quantity). */
 import { LIMIT_SOURCES } from "@/sim/schema";
-import type { FieldDef } from "./form-model";
+import type { FieldDef } from "@/components/ui/form-draft";
+import type { FieldLabel } from "@/lib/client/field-messages";
 
 export const GEOMETRY_FIELDS: FieldDef[] = [
   { path: "lift.approachLength", label: "Approach length", q: "length", hint: "Level track before the sag" },
@@ -73,17 +74,20 @@ export const ALL_NUMBER_FIELDS = [
   ...LIMIT_FIELDS,
 ];
 
+const OTHER_LABELS: Record<string, string> = {
+  name: "Name",
+  site: "Site",
+  notes: "Notes",
+  chainSpecId: "Catalogue chain",
+  "chain.chainSpecId": "Catalogue chain",
+  "antiRollback.enabled": "ARD fitted",
+  "limits.allowRollback": "Settling back onto the ARD allowed",
+};
+
+/** Every field of the lift form with its label (and quantity), for messages in words. */
+export const LIFT_FORM_LABELS: FieldLabel[] = [...ALL_NUMBER_FIELDS, ...Object.entries(OTHER_LABELS).map(([path, label]) => ({ path, label }))];
+
 /** Human label of a dotted path (for the diff view and messages). */
 export function labelOf(path: string): string {
-  const f = ALL_NUMBER_FIELDS.find((d) => d.path === path);
-  if (f) return f.label;
-  const extra: Record<string, string> = {
-    name: "Name",
-    site: "Site",
-    notes: "Notes",
-    chainSpecId: "Catalogue chain",
-    "antiRollback.enabled": "ARD fitted",
-    "limits.allowRollback": "Settling back onto the ARD allowed",
-  };
-  return extra[path] ?? path;
+  return ALL_NUMBER_FIELDS.find((d) => d.path === path)?.label ?? OTHER_LABELS[path] ?? path;
 }

@@ -1,87 +1,16 @@
-/** Shapes of the lift API's answers as the browser sees them (dates arrive as ISO text). */
-export interface LiftSections {
-  lift: Record<string, unknown>;
-  chain: Record<string, unknown>;
-  drive: Record<string, unknown>;
-  takeUp: Record<string, unknown>;
-  antiRollback: Record<string, unknown>;
-  limits: Record<string, unknown>;
-}
+/** The lift API's answers as the browser sees them: the lib/ view types after JSON (dates as ISO text). */
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { ChainSpecView } from "@/lib/chains/service";
+import type { FieldChange } from "@/lib/diff/values";
+import type { LiftListItem, LiftView, RevisionDetail, RevisionListItem, RevisionView } from "@/lib/lifts/service";
 
-export interface RevisionJson extends LiftSections {
-  id: number;
-  liftId: number;
-  number: number;
-  name: string;
-  site: string | null;
-  notes: string | null;
-  chainSpecId: number | null;
-  changeSummary: string | null;
-  createdBy: number | null;
-  createdAt: string;
-}
-
-export interface LiftJson {
-  id: number;
-  name: string;
-  site: string | null;
-  notes: string | null;
-  version: number;
-  archivedAt: string | null;
-  createdAt: string;
-  updatedAt: string;
-  currentRevision: RevisionJson;
-}
-
-export interface LiftListItemJson {
-  id: number;
-  name: string;
-  site: string | null;
-  version: number;
-  archivedAt: string | null;
-  createdAt: string;
-  updatedAt: string;
-  currentRevisionId: number | null;
-  currentRevisionNumber: number | null;
-}
-
-export interface RevisionListItemJson {
-  id: number;
-  number: number;
-  name: string;
-  changeSummary: string | null;
-  chainSpecId: number | null;
-  createdBy: number | null;
-  createdAt: string;
-  current: boolean;
-}
-
-export interface FieldChangeJson {
-  path: string;
-  before: unknown;
-  after: unknown;
-}
-
-export interface RevisionDetailJson {
-  revision: RevisionJson;
-  current: boolean;
-  comparedWith: number | null;
-  changes: FieldChangeJson[];
-}
-
-export interface ChainSpecJson {
-  id: number;
-  designation: string;
-  pitch: number;
-  massPerLength: number;
-  axialStiffness: number;
-  breakingStrength: number;
-  source: string;
-  note: string | null;
-  standard: boolean;
-  version: number;
-  archivedAt: string | null;
-}
+export type RevisionJson = Jsonify<RevisionView>;
+export type LiftJson = Jsonify<LiftView>;
+export type LiftListItemJson = Jsonify<LiftListItem>;
+export type RevisionListItemJson = Jsonify<RevisionListItem>;
+export type FieldChangeJson = Jsonify<FieldChange>;
+export type RevisionDetailJson = Jsonify<RevisionDetail>;
+export type ChainSpecJson = Jsonify<ChainSpecView>;
 
 /** The values a new lift starts from (an example lift hill; every value can be changed). */
 export const NEW_LIFT: Record<string, unknown> = {

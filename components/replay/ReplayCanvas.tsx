@@ -9,6 +9,7 @@ import { memo, useEffect, useMemo, useRef, useState } from "react";
 import { Layer, Shape, Stage } from "react-konva";
 import type Konva from "konva";
 import type { Frame, Layout, Scenario } from "@/sim";
+import { formatQuantity, fromDisplay, toDisplay, unitOf, type UnitSystem } from "@/lib/client/units";
 import { buildLiftDrawing, fitView, niceLength, type LiftDrawing, type View } from "./geometry";
 import { frameAt, type FrameView } from "./frames";
 import { BAND_COLOURS, SLACK_COLOUR, TENSION_BANDS, bandOf } from "./palette";
@@ -20,6 +21,8 @@ export interface ReplayCanvasProps {
   layout: Layout;
   /** Colour scale top, N (the run's peak tension). */
   maxTension: number;
+  /** The reader's unit system for the scale bar and the take-up label. */
+  units?: UnitSystem;
   height?: number;
   /** Frames drawn in the last second and their mean draw time, ms (for the performance check). */
   onFps?: (fps: number, drawMs: number) => void;
@@ -73,7 +76,7 @@ function strokePoly(ctx: CanvasRenderingContext2D, a: Float32Array) {
   for (let i = 2; i < a.length; i += 2) ctx.lineTo(a[i], a[i + 1]);
 }
 
-function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400, onFps }: ReplayCanvasProps) {
+function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400, onFps, units = "si" }: ReplayCanvasProps) {
   const box = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(900);
   const dynLayer = useRef<Konva.Layer>(null);
@@ -162,7 +165,10 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     ctx.arc(v.sx(d.topIdler.x), v.sy(d.topIdler.z), Math.max(5, d.sprocketRadius * v.k), 0, Math.PI * 2);
     ctx.stroke();
     // Scale bar.
-    const bar = niceLength(width / v.k / 8);
+    // A round length in the reader's unit (20 m, or 50 ft), drawn at its SI size.
+    const lengthUnit = unitOf("length", units);
+    const barShown = niceLength(toDisplay(width / v.k / 8, "length", units));
+    const bar = fromDisplay(barShown, "length", units);
     const bx = width - 26 - bar * v.k;
     const by = height - 14;
     ctx.strokeStyle = "#10202e";
@@ -173,7 +179,7 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     ctx.stroke();
     ctx.fillStyle = "#10202e";
     ctx.textAlign = "center";
-    ctx.fillText(`${bar} m`, bx + (bar * v.k) / 2, by - 5);
+    ctx.fillText(`${barShown} ${lengthUnit.label}`, bx + (bar * v.k) / 2, by - 5);
     ctx.textAlign = "left";
   };
 
@@ -361,9 +367,8 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     ctx.fillText(`Take-up ×${mag}`, bx + 8, by + 13);
     ctx.font = "11px ui-monospace, monospace";
     ctx.fillStyle = "#1a2f42";
-    const mm = y * 1000;
-    ctx.fillText(`${mm >= 0 ? "down" : "up"}`, gx + 30, midY - 4);
-    ctx.fillText(`${Math.abs(mm).toFixed(1)} mm`, gx + 30, midY + 10);
+    ctx.fillText(`${y >= 0 ? "down" : "up"}`, gx + 30, midY - 4);
+    ctx.fillText(formatQuantity(Math.abs(y), "smallLength", units, units === "si" ? 1 : 2), gx + 30, midY + 10);
   };
 
   return (

@@ -172,7 +172,7 @@ export function ReplayPanel({
 
   return (
     <section className="min-w-0 space-y-2" data-testid="replay" data-fps={fps} data-draw-ms={drawMs.toFixed(3)} data-segments={layout.stations.length}>
-      <ReplayCanvas scenario={scenario} frames={frames} layout={layout} maxTension={maxT} onFps={onFps} />
+      <ReplayCanvas scenario={scenario} frames={frames} layout={layout} maxTension={maxT} onFps={onFps} units={units} />
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
         <div className="flex items-center gap-1.5">
           <Button
@@ -227,7 +227,7 @@ export function ReplayPanel({
         <Readout label="Drive tension" value={formatQuantity(driveTension, "force", units)} />
         <Readout label="Dog force" value={formatQuantity(f?.dogForce, "force", units)} />
         <Readout label="ARD force" value={formatQuantity(f?.ardForce, "force", units)} alert={!!f && f.ardForce > 0} />
-        <Readout label="Take-up (true)" value={f ? `${(f.takeUpPosition * 1000).toFixed(1)} mm ${f.takeUpPosition >= 0 ? "down" : "up"}` : "—"} testId="takeup-true" />
+        <Readout label="Take-up (true)" value={f ? `${formatQuantity(Math.abs(f.takeUpPosition), "smallLength", units, units === "si" ? 1 : 2)} ${f.takeUpPosition >= 0 ? "down" : "up"}` : "—"} testId="takeup-true" />
         <Readout label="Frame" value={f ? `${f.index + 1} / ${frames.length}` : "—"} />
       </div>
       <div className="flex flex-wrap items-start justify-between gap-4">

@@ -47,7 +47,7 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
       <Card className="p-3">
         <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_300px]">
           <ReplayPanel scenario={data.scenario} frames={data.frames} layout={data.layout} series={data.series} summary={s} units={units} initialT={initialT} />
-          <SettleBackPanel data={data} />
+          <SettleBackPanel data={data} units={units} />
         </div>
       </Card>
       <RunPlots

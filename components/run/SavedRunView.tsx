@@ -15,6 +15,7 @@ import { RunResults } from "./RunResults";
 import { loadServerRun, type RunJson } from "./serverRun";
 import { overrideLines } from "./overridesText";
 import type { RunData } from "./types";
+import { formatDate } from "@/lib/client/dates";
 
 const TONE = { queued: "neutral", running: "lamp", done: "pass", failed: "fail", cancelled: "neutral" } as const;
 
@@ -75,7 +76,7 @@ export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { 
           <Link className="font-semibold text-ink-900 hover:underline" href={`/scenarios/${run.scenarioId}`}>
             Open the scenario
           </Link>
-          <span className="text-steel-500">queued {new Date(run.queuedAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}</span>
+          <span className="text-steel-500">queued {formatDate(run.queuedAt, "dayTime")}</span>
           {(run.status === "queued" || run.status === "running") && (
             <>
               <ProgressBar value={progress} label="Server run progress" />

@@ -6,7 +6,7 @@
  */
 import Link from "next/link";
 import { useRouter } from "next/navigation";
-import { useEffect, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import type { Scenario } from "@/sim";
 import { Alert } from "@/components/ui/Alert";
 import { Badge } from "@/components/ui/Badge";
@@ -23,6 +23,7 @@ import { WhatIfPanel } from "./WhatIfPanel";
 import { withWhatIf } from "./compute";
 import { changedOverrides } from "@/lib/runs/overrides";
 import { overrideLines } from "./overridesText";
+import { formatDate } from "@/lib/client/dates";
 
 function withSegments(s: Scenario, n: number | null): Scenario {
   return n ? { ...s, run: { ...s.run, segments: n } } : s;
@@ -82,7 +83,11 @@ export function ScenarioRunView({
   // Only the values the sliders actually changed travel as overrides; the server applies them itself.
   const overrides = scenario && whatIf ? changedOverrides(scenario, whatIf) : null;
 
+  // One save at a time: a second click before the page moves to the new run must not start a second run.
+  const saveInFlight = useRef(false);
   async function saveOnServer() {
+    if (saveInFlight.current) return;
+    saveInFlight.current = true;
     setSaving(true);
     setSaveMsg(null);
     try {
@@ -94,6 +99,7 @@ export function ScenarioRunView({
       router.push(`/runs/${res.run.id}`);
     } catch (err) {
       setSaveMsg({ tone: "error", text: err instanceof ApiError ? err.message : String(err) });
+      saveInFlight.current = false;
       setSaving(false);
     }
   }
@@ -189,7 +195,7 @@ export function ScenarioRunView({
                     <Badge tone="caution">what-if</Badge>
                   </span>
                 )}
-                <span className="ml-auto text-[11.5px] text-steel-500">{new Date(r.queuedAt).toLocaleString("en-GB", { dateStyle: "short", timeStyle: "short" })}</span>
+                <span className="ml-auto text-[11.5px] text-steel-500">{formatDate(r.queuedAt, "shortDayTime")}</span>
               </li>
             ))}
             {runList && runList.length === 0 && <li className="px-4 py-2 text-[12.5px] text-steel-500">No saved runs yet.</li>}

@@ -4,11 +4,12 @@ import { useMemo } from "react";
 import { Button } from "@/components/ui/Button";
 import { useReplayStore, useReplayTime } from "@/components/replay/store";
 import type { RunData } from "./types";
-import { settleBackAccount, type SettleBackAccount } from "./settleBack";
+import { settleBackAccount, type SettleBackAccount } from "@/lib/runs/settle-back";
+import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { runTrains } from "./runTrains";
 
-/** One account per train that settled back onto the ARD. */
-export function SettleBackPanel({ data }: { data: RunData }) {
+/** One account per train that settled back onto the ARD, in the reader's units. */
+export function SettleBackPanel({ data, units }: { data: RunData; units: UnitSystem }) {
   const accounts = useMemo(
     () =>
       runTrains(data).flatMap((rt) => {
@@ -20,29 +21,29 @@ export function SettleBackPanel({ data }: { data: RunData }) {
           gravity: data.scenario.run.gravity,
           summary: data.summary,
           series: rt.signals,
-        });
+        }, units);
         return account ? [{ label: rt.label, account }] : [];
       }),
-    [data],
+    [data, units],
   );
   if (!accounts.length) return null;
   return (
     <div className="space-y-3">
       {accounts.map((a) => (
-        <SettleBackCard key={a.label || "train"} label={a.label} account={a.account} />
+        <SettleBackCard key={a.label || "train"} label={a.label} account={a.account} units={units} />
       ))}
     </div>
   );
 }
 
-function SettleBackCard({ label, account }: { label: string; account: SettleBackAccount }) {
+function SettleBackCard({ label, account, units }: { label: string; account: SettleBackAccount; units: UnitSystem }) {
   const t = useReplayTime(200);
   const near = Math.abs(t - account.catchTime) < 0.6 || (account.pickupTime !== null && t >= account.catchTime && t <= account.pickupTime);
   return (
     <aside className={`rounded-lg border bg-white px-4 py-3 transition-colors ${near ? "border-fail/50 ring-2 ring-fail/15" : "border-steel-300/70"}`} data-testid="settle-back">
       <div className="flex items-start justify-between gap-3">
         <div>
-          <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">{label ? `${label}: ` : ""}ARD catch at {account.catchTime.toFixed(2)} s</p>
+          <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">{label ? `${label}: ` : ""}ARD catch at {formatQuantity(account.catchTime, "time", units)}</p>
           <h3 className="text-[14.5px] font-bold text-ink-900">Why the train settled back</h3>
         </div>
         <Button
@@ -65,13 +66,13 @@ function SettleBackCard({ label, account }: { label: string; account: SettleBack
       </div>
       <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1 border-t border-steel-100 pt-2 font-mono text-[11.5px] tabular-nums text-steel-500">
         <dt>stretch needed</dt>
-        <dd className="text-right text-ink-900">{(account.stretch * 1000).toFixed(0)} mm</dd>
+        <dd className="text-right text-ink-900">{formatQuantity(account.stretch, "smallLength", units, units === "si" ? 0 : undefined)}</dd>
         <dt>pay-out at chain speed</dt>
-        <dd className="text-right text-ink-900">{account.stretchTime.toFixed(2)} s</dd>
+        <dd className="text-right text-ink-900">{formatQuantity(account.stretchTime, "time", units)}</dd>
         <dt>rest on the ARD (run)</dt>
-        <dd className="text-right text-ink-900" data-testid="settle-rest">{account.restTime === null ? "—" : `${account.restTime.toFixed(2)} s`}</dd>
+        <dd className="text-right text-ink-900" data-testid="settle-rest">{formatQuantity(account.restTime, "time", units)}</dd>
         <dt>rollback</dt>
-        <dd className="text-right text-ink-900">{(account.rollback * 1000).toFixed(0)} mm</dd>
+        <dd className="text-right text-ink-900">{formatQuantity(account.rollback, "smallLength", units, units === "si" ? 0 : undefined)}</dd>
       </dl>
       <p className="mt-2 text-[11px] text-steel-500">
         A simple reading of the run (static stretch of the loaded chain); the simulation itself includes the take-up, damping and the dog contact.

@@ -5,8 +5,9 @@
  * empty takes the pinned lift revision's value (shown under it) or the format's default.
  */
 import { Select } from "@/components/ui/Field";
-import { NumberField, Section, fieldId } from "@/components/lift/NumberField";
-import { getPath, type Draft, type FieldDef } from "@/components/lift/form-model";
+import { NumberInput, fieldId } from "@/components/ui/NumberInput";
+import { Section } from "@/components/ui/FormSection";
+import { getPath, type Draft, type FieldDef } from "@/components/ui/form-draft";
 import { formatQuantity, unitOf, type UnitSystem } from "@/lib/client/units";
 import type { Scenario } from "@/sim";
 import {
@@ -63,7 +64,7 @@ export function DynamicsSection({ draft, set, shown, units, disabled, engine }: 
     const own = getPath(draft, def.path);
     const hint = own === undefined && typeof now === "number" ? `${def.hint ?? ""} Now: ${formatQuantity(now, def.q, units)} (lift revision or default).` : def.hint;
     return (
-      <NumberField
+      <NumberInput
         key={`${def.path}-${units}`}
         def={{ ...def, hint }}
         units={units}

@@ -3,17 +3,19 @@
  * Create or change a scenario: lift and pinned revision, train and loading, entry conditions, run
  * settings, and the drive model and damping laid over the pinned revision (scenario format 2).
  */
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { z } from "zod";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { Input, Select } from "@/components/ui/Field";
-import { NumberField, Section } from "@/components/lift/NumberField";
-import { getPath, setPath, zodErrors, type Draft, type FieldDef } from "@/components/lift/form-model";
+import { NumberInput } from "@/components/ui/NumberInput";
+import { Section } from "@/components/ui/FormSection";
+import { getPath, setPath, type Draft, type FieldDef } from "@/components/ui/form-draft";
+import { fieldErrors, type FieldLabel } from "@/lib/client/field-messages";
 import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/types";
 import type { TrainJson } from "@/components/train/TrainEditor";
-import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
+import { ApiError, sendJson } from "@/lib/client/fetch";
 import { useList } from "@/lib/client/hooks";
 import { unitOf, type UnitSystem } from "@/lib/client/units";
 import { INTEGRATORS, runSettingsSchema, trainSchema, trainSchemaV1 } from "@/sim/schema";
@@ -48,6 +50,8 @@ function dynamicsBody(d: unknown): Record<string, Record<string, unknown>> {
   );
 }
 
+const RIDER_FIELD: FieldDef = { path: "riderCount", label: "Riders in the train", q: "count", int: true };
+
 const FIELDS: FieldDef[] = [
   { path: "entrySpeed", label: "Entry speed", q: "speed", hint: "Train speed as it rolls onto the chain" },
   { path: "startPosition", label: "Start position (train front)", q: "length" },
@@ -56,13 +60,17 @@ const FIELDS: FieldDef[] = [
   { path: "runSettings.segments", label: "Chain segments", q: "count", int: true, hint: "More segments: finer waves, slower run" },
 ];
 
-/** A field's label and unit for a server message's path (dynamics fields and the start time); else the path. */
-function labelOfPath(path: string, units: UnitSystem): string {
-  const def = ALL_DYNAMICS_FIELDS.find((f) => f.path === path);
-  if (!def) return path;
-  const unit = unitOf(def.q, units).label;
-  return `${def.label}${unit ? ` (${unit})` : ""}`;
-}
+const FORM_LABELS: FieldLabel[] = [
+  ...FIELDS,
+  ...ALL_DYNAMICS_FIELDS,
+  RIDER_FIELD,
+  { path: "name", label: "Name" },
+  { path: "liftId", label: "Lift" },
+  { path: "liftRevisionId", label: "Pinned revision" },
+  { path: "trainId", label: "Train" },
+  { path: "loading", label: "Loading" },
+  { path: "runSettings.integrator", label: "Integrator" },
+];
 
 export function ScenarioEditor({
   scenario,
@@ -101,6 +109,7 @@ export function ScenarioEditor({
   const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
   const [banner, setBanner] = useState<{ tone: "success" | "error" | "caution"; title: string; text?: string } | null>(null);
   const [busy, setBusy] = useState(false);
+  const inFlight = useRef(false);
   const lifts = useList<LiftListItemJson>("/api/lifts", { pageSize: 100 });
   const trains = useList<TrainJson>("/api/trains", { pageSize: 100 });
   const liftId = draft.liftId as number | undefined;
@@ -108,8 +117,8 @@ export function ScenarioEditor({
 
   const errors = useMemo(() => {
     const r = scenarioFormSchema.safeParse(draft);
-    return r.success ? {} : zodErrors(r.error.issues.map((i) => ({ path: i.path, message: scenarioIssueMessage(i.message) })));
-  }, [draft]);
+    return r.success ? {} : fieldErrors(r.error.issues.map((i) => ({ ...i, message: scenarioIssueMessage(i.message) })), FORM_LABELS, units);
+  }, [draft, units]);
   const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
   const set = (p: string, v: unknown) => {
     setDraft((d) => setPath(d, p, v));
@@ -119,19 +128,25 @@ export function ScenarioEditor({
   const disabled = !canWrite || busy;
 
   async function save() {
+    // A second click while the first save is in flight must not create a second scenario.
+    if (inFlight.current) return;
     setBanner(null);
     if (Object.keys(errors).length) {
       setShowAll(true);
       setBanner({ tone: "error", title: "Some fields need attention", text: "Nothing was saved." });
       return;
     }
+    inFlight.current = true;
     setBusy(true);
+    // A create that navigates to the new scenario stays busy until the page goes.
+    let leaving = false;
     const body: Record<string, unknown> = { ...draft, notes: draft.notes || null, dynamics: dynamicsBody(draft.dynamics) };
     if (body.loading !== "riders") delete body.riderCount;
     if (!body.liftRevisionId) delete body.liftRevisionId;
     try {
       if (!scenario) {
         const created = await sendJson<ScenarioJson>("/api/scenarios", "POST", body);
+        leaving = true;
         router.push(`/scenarios/${created.id}`);
         return;
       }
@@ -144,12 +159,16 @@ export function ScenarioEditor({
       if (err instanceof ApiError && err.status === 409)
         setBanner({ tone: "caution", title: "This scenario changed while you were editing", text: `${err.message} Nothing was saved.` });
       else if (err instanceof ApiError && err.status === 400) {
-        setServerErrors(issueMap(err.issues));
+        const words = fieldErrors(err.issues, FORM_LABELS, units);
+        setServerErrors(words);
         setShowAll(true);
-        setBanner({ tone: "error", title: "The server did not accept the scenario", text: err.issues.map((i) => `${labelOfPath(i.path, units)}: ${i.message}`).join(" · ") || err.message });
+        setBanner({ tone: "error", title: "The server did not accept the scenario", text: Object.values(words).join(" · ") || err.message });
       } else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
     } finally {
-      setBusy(false);
+      if (!leaving) {
+        inFlight.current = false;
+        setBusy(false);
+      }
     }
   }
 
@@ -206,7 +225,7 @@ export function ScenarioEditor({
           </Select>
         </div>
         {draft.loading === "riders" && (
-          <NumberField def={{ path: "riderCount", label: "Riders in the train", q: "count", int: true }} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
+          <NumberInput def={RIDER_FIELD} units={units} value={draft.riderCount} onChange={(v) => set("riderCount", v)} error={shown("riderCount")} disabled={disabled} />
         )}
         <div>
           <label htmlFor="f-integrator" className="mb-1 block text-[12.5px] font-semibold text-ink-800">Integrator</label>
@@ -217,7 +236,7 @@ export function ScenarioEditor({
       </div>
       <Section title="Entry and run settings">
         {FIELDS.map((f) => (
-          <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={f === START_TIME_FIELD ? labelledError(f, units, shown(f.path)) : shown(f.path)} disabled={disabled} />
+          <NumberInput key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={f === START_TIME_FIELD ? labelledError(f, units, shown(f.path)) : shown(f.path)} disabled={disabled} />
         ))}
       </Section>
       <DynamicsSection draft={draft} set={set} shown={shown} units={units} disabled={disabled} engine={engine} />

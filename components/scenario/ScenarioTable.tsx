@@ -1,8 +1,9 @@
 "use client";
 import { Badge } from "@/components/ui/Badge";
-import { DataTable, formatDate, type Column } from "@/components/lift/DataTable";
+import { DataTable, type Column } from "@/components/lift/DataTable";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { LOADING_LABELS, type ScenarioJson } from "./types";
+import { formatDate } from "@/lib/client/dates";
 
 export function ScenarioTable({ units, liftId }: { units: UnitSystem; liftId?: number }) {
   const columns: Column<ScenarioJson>[] = [
@@ -24,7 +25,7 @@ export function ScenarioTable({ units, liftId }: { units: UnitSystem; liftId?: n
     { key: "train", label: "Train", render: (r) => r.trainName ?? "—" },
     { key: "loading", label: "Loading", render: (r) => (r.loading === "riders" ? `${r.riderCount ?? 0} riders` : LOADING_LABELS[r.loading]) },
     { key: "entrySpeed", label: "Entry speed", sort: "entrySpeed", align: "right", render: (r) => formatQuantity(r.entrySpeed, "speed", units) },
-    { key: "updatedAt", label: "Last saved", sort: "updatedAt", align: "right", render: (r) => formatDate(r.updatedAt) },
+    { key: "updatedAt", label: "Last saved", sort: "updatedAt", align: "right", render: (r) => formatDate(r.updatedAt, "day") },
   ];
   return (
     <DataTable<ScenarioJson>

@@ -2,7 +2,7 @@
  * The scenario editor's drive model and damping fields: label, quantity (unit) and help text saying what
  * each one is and where its default comes from. Values are SI; paths are the scenario's `dynamics`.
  */
-import type { FieldDef } from "@/components/lift/form-model";
+import type { FieldDef } from "@/components/ui/form-draft";
 
 export type MotorKind = "ideal" | "induction" | "speed-loop";
 

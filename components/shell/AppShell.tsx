@@ -14,7 +14,9 @@ export function AppShell({ user, organisationName, children }: { user: CurrentUs
   const items = NAV_ITEMS.filter((i) => !i.action || can(user.role, i.action)).map(({ href, label, group }) => ({ href, label, group }));
   return (
     <div className="flex min-h-screen">
-      <aside className="sticky top-0 hidden h-screen w-60 shrink-0 flex-col bg-ink-950 px-3 py-4 md:flex">
+      {/* The dark column spans the whole page; only its contents stay in view while scrolling. */}
+      <aside className="hidden w-60 shrink-0 bg-ink-950 md:block print:hidden" data-testid="app-sidebar">
+        <div className="sticky top-0 flex h-screen flex-col px-3 py-4">
         <Link href="/dashboard" className="mb-6 px-2" aria-label="Tautline overview">
           <Logo tone="light" />
         </Link>
@@ -25,9 +27,10 @@ export function AppShell({ user, organisationName, children }: { user: CurrentUs
             {organisationName}
           </p>
         </div>
+        </div>
       </aside>
       <div className="flex min-w-0 flex-1 flex-col">
-        <header className="sticky top-0 z-10 flex h-14 items-center justify-between gap-4 border-b border-steel-300/60 bg-paper/90 px-6 backdrop-blur">
+        <header className="sticky top-0 z-10 flex h-14 print:hidden items-center justify-between gap-4 border-b border-steel-300/60 bg-paper/90 px-6 backdrop-blur">
           <Link href="/dashboard" className="md:hidden" aria-label="Tautline overview">
             <Logo size={24} />
           </Link>
@@ -46,10 +49,10 @@ export function AppShell({ user, organisationName, children }: { user: CurrentUs
             units={user.units}
           />
         </header>
-        <main className="flex-1 px-6 py-6 lg:px-10">
-          <div className="mx-auto max-w-6xl">{children}</div>
+        <main className="flex-1 px-6 py-6 lg:px-10 print:p-0">
+          <div className="mx-auto max-w-6xl print:max-w-none">{children}</div>
         </main>
-        <footer className="border-t border-steel-300/60 px-6 py-4 lg:px-10">
+        <footer className="border-t border-steel-300/60 px-6 py-4 lg:px-10 print:px-0">
           <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-3">
             <SafetyNote />
             <p className="font-mono text-[11px] text-steel-500">Tautline · SI inside, {user.units === "si" ? "SI" : "US customary"} on screen</p>

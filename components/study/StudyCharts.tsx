@@ -1,5 +1,5 @@
 "use client";
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/client/units";
 import { NUMERIC_PARAMETERS } from "@/lib/studies/schema";
 import type { StudyView } from "@/lib/studies/service";
 import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";

@@ -2,7 +2,7 @@
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/client/units";
 import type { StudyView } from "@/lib/studies/service";
 import { Badge } from "@/components/ui/Badge";
 import { Button, buttonClass } from "@/components/ui/Button";

@@ -3,13 +3,15 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import useSWR from "swr";
-import { fromUnit, DISPLAY_UNITS, type UnitSystem } from "@/sim/units";
+import { fromDisplay, unitOf, type UnitSystem } from "@/lib/client/units";
 import { PARAMETER_LABELS, STUDY_LOADINGS, STUDY_PARAMETER_KEYS, type StudyParameterKey } from "@/lib/studies/schema";
 import type { StudyView } from "@/lib/studies/service";
 import { Badge } from "@/components/ui/Badge";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { getJson } from "@/lib/client/fetch";
+import { useSubmitOnce } from "@/components/ui/useSubmitOnce";
+import { parseNumber } from "@/lib/units/parse-number";
 
 interface ParamDraft {
   key: StudyParameterKey | "";
@@ -21,23 +23,36 @@ interface ParamDraft {
 
 const empty: ParamDraft = { key: "", from: "", to: "", step: "", list: "" };
 
+/** A typed value (2,5 or 2.5) in SI; NaN when it is not a number, so the server's schema names the field. */
 function toSi(key: StudyParameterKey, v: string, units: UnitSystem): number {
   const q = PARAMETER_LABELS[key].quantity;
-  const n = Number(v);
-  return q ? fromUnit(n, DISPLAY_UNITS[q][units]) : n;
+  const r = parseNumber(v);
+  const n = r.ok ? r.value : Number.NaN;
+  return q ? fromDisplay(n, q, units) : n;
+}
+
+/** A list of values: separated by ";" or by a comma followed by a space, so "2,5; 3" keeps its decimal comma. */
+const listItems = (text: string) => text.split(/;|,\s+|\s+/).map((s) => s.trim()).filter(Boolean);
+
+/** "parameters.0.range.to" → "Parameter 1, to:" (the user never sees a dotted path). */
+function placeOf(path: string): string {
+  const m = /^parameters\.(\d+)(?:\.(range\.)?(\w+))?/.exec(path);
+  if (m) return `Parameter ${Number(m[1]) + 1}${m[3] ? `, ${m[3] === "values" ? "list" : m[3]}` : ""}:`;
+  const names: Record<string, string> = { scenarioId: "Scenario:", name: "Study name:", "settings.segments": "Segments:", "settings.duration": "Duration:", parameters: "Parameters:" };
+  return names[path] ?? "";
 }
 
 function buildParam(p: ParamDraft, units: UnitSystem): Record<string, unknown> | null {
   if (!p.key) return null;
   if (p.key === "loading") return { key: "loading", values: p.list.split(",").map((s) => s.trim()).filter(Boolean) };
-  if (p.key === "chainSpec") return { key: "chainSpec", values: p.list.split(",").map((s) => Number(s.trim())).filter(Boolean) };
-  if (p.list.trim()) return { key: p.key, values: p.list.split(",").map((s) => toSi(p.key as StudyParameterKey, s.trim(), units)) };
+  if (p.key === "chainSpec") return { key: "chainSpec", values: p.list.split(/[,;\s]+/).filter(Boolean).map(Number) };
+  if (p.list.trim()) return { key: p.key, values: listItems(p.list).map((s) => toSi(p.key as StudyParameterKey, s, units)) };
   return { key: p.key, range: { from: toSi(p.key, p.from, units), to: toSi(p.key, p.to, units), step: toSi(p.key, p.step, units) } };
 }
 
 function ParamFields({ n, p, set, units }: { n: number; p: ParamDraft; set: (p: ParamDraft) => void; units: UnitSystem }) {
   const q = p.key ? PARAMETER_LABELS[p.key].quantity : null;
-  const unit = q ? DISPLAY_UNITS[q][units] : "";
+  const unit = q ? unitOf(q, units).label : "";
   const listOnly = p.key === "loading" || p.key === "chainSpec";
   return (
     <fieldset className="grid gap-2 rounded border border-steel-200 p-3 text-sm md:grid-cols-5">
@@ -82,26 +97,31 @@ export function StudyList({ units, canRun }: { units: UnitSystem; canRun: boolea
   const [duration, setDuration] = useState("");
   const [noArd, setNoArd] = useState(true);
   const [error, setError] = useState<{ message: string; issues?: { path: string; message: string }[] } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const [busy, once] = useSubmitOnce();
 
-  async function create(e: React.FormEvent) {
+  const create = (e: React.FormEvent) => {
     e.preventDefault();
-    setBusy(true);
-    setError(null);
-    const parameters = [buildParam(p1, units), buildParam(p2, units)].filter(Boolean);
-    const settings: Record<string, unknown> = { requireNoArdCatch: noArd };
-    if (segments) settings.segments = Number(segments);
-    if (duration) settings.duration = Number(duration);
-    const r = await fetch("/api/studies", {
-      method: "POST",
-      headers: { "Content-Type": "application/json" },
-      body: JSON.stringify({ scenarioId: scenarioId === "" ? undefined : scenarioId, name: name || "Study", parameters, settings }),
+    void once(async () => {
+      setError(null);
+      const parameters = [buildParam(p1, units), buildParam(p2, units)].filter(Boolean);
+      const settings: Record<string, unknown> = { requireNoArdCatch: noArd };
+      const typed = (t: string) => {
+        const r = parseNumber(t);
+        return r.ok ? r.value : Number.NaN;
+      };
+      if (segments) settings.segments = typed(segments);
+      if (duration) settings.duration = typed(duration);
+      const r = await fetch("/api/studies", {
+        method: "POST",
+        headers: { "Content-Type": "application/json" },
+        body: JSON.stringify({ scenarioId: scenarioId === "" ? undefined : scenarioId, name: name || "Study", parameters, settings }),
+      });
+      const j = await r.json().catch(() => ({}));
+      if (!r.ok) return setError({ message: j.error ?? `HTTP ${r.status}`, issues: j.issues });
+      router.push(`/studies/${j.study.id}`);
+      return "leaving";
     });
-    const j = await r.json().catch(() => ({}));
-    setBusy(false);
-    if (!r.ok) return setError({ message: j.error ?? `HTTP ${r.status}`, issues: j.issues });
-    router.push(`/studies/${j.study.id}`);
-  }
+  };
 
   return (
     <div className="space-y-5">
@@ -143,7 +163,7 @@ export function StudyList({ units, canRun }: { units: UnitSystem; canRun: boolea
                   <ul>
                     {(error.issues ?? []).map((i) => (
                       <li key={i.path}>
-                        {i.path}: {i.message}
+                        {placeOf(i.path)} {i.message}
                       </li>
                     ))}
                   </ul>

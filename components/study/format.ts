@@ -1,4 +1,4 @@
-import { display, type Quantity, type UnitSystem } from "@/sim/units";
+import { toDisplay, unitOf, type Quantity, type UnitSystem } from "@/lib/client/units";
 import { PARAMETER_LABELS, type StudyParameterKey } from "@/lib/studies/schema";
 
 /** Headline columns of the case table and plots: key, label, quantity for units (null = plain number). */
@@ -6,19 +6,19 @@ export const FIGURES: { key: string; label: string; quantity: Quantity | null; d
   { key: "peakTension", label: "Peak tension", quantity: "force", digits: 1 },
   { key: "snatchFactor", label: "Snatch factor", quantity: null, digits: 2 },
   { key: "minSafetyFactor", label: "Safety factor", quantity: null, digits: 2 },
-  { key: "rollbackDistance", label: "Rollback", quantity: "shortLength", digits: 1 },
+  { key: "rollbackDistance", label: "Rollback", quantity: "smallLength", digits: 1 },
   { key: "ardCatches", label: "ARD catches", quantity: null, digits: 0 },
   { key: "pickupDelay", label: "Pick-up delay (s)", quantity: null, digits: 2 },
-  { key: "takeUpMaxRise", label: "Take-up rise", quantity: "shortLength", digits: 0 },
+  { key: "takeUpMaxRise", label: "Take-up rise", quantity: "smallLength", digits: 0 },
 ];
 
 export function figure(v: number | null | undefined, quantity: Quantity | null, units: UnitSystem, digits: number): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return "—";
-  return quantity ? display(v, quantity, units).value.toFixed(digits) : v.toFixed(digits);
+  return quantity ? toDisplay(v, quantity, units).toFixed(digits) : v.toFixed(digits);
 }
 
 export function unitLabel(quantity: Quantity | null, units: UnitSystem): string {
-  return quantity ? ` (${display(1, quantity, units).unit})` : "";
+  return quantity ? ` (${unitOf(quantity, units).label})` : "";
 }
 
 export function paramValue(key: string, v: number | string | undefined, units: UnitSystem, chains: Map<number, string>): string {
@@ -26,7 +26,7 @@ export function paramValue(key: string, v: number | string | undefined, units: U
   if (key === "chainSpec") return chains.get(Number(v)) ?? String(v);
   if (key === "loading") return String(v);
   const q = PARAMETER_LABELS[key as StudyParameterKey]?.quantity;
-  return q && typeof v === "number" ? display(v, q, units).value.toFixed(q === "mass" ? 0 : 2) : String(v);
+  return q && typeof v === "number" ? toDisplay(v, q, units).toFixed(q === "mass" ? 0 : 2) : String(v);
 }
 
 export function paramHeader(key: string, units: UnitSystem): string {

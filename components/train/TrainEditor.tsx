@@ -1,42 +1,29 @@
 "use client";
 /** Create or change a train: fields in the user's units, messages from the shared train schema, version sent on save. */
-import { useMemo, useState } from "react";
+import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { Input } from "@/components/ui/Field";
-import { NumberField, Section } from "@/components/lift/NumberField";
-import { getPath, setPath, zodErrors, type Draft, type FieldDef } from "@/components/lift/form-model";
-import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
+import { NumberInput } from "@/components/ui/NumberInput";
+import { Section } from "@/components/ui/FormSection";
+import { getPath, type Draft, type FieldDef } from "@/components/ui/form-draft";
+import { useSchemaForm } from "@/components/ui/useSchemaForm";
+import { ApiError, sendJson } from "@/lib/client/fetch";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
-import { trainInputSchema, trainIssues } from "@/lib/trains/schema";
+import { trainInputSchema } from "@/lib/trains/schema";
 import { PawlsField } from "./PawlsField";
+import type { TrainView } from "@/lib/trains/service";
+import type { Jsonify } from "@/lib/client/jsonify";
 
-export interface TrainJson {
-  id: number;
-  name: string;
-  notes: string | null;
-  cars: number;
-  carMassEmpty: number;
-  seatsPerCar: number;
-  riderMass: number;
-  carLength: number;
-  dogOffset: number;
-  rollingResistance: number;
-  dragArea: number;
-  /** m behind the front; null = one pawl at the dog. */
-  pawls: number[] | null;
-  carMassLoaded: number;
-  version: number;
-  archivedAt: string | null;
-  updatedAt: string;
-}
+/** A train as the API answers it. */
+export type TrainJson = Jsonify<TrainView>;
 
 export const TRAIN_FIELDS: FieldDef[] = [
   { path: "cars", label: "Cars", q: "count", int: true },
   { path: "carMassEmpty", label: "Empty car mass", q: "mass" },
   { path: "seatsPerCar", label: "Seats per car", q: "count", int: true },
-  { path: "riderMass", label: "Mass per rider", q: "mass", hint: "75 kg default: an assumption" },
+  { path: "riderMass", label: "Mass per rider", q: "mass", hint: "The default is an assumption (no source)" },
   { path: "carLength", label: "Car length", q: "length", hint: "Coupling to coupling" },
   { path: "dogOffset", label: "Dog behind the nose", q: "length", hint: "Where the chain dog sits" },
   { path: "rollingResistance", label: "Rolling resistance", q: "ratio" },
@@ -47,27 +34,19 @@ export const NEW_TRAIN: Draft = { name: "", notes: "", cars: 6, carMassEmpty: 10
 
 export function TrainEditor({ train, units, canWrite }: { train: TrainJson | null; units: UnitSystem; canWrite: boolean }) {
   const router = useRouter();
-  const [draft, setDraft] = useState<Draft>(() =>
-    train
-      ? Object.fromEntries(["name", "notes", "pawls", ...TRAIN_FIELDS.map((f) => f.path)].map((k) => [k, (train as unknown as Draft)[k] ?? (k === "notes" ? "" : undefined)]))
-      : { ...NEW_TRAIN },
-  );
+  const form = useSchemaForm({
+    schema: trainInputSchema,
+    initial: () =>
+      train
+        ? Object.fromEntries(["name", "notes", "pawls", ...TRAIN_FIELDS.map((f) => f.path)].map((k) => [k, (train as unknown as Draft)[k] ?? (k === "notes" ? "" : undefined)]))
+        : { ...NEW_TRAIN },
+    fields: [{ path: "name", label: "Name" }, { path: "notes", label: "Notes" }, ...TRAIN_FIELDS],
+    units,
+    prepare: (d) => ({ ...d, notes: d.notes || null }),
+  });
+  const { draft, set, shown, busy } = form;
   const [version, setVersion] = useState(train?.version ?? 0);
-  const [touched, setTouched] = useState<Set<string>>(new Set());
-  const [showAll, setShowAll] = useState(false);
-  const [serverErrors, setServerErrors] = useState<Record<string, string>>({});
   const [banner, setBanner] = useState<{ tone: "success" | "error" | "caution"; title: string; text?: string } | null>(null);
-  const [busy, setBusy] = useState(false);
-  const errors = useMemo(() => {
-    const r = trainInputSchema.safeParse({ ...draft, notes: draft.notes || null });
-    return r.success ? {} : zodErrors(trainIssues(r.error.issues));
-  }, [draft]);
-  const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
-  const set = (p: string, v: unknown) => {
-    setDraft((d) => setPath(d, p, v));
-    setTouched((t) => new Set(t).add(p));
-    setServerErrors((e) => (p in e ? Object.fromEntries(Object.entries(e).filter(([k]) => k !== p)) : e));
-  };
   const disabled = !canWrite || busy;
   const loaded = typeof draft.carMassEmpty === "number" && typeof draft.seatsPerCar === "number" && typeof draft.riderMass === "number"
     ? (draft.carMassEmpty as number) + (draft.seatsPerCar as number) * (draft.riderMass as number)
@@ -75,35 +54,26 @@ export function TrainEditor({ train, units, canWrite }: { train: TrainJson | nul
 
   async function save() {
     setBanner(null);
-    if (Object.keys(errors).length) {
-      setShowAll(true);
-      setBanner({ tone: "error", title: "Some fields need attention", text: "Nothing was saved." });
-      return;
-    }
-    setBusy(true);
     const body = { ...draft, notes: draft.notes || null };
     try {
-      if (!train) {
-        const created = await sendJson<TrainJson>("/api/trains", "POST", body);
-        router.push(`/trains/${created.id}`);
-        return;
-      }
-      const saved = await sendJson<TrainJson>(`/api/trains/${train.id}`, "PATCH", { version, ...body });
-      setVersion(saved.version);
-      setTouched(new Set());
-      setShowAll(false);
-      setBanner({ tone: "success", title: `Saved (version ${saved.version}).` });
-      router.refresh();
+      const outcome = await form.submit(async () => {
+        if (!train) {
+          const created = await sendJson<TrainJson>("/api/trains", "POST", body);
+          router.push(`/trains/${created.id}`);
+          return "leaving";
+        }
+        const saved = await sendJson<TrainJson>(`/api/trains/${train.id}`, "PATCH", { version, ...body });
+        setVersion(saved.version);
+        form.settle();
+        setBanner({ tone: "success", title: `Saved (version ${saved.version}).` });
+        router.refresh();
+      });
+      if (outcome === "invalid") setBanner({ tone: "error", title: "Some fields need attention", text: "Each says why beside it. Nothing was saved." });
+      if (outcome === "rejected") setBanner({ tone: "error", title: "The server did not accept the train", text: ["Each field says why beside it. Nothing was saved.", ...form.unplaced].join(" ") });
     } catch (err) {
       if (err instanceof ApiError && err.status === 409)
         setBanner({ tone: "caution", title: "Someone else saved this train while you were editing", text: `${err.message} Nothing was saved; reload the page to see their change.` });
-      else if (err instanceof ApiError && err.status === 400) {
-        setServerErrors(issueMap(err.issues));
-        setShowAll(true);
-        setBanner({ tone: "error", title: "The server did not accept the train", text: err.message });
-      } else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
-    } finally {
-      setBusy(false);
+      else setBanner({ tone: "error", title: err instanceof Error ? err.message : "Saving failed" });
     }
   }
 
@@ -144,14 +114,14 @@ export function TrainEditor({ train, units, canWrite }: { train: TrainJson | nul
       </div>
       <Section title="Cars and riders" description={loaded !== null ? `A full car weighs ${formatQuantity(loaded, "mass", units)}.` : undefined}>
         {TRAIN_FIELDS.map((f) => (
-          <NumberField key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
+          <NumberInput key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={shown(f.path)} disabled={disabled} />
         ))}
         <PawlsField
           key={`pawls-${units}`}
           value={draft.pawls as number[] | null | undefined}
           units={units}
           onChange={(v) => set("pawls", v)}
-          error={shown("pawls") ?? Object.entries(serverErrors).concat(showAll || touched.has("pawls") ? Object.entries(errors) : []).find(([k]) => k.startsWith("pawls."))?.[1]}
+          error={shown("pawls") ?? Object.keys(form.errors).filter((k) => k.startsWith("pawls.")).map(shown).find(Boolean)}
           disabled={disabled}
         />
       </Section>

@@ -1,7 +1,8 @@
 "use client";
-import { DataTable, formatDate, type Column } from "@/components/lift/DataTable";
+import { DataTable, type Column } from "@/components/lift/DataTable";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import type { TrainJson } from "./TrainEditor";
+import { formatDate } from "@/lib/client/dates";
 
 export function TrainTable({ units }: { units: UnitSystem }) {
   const columns: Column<TrainJson>[] = [
@@ -10,7 +11,7 @@ export function TrainTable({ units }: { units: UnitSystem }) {
     { key: "carMassEmpty", label: "Empty car", sort: "carMassEmpty", align: "right", render: (r) => formatQuantity(r.carMassEmpty, "mass", units) },
     { key: "loaded", label: "Full car", align: "right", render: (r) => formatQuantity(r.carMassLoaded, "mass", units) },
     { key: "length", label: "Car length", align: "right", render: (r) => formatQuantity(r.carLength, "length", units) },
-    { key: "updatedAt", label: "Last saved", sort: "updatedAt", align: "right", render: (r) => formatDate(r.updatedAt) },
+    { key: "updatedAt", label: "Last saved", sort: "updatedAt", align: "right", render: (r) => formatDate(r.updatedAt, "day") },
   ];
   return (
     <DataTable<TrainJson>

@@ -8,12 +8,40 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Input, Select } from "@/components/ui/Field";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
+import { NumberInput } from "@/components/ui/NumberInput";
+import { useSubmitOnce } from "@/components/ui/useSubmitOnce";
 import type { SessionJson } from "./types";
+import { formatDate } from "@/lib/client/dates";
+
+/** "items.1.captions.0.at" → "Run 2, caption 1, time:" (never the dotted path). */
+function placeOf(path: string): string {
+  const m = /^items\.(\d+)(?:\.captions\.(\d+)(?:\.(at|text))?)?/.exec(path);
+  if (!m) return path === "title" ? "Title:" : path === "version" ? "" : "";
+  const parts = [`Run ${Number(m[1]) + 1}`];
+  if (m[2] !== undefined) parts.push(`caption ${Number(m[2]) + 1}`);
+  if (m[3]) parts.push(m[3] === "at" ? "time" : "text");
+  return `${parts.join(", ")}:`;
+}
+
+function captionProblems(items: Draft[], runs: { id: number; duration: number }[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  items.forEach((it, k) => {
+    const duration = runs.find((r) => r.id === it.runId)?.duration;
+    it.captions.forEach((c, j) => {
+      const path = `items.${k}.captions.${j}.at`;
+      if (c.at === undefined) out[path] = `Run ${k + 1}, caption ${j + 1}: the time is required (s)`;
+      else if (!Number.isFinite(c.at) || c.at < 0) out[path] = `Run ${k + 1}, caption ${j + 1}: the time must be a number of seconds, 0 or more`;
+      else if (duration !== undefined && duration > 0 && c.at > duration) out[path] = `Run ${k + 1}, caption ${j + 1}: the time must be within the run's ${duration} s`;
+    });
+  });
+  return out;
+}
 
 interface Draft {
   runId: number;
   title: string;
-  captions: { at: string; text: string }[];
+  /** Seconds into the run (undefined while empty, NaN while not a number). */
+  captions: { at: number | undefined; text: string }[];
 }
 interface Progress {
   userId: number;
@@ -25,7 +53,7 @@ interface Progress {
 export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: { id: number; label: string; duration: number }[] }) {
   const [session, setSession] = useState(initial);
   const [title, setTitle] = useState(initial.title);
-  const [items, setItems] = useState<Draft[]>(initial.items.map((i) => ({ runId: i.runId, title: i.title ?? "", captions: i.captions.map((c) => ({ at: String(c.at), text: c.text })) })));
+  const [items, setItems] = useState<Draft[]>(initial.items.map((i) => ({ runId: i.runId, title: i.title ?? "", captions: i.captions.map((c) => ({ at: c.at, text: c.text })) })));
   const [msg, setMsg] = useState<{ tone: "error" | "success"; text: string; issues?: string[] } | null>(null);
   const [invite, setInvite] = useState("");
   const [progress, setProgress] = useState<Progress[]>([]);
@@ -44,23 +72,37 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
     next.splice(k + by, 0, x);
     setItems(next);
   };
-  const fail = (err: unknown) =>
-    setMsg({ tone: "error", text: err instanceof Error ? err.message : String(err), issues: err instanceof ApiError ? err.issues.map((i) => `${i.path}: ${i.message}`) : [] });
-
-  const save = async () => {
-    try {
-      const s = await sendJson<SessionJson>(`/api/training/sessions/${session.id}`, "PATCH", {
-        version: session.version,
-        title,
-        items: items.map((it) => ({ runId: it.runId, title: it.title || null, captions: it.captions.map((c) => ({ at: Number(c.at), text: c.text })) })),
-      });
-      setSession(s);
-      setMsg({ tone: "success", text: "Saved." });
-    } catch (err) {
-      fail(err);
-    }
+  const [fieldErrors, setFieldErrors] = useState<Record<string, string>>({});
+  const [saving, once] = useSubmitOnce();
+  const fail = (err: unknown) => {
+    const issues = err instanceof ApiError ? err.issues : [];
+    setFieldErrors(Object.fromEntries(issues.map((i) => [i.path, `${placeOf(i.path)} ${i.message}`])));
+    setMsg({ tone: "error", text: err instanceof Error ? err.message : String(err), issues: issues.map((i) => `${placeOf(i.path)} ${i.message}`) });
   };
-  const share = async () => {
+
+  const save = () =>
+    once(async () => {
+      // Caption times within their run, checked here too so every problem shows at once before sending.
+      const local = captionProblems(items, runs);
+      setFieldErrors(local);
+      if (Object.keys(local).length) {
+        setMsg({ tone: "error", text: "Some captions need attention. Nothing was saved.", issues: Object.values(local) });
+        return;
+      }
+      try {
+        const s = await sendJson<SessionJson>(`/api/training/sessions/${session.id}`, "PATCH", {
+          version: session.version,
+          title,
+          items: items.map((it) => ({ runId: it.runId, title: it.title || null, captions: it.captions.map((c) => ({ at: c.at, text: c.text })) })),
+        });
+        setSession(s);
+        setMsg({ tone: "success", text: "Saved." });
+      } catch (err) {
+        fail(err);
+      }
+    });
+  const share = () =>
+    once(async () => {
     try {
       const r = await sendJson<{ session: SessionJson; mailed: string[] }>(`/api/training/sessions/${session.id}/share`, "POST", {
         invite: invite.split(/[\s,;]+/).filter(Boolean),
@@ -70,14 +112,14 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
     } catch (err) {
       fail(err);
     }
-  };
+    });
 
   return (
     <div className="space-y-5" data-testid="session-builder">
       <Card>
         <CardHeader
           title="Session"
-          description={session.sharedAt ? `Shared ${new Date(session.sharedAt).toLocaleString("en-GB")}` : "Draft: only trainers see it until you share it."}
+          description={session.sharedAt ? `Shared ${formatDate(session.sharedAt, "dayTime")}` : "Draft: only trainers see it until you share it."}
           actions={
             <Link href={`/replays/${session.id}`} className="text-[13.5px] font-semibold text-lamp-600 hover:underline">
               Play
@@ -128,9 +170,16 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
               </div>
               {it.captions.map((c, j) => (
                 <div key={j} className="flex items-end gap-2">
-                  <Field label="At, s" name={`cap-at-${k}-${j}`} className="w-24">
-                    <Input id={`cap-at-${k}-${j}`} inputMode="decimal" value={c.at} onChange={(e) => update(k, { captions: it.captions.map((x, i) => (i === j ? { ...x, at: e.target.value } : x)) })} />
-                  </Field>
+                  <div className="w-32">
+                    <NumberInput
+                      id={`cap-at-${k}-${j}`}
+                      def={{ path: `items.${k}.captions.${j}.at`, label: "At", q: "time" }}
+                      units="si"
+                      value={c.at}
+                      error={fieldErrors[`items.${k}.captions.${j}.at`]}
+                      onChange={(at) => update(k, { captions: it.captions.map((x, i) => (i === j ? { ...x, at } : x)) })}
+                    />
+                  </div>
                   <Field label="Caption" name={`cap-text-${k}-${j}`} className="flex-1">
                     <Input id={`cap-text-${k}-${j}`} value={c.text} onChange={(e) => update(k, { captions: it.captions.map((x, i) => (i === j ? { ...x, text: e.target.value } : x)) })} />
                   </Field>
@@ -139,7 +188,7 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
                   </Button>
                 </div>
               ))}
-              <Button size="sm" variant="secondary" onClick={() => update(k, { captions: [...it.captions, { at: "", text: "" }] })} data-testid={`add-caption-${k}`}>
+              <Button size="sm" variant="secondary" onClick={() => update(k, { captions: [...it.captions, { at: undefined, text: "" }] })} data-testid={`add-caption-${k}`}>
                 Add a caption
               </Button>
             </CardBody>
@@ -150,7 +199,7 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
         <Button variant="secondary" disabled={runs.length === 0} onClick={() => setItems([...items, { runId: runs[0].id, title: "", captions: [] }])} data-testid="add-run">
           Add a run
         </Button>
-        <Button onClick={() => void save()} data-testid="save-session">
+        <Button onClick={() => void save()} busy={saving} data-testid="save-session">
           Save the session
         </Button>
       </div>
@@ -171,7 +220,7 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
           <Field label="Also invite (e-mail addresses)" name="invite" className="w-96">
             <Input id="invite" value={invite} onChange={(e) => setInvite(e.target.value)} />
           </Field>
-          <Button onClick={() => void share()} data-testid="share-session">
+          <Button onClick={() => void share()} busy={saving} data-testid="share-session">
             {session.sharedAt ? "Share again" : "Share with the organisation"}
           </Button>
         </CardBody>

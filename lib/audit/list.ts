@@ -8,7 +8,7 @@ import { assertCan, type Actor } from "@/lib/http/actor";
 import { listQuerySchema, pageOptions, queryId, toPage, type Page } from "@/lib/http/list-query";
 import { validate } from "@/lib/http/validate";
 import { isoDateField } from "@/lib/http/dates";
-import { diffValues, type FieldChange } from "@/lib/lifts/diff";
+import { diffValues, type FieldChange } from "@/lib/diff/values";
 
 export const auditListQuery = listQuerySchema({
   sortFields: ["at", "entity", "action"],

@@ -5,6 +5,7 @@
  */
 import { FOOT as FT, HORSEPOWER as HP, INCH, POUND_FORCE as LBF, POUND_MASS as LB, type UnitSystem } from "@/sim/units";
 import { reasonText, type ReasonPart } from "@/sim/checks";
+import { parseNumber } from "@/lib/units/parse-number";
 
 export type { UnitSystem };
 
@@ -40,6 +41,8 @@ export interface DisplayUnit {
   factor: number;
   /** Significant decimals for read-outs. */
   digits: number;
+  /** Significant figures a converted value is shown to in a field (the SI value itself is kept exactly). */
+  sig?: number;
 }
 
 
@@ -72,22 +75,22 @@ const SI: Record<Quantity, DisplayUnit> = {
 
 const US: Record<Quantity, DisplayUnit> = {
   ...SI,
-  length: { label: "ft", factor: 1 / FT, digits: 2 },
-  smallLength: { label: "in", factor: 1 / INCH, digits: 2 },
-  mass: { label: "lb", factor: 1 / LB, digits: 0 },
-  force: { label: "kip", factor: 1 / (1000 * LBF), digits: 2 },
-  speed: { label: "ft/s", factor: 1 / FT, digits: 2 },
-  massPerLength: { label: "lb/ft", factor: FT / LB, digits: 2 },
-  axialStiffness: { label: "kip", factor: 1 / (1000 * LBF), digits: 0 },
-  stiffness: { label: "lbf/in", factor: INCH / LBF, digits: 0 },
-  power: { label: "hp", factor: 1 / HP, digits: 1 },
-  torque: { label: "lbf·ft", factor: 1 / (LBF * FT), digits: 0 },
-  area: { label: "ft²", factor: 1 / (FT * FT), digits: 2 },
-  damping: { label: "lbf·s", factor: 1 / LBF, digits: 0 },
-  rate: { label: "in/s", factor: 1 / INCH, digits: 3 },
-  tempDelta: { label: "°F", factor: 1.8, digits: 0 },
-  perKelvin: { label: "1/°F", factor: 1 / 1.8, digits: 7 },
-  linearDamping: { label: "lbf·s/in", factor: INCH / LBF, digits: 1 },
+  length: { label: "ft", factor: 1 / FT, digits: 2, sig: 4 },
+  smallLength: { label: "in", factor: 1 / INCH, digits: 2, sig: 4 },
+  mass: { label: "lb", factor: 1 / LB, digits: 0, sig: 4 },
+  force: { label: "kip", factor: 1 / (1000 * LBF), digits: 2, sig: 4 },
+  speed: { label: "ft/s", factor: 1 / FT, digits: 2, sig: 3 },
+  massPerLength: { label: "lb/ft", factor: FT / LB, digits: 2, sig: 4 },
+  axialStiffness: { label: "kip", factor: 1 / (1000 * LBF), digits: 0, sig: 4 },
+  stiffness: { label: "lbf/in", factor: INCH / LBF, digits: 0, sig: 4 },
+  power: { label: "hp", factor: 1 / HP, digits: 1, sig: 4 },
+  torque: { label: "lbf·ft", factor: 1 / (LBF * FT), digits: 0, sig: 4 },
+  area: { label: "ft²", factor: 1 / (FT * FT), digits: 2, sig: 4 },
+  damping: { label: "lbf·s", factor: 1 / LBF, digits: 0, sig: 4 },
+  rate: { label: "in/s", factor: 1 / INCH, digits: 3, sig: 3 },
+  tempDelta: { label: "°F", factor: 1.8, digits: 0, sig: 4 },
+  perKelvin: { label: "1/°F", factor: 1 / 1.8, digits: 7, sig: 4 },
+  linearDamping: { label: "lbf·s/in", factor: INCH / LBF, digits: 1, sig: 4 },
 };
 
 export function unitOf(q: Quantity, system: UnitSystem): DisplayUnit {
@@ -116,18 +119,20 @@ export function formatQuantity(si: number | null | undefined, q: Quantity, syste
   return u.label ? `${text} ${u.label}` : text;
 }
 
-/** A number as typed into a field: up to 6 significant digits, no grouping. */
+/**
+ * A number as shown in a field: a converted value to the quantity's significant figures (122 m → "400.3"
+ * ft), a value in its own SI unit to 6 (what was typed comes back); no grouping.
+ */
 export function editText(si: number | null | undefined, q: Quantity, system: UnitSystem): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return "";
-  const v = si * unitOf(q, system).factor;
-  return String(Number(v.toPrecision(6)));
+  const u = unitOf(q, system);
+  return String(Number((si * u.factor).toPrecision(u.sig ?? 6)));
 }
 
-/** Parses a typed number (accepts a leading/trailing space, rejects empty text and junk). */
+/** Parses a typed number (`2,5` or `2.5`; ambiguous `1,234` and junk give undefined). */
 export function parseTyped(text: string): number | undefined {
-  const t = text.trim().replace(/,/g, "");
-  if (t === "" || !/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return undefined;
-  return Number(t);
+  const r = parseNumber(text);
+  return r.ok ? r.value : undefined;
 }
 
 /**
@@ -137,4 +142,12 @@ export function parseTyped(text: string): number | undefined {
 export function formatReason(check: { reason: string; parts?: readonly ReasonPart[] }, system: UnitSystem): string {
   if (system === "si" || !check.parts?.length) return check.reason;
   return reasonText(check.parts, (p) => formatQuantity(p.q, p.kind, system));
+}
+
+/** A schema bound in the reader's unit, to the quantity's significant figures ("0 m/s", "262.5 ft"). */
+export function formatBound(si: number, q: Quantity | undefined, system: UnitSystem): string {
+  if (!q) return String(si);
+  const u = unitOf(q, system);
+  const text = si === 0 ? "0" : String(Number((si * u.factor).toPrecision(u.sig ?? 6)));
+  return u.label ? `${text} ${u.label}` : text;
 }

@@ -1,28 +1,7 @@
-/** One changed field between two versions of something, by dotted path. */
-export interface FieldChange {
-  path: string;
-  before: unknown;
-  after: unknown;
-}
+/** What changed between two lift revisions, in the order a reader expects the fields. */
+import { diffValues, type FieldChange } from "@/lib/diff/values";
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> =>
-  typeof v === "object" && v !== null && !Array.isArray(v) && !(v instanceof Date);
-
-const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
-
-/**
- * Field-by-field differences of two JSON-like values. Objects are walked; anything else (numbers, text,
- * arrays) is compared whole. A field missing on one side shows as undefined → value (or the reverse).
- */
-export function diffValues(before: unknown, after: unknown, prefix = ""): FieldChange[] {
-  if (isPlainObject(before) && isPlainObject(after)) {
-    const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort();
-    return keys.flatMap((k) => diffValues(before[k], after[k], prefix ? `${prefix}.${k}` : k));
-  }
-  if (before === undefined && after === undefined) return [];
-  if (same(before, after)) return [];
-  return [{ path: prefix || "(value)", before: before ?? null, after: after ?? null }];
-}
+export type { FieldChange };
 
 /** The revision fields a user edits, in the order a reader expects them. */
 const REVISION_FIELDS = ["name", "site", "notes", "chainSpecId", "lift", "chain", "drive", "takeUp", "antiRollback", "limits"] as const;

@@ -1,10 +1,11 @@
 /**
- * "Why the train settled back" for a recorded dispatch: the workspace's account (components/run/settleBack.ts)
+ * "Why the train settled back" for a recorded dispatch: the workspace's account (lib/runs/settle-back.ts)
  * fed from the recorded train speed. A logger does not measure the ARD force, so the catch is taken where
  * the train, after rolling back, stands still (speed within ±0.02 m/s) until the dog takes it to 95 % of
  * chain speed; the rollback is the backward distance integrated from the speed. Pure.
  */
-import { settleBackAccount, type SettleBackAccount, type SettleBackInput } from "@/components/run/settleBack";
+import { settleBackAccount, type SettleBackAccount, type SettleBackInput } from "@/lib/runs/settle-back";
+import type { UnitSystem } from "@/lib/client/units";
 
 export interface RecordedDispatch {
   t: number[];
@@ -13,7 +14,7 @@ export interface RecordedDispatch {
   engagementTime: number | null;
 }
 
-export function recordedSettleBack(rec: RecordedDispatch, design: Omit<SettleBackInput, "summary" | "series">): SettleBackAccount | null {
+export function recordedSettleBack(rec: RecordedDispatch, design: Omit<SettleBackInput, "summary" | "series">, units: UnitSystem = "si"): SettleBackAccount | null {
   const idx = rec.t.map((_, i) => i).filter((i) => rec.trainSpeed[i] !== null);
   if (idx.length < 3) return null;
   const t = idx.map((i) => rec.t[i]);
@@ -48,7 +49,7 @@ export function recordedSettleBack(rec: RecordedDispatch, design: Omit<SettleBac
       peakArdForce: 0,
     },
     series: { t, ardForce: ard, trainPosition: x, trainSpeed: v },
-  });
+  }, units);
   if (!account) return null;
   // The logger has no ARD force: drop that figure from the account's sentence.
   return { ...account, sentences: account.sentences.map((s) => s.replace(/ \(peak ARD force [^)]*\)/, " (the logger does not record the ARD force)")) };

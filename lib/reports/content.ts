@@ -17,6 +17,7 @@ import { json } from "@/lib/runs/serialize";
 import { OVERRIDE_FIELDS, RUN_OVERRIDE_KEYS, type RunOverrideKey } from "@/lib/runs/overrides";
 import { fmtQ, reasonIn } from "./format";
 import { limitLabel, limitValue } from "./assumptions";
+import { DEFAULT_RIDER_MASS } from "@/lib/trains/schema";
 import { operatingWindow } from "@/lib/studies/window";
 import { studyNamer } from "@/lib/studies/service";
 import { reportSnapshot } from "./snapshot";
@@ -172,7 +173,7 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
       })),
       // Rider mass matters only when riders are aboard.
       ...(scenario.loading !== "empty"
-        ? [{ key: "riderMass", label: "Mass of one rider", value: fmtQ(train.riderMass, "mass", report.units, 0), source: "Mass per rider used for loaded cars: an assumption of the train entry (default 75 kg)." }]
+        ? [{ key: "riderMass", label: "Mass of one rider", value: fmtQ(train.riderMass, "mass", report.units, 0), source: `Mass per rider used for loaded cars: an assumption of the train entry (default ${fmtQ(DEFAULT_RIDER_MASS, "mass", report.units, 0)}).` }]
         : []),
       {
         key: "gravity",

@@ -60,6 +60,11 @@ test("an admin invites a colleague, who follows the e-mailed link, sets a passwo
   // Deactivated: the very next request of the invitee's open session no longer gets in.
   await page.goto("/admin/users");
   await page.getByTestId(`deactivate-${email}`).click();
+  // Nothing happens until the admin confirms.
+  await expect(page.getByTestId("confirm-bar")).toContainText(`Deactivate`);
+  await expect(page.getByTestId("confirm-bar")).toContainText(email);
+  await expect(page.getByTestId("users-message")).toHaveCount(0);
+  await page.getByTestId("confirm-action").click();
   await expect(page.getByTestId("users-message")).toContainText("deactivated");
   await p.goto("/dashboard");
   await expect(p).toHaveURL(/\/sign-in/);

@@ -26,7 +26,7 @@ test.describe("workspace: lifts", () => {
     const angle = page.locator("#f-lift-angle");
     const before = Number(await angle.inputValue());
     await angle.fill("95");
-    await expect(page.getByTestId("error-lift.angle")).toContainText("lift.angle must be at most 80");
+    await expect(page.getByTestId("error-lift.angle")).toContainText("Lift angle must be at most 80 °");
     await page.getByTestId("save-lift").click();
     await expect(page.getByTestId("save-banner")).toContainText("Some fields need attention");
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { diffRevisions, diffValues } from "@/lib/lifts/diff";
+import { diffRevisions } from "@/lib/lifts/diff";
+import { diffValues } from "@/lib/diff/values";
 
 describe("revision diff", () => {
   it("lists changed leaves by dotted path, in field order, and nothing for equal values", () => {

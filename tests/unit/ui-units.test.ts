@@ -29,13 +29,19 @@ describe("display units", () => {
       }
     }
     expect(editText(40, "angle", "us")).toBe("40");
-    expect(editText(122, "length", "us")).toBe("400.262");
+    // A converted value is shown to the quantity's significant figures, not as a raw float.
+    expect(editText(122, "length", "us")).toBe("400.3");
+    expect(editText(15, "length", "us")).toBe("49.21");
+    expect(editText(2.5, "speed", "us")).toBe("8.2");
+    expect(editText(14.125, "length", "si")).toBe("14.125");
   });
 
   it("parses typed numbers and rejects junk", () => {
     expect(parseTyped(" 38 ")).toBe(38);
     expect(parseTyped("1.5e7")).toBe(1.5e7);
-    expect(parseTyped("1,200")).toBe(1200);
+    // "1,200" could be 1.2 or 1200: refused rather than read as either.
+    expect(parseTyped("1,200")).toBeUndefined();
+    expect(parseTyped("2,5")).toBe(2.5);
     expect(parseTyped("")).toBeUndefined();
     expect(parseTyped("abc")).toBeUndefined();
     expect(parseTyped("4..2")).toBeUndefined();

@@ -75,7 +75,7 @@ export default async function ScenarioPage({
               {view.trainName}
             </Link>{" "}
             · {view.loading === "riders" ? `${view.riderCount} riders` : LOADING_LABELS[view.loading]}
-            {view.notes ? <span className="mt-1 block">{view.notes}</span> : null}
+            {view.notes ? <span className="mt-1 block" data-user-text>{view.notes}</span> : null}
           </>
         }
       />

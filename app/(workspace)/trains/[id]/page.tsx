@@ -7,6 +7,7 @@ import { pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
 import { HttpError } from "@/lib/http/errors";
 import { getTrain } from "@/lib/trains/service";
+import { toJson } from "@/lib/client/jsonify";
 
 export const metadata: Metadata = { title: "Train" };
 
@@ -16,7 +17,7 @@ export default async function TrainPage({ params }: { params: Promise<{ id: stri
   if (id === null) notFound();
   let train: TrainJson;
   try {
-    train = JSON.parse(JSON.stringify(await getTrain(user, id))) as TrainJson;
+    train = toJson(await getTrain(user, id));
   } catch (err) {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;

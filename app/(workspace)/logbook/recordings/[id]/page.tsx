@@ -47,6 +47,7 @@ export default async function RecordingPage({ params }: { params: Promise<{ id: 
             train: { cars: train.cars, carMass: train.carMassEmpty + train.seatsPerCar * train.riderMass, dogOffset: train.dogOffset, rollingResistance: train.rollingResistance, entrySpeed: 0 },
             gravity: 9.80665,
           },
+          user.units,
         )
       : null;
   return (

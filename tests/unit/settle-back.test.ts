@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { settleBackAccount, type SettleBackInput } from "@/components/run/settleBack";
+import { settleBackAccount, type SettleBackInput } from "@/lib/runs/settle-back";
 
 // A hand-made run: a 6-car, 7 800 kg train on a 40° incline, caught by the ARD at t = 5.0 s.
 function input(over: Partial<SettleBackInput["summary"]> = {}): SettleBackInput {
@@ -42,6 +42,17 @@ describe("settleBackAccount", () => {
     expect(a.sentences[2]).toContain("691 mm over its 207.2 m of loaded length");
     expect(a.sentences[3]).toContain("rested on the ARD for 0.40 s");
     expect(a.sentences[3]).toContain("rolling back 125 mm");
+  });
+
+  it("writes the account in US customary with no SI unit left", () => {
+    const a = settleBackAccount(input(), "us")!;
+    const text = a.sentences.join(" ");
+    // Source: NIST SP 811 appendix B (1 ft = 0.3048 m, 1 in = 25.4 mm, 1 kip = 4448.2216 N):
+    // 4.5 m/s = 14.76 ft/s; 691.2 mm = 27.21 in; 207.16 m = 679.66 ft; 50.05 kN = 11.25 kip.
+    expect(a.sentences[0]).toContain("14.76 ft/s");
+    expect(a.sentences[2]).toContain("27.21 in over its 679.66 ft of loaded length");
+    expect(a.sentences[2]).toContain("11.25 kip pull");
+    expect(text).not.toMatch(/\d (m|mm|kN|MN|m\/s|kg)\b/);
   });
 
   it("says so when the dog never picks the train up", () => {

@@ -2,8 +2,11 @@
  * "Why the train settled back": a plain-language account of an ARD catch computed from the run's own
  * numbers. The chain below the dog carries the train only once it has stretched by the extra tension
  * times its loaded length over E·A; the drive pays that stretch out at chain speed, and until then the
- * train rests on the ARD. Pure (tested in tests/unit/ui-settle-back.test.ts).
+ * train rests on the ARD. Pure (tested in tests/unit/settle-back.test.ts); the sentences are written in
+ * the reader's unit system from the one display table (lib/client/units.ts).
  */
+import { formatQuantity, type Quantity, type UnitSystem } from "@/lib/client/units";
+
 export interface SettleBackInput {
   lift: { angle: number; chainFrom: number; chainTo: number };
   chain: { axialStiffness: number };
@@ -36,10 +39,10 @@ export interface SettleBackAccount {
   sentences: string[];
 }
 
-const f = (v: number, d: number) => v.toFixed(d);
-
 /** Null when the run has no ARD catch. */
-export function settleBackAccount(x: SettleBackInput): SettleBackAccount | null {
+export function settleBackAccount(x: SettleBackInput, units: UnitSystem = "si"): SettleBackAccount | null {
+  // SI keeps the decimals the account was written with; US customary takes each quantity's own.
+  const f = (si: number, q: Quantity, siDigits: number) => formatQuantity(si, q, units, units === "si" ? siDigits : undefined);
   if (x.summary.ardCatches < 1) return null;
   const { t, ardForce, trainPosition } = x.series;
   let i = 0;
@@ -63,13 +66,13 @@ export function settleBackAccount(x: SettleBackInput): SettleBackAccount | null 
   const v0 = x.train.entrySpeed;
   const sentences = [
     v0 > V
-      ? `The train reached the chain at ${f(v0, 2)} m/s, faster than the chain's ${f(V, 2)} m/s, so it ran ahead of the dogs and slowed on the incline.`
-      : `The train reached the chain at ${f(v0, 2)} m/s against the chain's ${f(V, 2)} m/s.`,
-    `At ${f(catchTime, 2)} s it stopped and rolled back ${f(R * 1000, 0)} mm onto the anti-rollback device (peak ARD force ${f(x.summary.peakArdForce / 1000, 1)} kN).`,
-    `To carry the train's ${f(pull / 1000, 1)} kN pull on the incline (${f(weight / 1000, 1)} kN weight), the chain had to stretch ${f(stretch * 1000, 0)} mm over its ${f(loadedLength, 1)} m of loaded length (pull × length ÷ E·A of ${f(x.chain.axialStiffness / 1e6, 1)} MN).`,
-    `At the chain speed of ${f(V, 2)} m/s that stretch takes ${f(stretchTime, 2)} s to pay out, so the train rested on the ARD ${
-      restTime !== null ? `for ${f(restTime, 2)} s in the run` : "until the end of the run"
-    } after rolling back ${f(R * 1000, 0)} mm${pickupTime !== null ? `, until the dog picked it up at ${f(pickupTime, 2)} s` : ""}.`,
+      ? `The train reached the chain at ${f(v0, "speed", 2)}, faster than the chain's ${f(V, "speed", 2)}, so it ran ahead of the dogs and slowed on the incline.`
+      : `The train reached the chain at ${f(v0, "speed", 2)} against the chain's ${f(V, "speed", 2)}.`,
+    `At ${f(catchTime, "time", 2)} it stopped and rolled back ${f(R, "smallLength", 0)} onto the anti-rollback device (peak ARD force ${f(x.summary.peakArdForce, "force", 1)}).`,
+    `To carry the train's ${f(pull, "force", 1)} pull on the incline (${f(weight, "force", 1)} weight), the chain had to stretch ${f(stretch, "smallLength", 0)} over its ${f(loadedLength, "length", 1)} of loaded length (pull × length ÷ E·A of ${f(x.chain.axialStiffness, "axialStiffness", 1)}).`,
+    `At the chain speed of ${f(V, "speed", 2)} that stretch takes ${f(stretchTime, "time", 2)} to pay out, so the train rested on the ARD ${
+      restTime !== null ? `for ${f(restTime, "time", 2)} in the run` : "until the end of the run"
+    } after rolling back ${f(R, "smallLength", 0)}${pickupTime !== null ? `, until the dog picked it up at ${f(pickupTime, "time", 2)}` : ""}.`,
   ];
   return {
     arrivalSpeed: v0,

@@ -1,5 +1,5 @@
-/** Small helpers shared by the design forms: dotted paths into nested drafts, field definitions. */
-import type { Quantity } from "@/lib/client/units";
+/** Small helpers shared by the forms: dotted paths into nested drafts, numeric field definitions. */
+import type { NumberFieldDef } from "./NumberInput";
 
 export type Draft = Record<string, unknown>;
 
@@ -26,23 +26,5 @@ export function setPath<T extends Draft>(obj: T, path: string, value: unknown): 
   return copy as T;
 }
 
-export interface FieldDef {
-  path: string;
-  label: string;
-  q: Quantity;
-  hint?: string;
-  /** May be left empty (absent in the data). */
-  optional?: boolean;
-  /** Whole numbers only (teeth, cars, seats). */
-  int?: boolean;
-}
-
-/** Field path → message, from zod issues (dotted paths, as the API answers them). */
-export function zodErrors(issues: ReadonlyArray<{ path: ReadonlyArray<PropertyKey>; message: string }>): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const i of issues) {
-    const p = i.path.length ? i.path.map(String).join(".") : "(body)";
-    if (!(p in out)) out[p] = i.message;
-  }
-  return out;
-}
+/** A numeric field of a design form (label, quantity, path in the draft). */
+export type FieldDef = NumberFieldDef;
