@@ -16,7 +16,8 @@ import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { ApiError, getJson, issueMap, queryString, sendJson } from "@/lib/client/fetch";
 import type { UnitSystem } from "@/lib/client/units";
 import { TrendChart } from "./TrendChart";
-import { KIND_LABELS, type AlertJson, type EntryJson, type TrendJson } from "./types";
+import { MIN_FORECAST_READINGS } from "@/lib/logbook/forecast";
+import { KIND_LABELS, type AlertJson, type EntryJson, type ForecastJson, type TrendJson } from "./types";
 
 const INCH = 0.0254;
 
@@ -207,6 +208,16 @@ function Reading({ e, len }: { e: EntryJson; len: Len }) {
   );
 }
 
+/** Why a trend has no date, in words (the minimum of readings and its reason are the forecast's own). */
+function noForecastWords(f: ForecastJson | null, readings: number): string {
+  const min = f?.minimumReadings ?? MIN_FORECAST_READINGS;
+  if (!f || f.status === "too-few")
+    return `No forecast yet: ${readings} of the ${min} readings needed. With fewer, the scatter of the readings cannot be estimated well enough for a 95 % interval to mean anything.`;
+  if (f.status === "no-trend") return `No forecast: the ${f.points} readings show no change beyond their own scatter.`;
+  if (f.status === "away") return `No forecast: the ${f.points} readings move away from the level.`;
+  return `No forecast: at the present rate the level is not reached within ${f.searchYears} years.`;
+}
+
 function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
   const ef = trend.elongation.forecast;
   const tf = trend.takeUpSeries.forecast;
@@ -217,9 +228,7 @@ function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
         <CardBody className="space-y-2">
           <TrendChart title="Elongation, %" unit="%" scale={1} digits={2} points={trend.elongation.points} forecast={ef} limit={trend.settings.elongationLimit} warning={trend.settings.elongationWarning} testId="elongation-chart" />
           <p className="text-[13.5px]" data-testid="elongation-forecast">
-            {ef?.crossing
-              ? `Reaches ${trend.settings.elongationLimit} % around ${day(ef.crossing)} (95 %: ${day(ef.earliest)} – ${day(ef.latest)}), from ${ef.points} readings.`
-              : "Not enough rising readings for a forecast."}
+            {ef?.crossing ? `Reaches ${trend.settings.elongationLimit} % around ${day(ef.crossing)} (95 %: ${day(ef.earliest)} – ${day(ef.latest)}), from ${ef.points} readings.` : noForecastWords(ef, trend.elongation.points.length)}
           </p>
         </CardBody>
       </Card>
@@ -231,7 +240,7 @@ function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
         <CardBody className="space-y-2">
           <TrendChart title={`Position below the top stop, ${len.unit}`} unit={len.unit} scale={len.scale} digits={len.digits} points={trend.takeUpSeries.points} forecast={tf} limit={trend.takeUp.limit} warning={trend.takeUp.warning} testId="take-up-chart" />
           <p className="text-[13.5px]" data-testid="take-up-forecast">
-            {tf?.crossing ? `Runs out of travel around ${day(tf.crossing)} (95 %: ${day(tf.earliest)} – ${day(tf.latest)}).` : "No forecast of the take-up running out."}
+            {tf?.crossing ? `Runs out of travel around ${day(tf.crossing)} (95 %: ${day(tf.earliest)} – ${day(tf.latest)}), from ${tf.points} readings.` : noForecastWords(tf, trend.takeUpSeries.points.length)}
             {trend.takeUpSeries.since ? ` Readings since links were removed on ${day(trend.takeUpSeries.since)}.` : ""}
           </p>
           {trend.takeUp.elasticExcursion !== null && (

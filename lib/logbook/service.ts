@@ -13,7 +13,7 @@ import { evaluateAlerts } from "@/lib/alerts/evaluate";
 import { clearAlerts, openAlerts, raiseAlerts, type AlertView } from "@/lib/alerts/notify";
 import { getModels, type LogbookEntry, type LogbookSetting } from "@/models";
 import { loadLiftContext, type LiftContext } from "./context";
-import { forecastCrossing, type Forecast } from "./forecast";
+import { MIN_FORECAST_READINGS, forecastCrossing, type Forecast, type ForecastStatus } from "./forecast";
 import { elongationPercent, takeUpLimits, takeUpReset } from "./measure";
 import { DEFAULT_SETTINGS, entryInputSchema, entryListQuery, settingsInputSchema } from "./schema";
 
@@ -84,6 +84,11 @@ export interface Trend {
 }
 
 export interface ForecastView {
+  /** Why there is (or is no) crossing date; the chart and the words follow it. */
+  status: ForecastStatus;
+  /** Readings needed before a date is given (MIN_FORECAST_READINGS). */
+  minimumReadings: number;
+  searchYears: number;
   crossing: string | null;
   earliest: string | null;
   latest: string | null;
@@ -98,6 +103,9 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
 function forecastView(f: Forecast | null): ForecastView | null {
   if (!f) return null;
   return {
+    status: f.status,
+    minimumReadings: MIN_FORECAST_READINGS,
+    searchYears: f.searchYears,
     crossing: iso(f.crossing),
     earliest: iso(f.crossingEarliest),
     latest: iso(f.crossingLatest),
