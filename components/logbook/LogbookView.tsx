@@ -238,7 +238,7 @@ function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
           description={`Usable travel ${(trend.takeUp.limit * len.scale).toFixed(len.digits)} ${len.unit} of ${(trend.travel * len.scale).toFixed(len.digits)} ${len.unit}, keeping ${(trend.takeUp.thermalReserve * len.scale).toFixed(len.digits)} ${len.unit} for heat (from ${trend.takeUp.source}).`}
         />
         <CardBody className="space-y-2">
-          <TrendChart title={`Position below the top stop, ${len.unit}`} unit={len.unit} scale={len.scale} digits={len.digits} points={trend.takeUpSeries.points} forecast={tf} limit={trend.takeUp.limit} warning={trend.takeUp.warning} testId="take-up-chart" />
+          <TrendChart title={`Position below the top stop, ${len.unit}`} unit={len.unit} scale={len.scale} digits={len.digits} points={trend.takeUpSeries.points} earlier={trend.takeUpSeries.earlier} resets={trend.takeUpSeries.resets} forecast={tf} limit={trend.takeUp.limit} warning={trend.takeUp.warning} testId="take-up-chart" />
           <p className="text-[13.5px]" data-testid="take-up-forecast">
             {tf?.crossing ? `Runs out of travel around ${day(tf.crossing)} (95 %: ${day(tf.earliest)} – ${day(tf.latest)}), from ${tf.points} readings.` : noForecastWords(tf, trend.takeUpSeries.points.length)}
             {trend.takeUpSeries.since ? ` Readings since links were removed on ${day(trend.takeUpSeries.since)}.` : ""}
@@ -275,10 +275,26 @@ function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; trend: Tre
   const num = (k: string) => (v[k] === undefined || v[k] === "" ? undefined : Number(v[k]));
   const set = (k: string) => (e: { target: { value: string } }) => setV({ ...v, [k]: e.target.value });
 
+  // Lengths are typed in the form's unit (mm or in): problems are said in that unit too, never in metres.
+  const lengthIssues = (): Record<string, string> => {
+    const out: Record<string, string> = {};
+    const fields = kind === "elongation" ? [["measuredLength", "Measured length"]] : kind === "take-up" ? [["position", "Position"]] : [];
+    for (const [k, label] of fields) if (num(k) === undefined || !Number.isFinite(num(k)!)) out[k] = `${label} must be a number in ${len.unit}`;
+    return out;
+  };
+  const inFormUnits = (serverIssues: Record<string, string>): Record<string, string> =>
+    serverIssues.position ? { ...serverIssues, position: `Position must be within the take-up travel of ${(trend.travel * len.scale).toFixed(len.digits)} ${len.unit}` } : serverIssues;
+
   const submit = async () => {
-    setBusy(true);
     setIssues({});
     setMessage(null);
+    const local = lengthIssues();
+    if (Object.keys(local).length) {
+      setIssues(local);
+      setMessage("Check the marked fields.");
+      return;
+    }
+    setBusy(true);
     try {
       const body: Record<string, unknown> = { kind, liftId, notes: v.notes || undefined, measuredAt: v.measuredAt ? new Date(v.measuredAt).toISOString() : undefined };
       if (kind === "elongation") Object.assign(body, { measuredLength: (num("measuredLength") ?? NaN) / len.scale, pitches: num("pitches") });
@@ -305,7 +321,7 @@ function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; trend: Tre
       onSaved(r.alerts);
     } catch (err) {
       if (err instanceof ApiError) {
-        setIssues(issueMap(err.issues));
+        setIssues(inFormUnits(issueMap(err.issues)));
         setMessage(err.message);
       } else setMessage(String(err));
     } finally {

@@ -79,7 +79,16 @@ export interface Trend {
   travel: number;
   takeUp: { limit: number; warning: number; thermalReserve: number; elasticExcursion: number | null; source: string };
   elongation: { points: { at: string; value: number }[]; latest: number | null; forecast: ForecastView | null };
-  takeUpSeries: { points: { at: string; value: number }[]; latest: number | null; since: string | null; forecast: ForecastView | null };
+  takeUpSeries: {
+    points: { at: string; value: number }[];
+    latest: number | null;
+    since: string | null;
+    forecast: ForecastView | null;
+    /** Readings before the latest links removal: drawn for context, not part of the trend. */
+    earlier: { at: string; value: number }[];
+    /** When links were removed (each one resets the take-up). */
+    resets: string[];
+  };
   alerts: AlertView[];
 }
 
@@ -127,9 +136,11 @@ async function buildTrend(ctx: LiftContext, organisationId: number): Promise<Tre
   const el = rows.filter((r) => r.kind === "elongation" && r.elongationPercent !== null).map((r) => ({ at: r.measuredAt, value: r.elongationPercent! }));
   // Removing links resets the take-up: its trend starts again after the latest removal.
   const lastRemoval = [...rows].reverse().find((r) => r.kind === "links-removed");
-  const tu = rows
-    .filter((r) => r.kind === "take-up" && r.takeUpPosition !== null && (!lastRemoval || r.measuredAt >= lastRemoval.measuredAt))
-    .map((r) => ({ at: r.measuredAt, value: r.takeUpPosition! }));
+  const after = (r: LogbookEntry) => !lastRemoval || r.measuredAt >= lastRemoval.measuredAt;
+  const readings = rows.filter((r) => r.kind === "take-up" && r.takeUpPosition !== null);
+  const tu = readings.filter(after).map((r) => ({ at: r.measuredAt, value: r.takeUpPosition! }));
+  const earlier = readings.filter((r) => !after(r)).map((r) => ({ at: r.measuredAt.toISOString(), value: r.takeUpPosition! }));
+  const resets = rows.filter((r) => r.kind === "links-removed").map((r) => r.measuredAt.toISOString());
   const lim = takeUpLimits(ctx.travel, ctx.thermalReserve, settings.takeUpWarning);
   return {
     liftId: ctx.lift.id,
@@ -148,6 +159,8 @@ async function buildTrend(ctx: LiftContext, organisationId: number): Promise<Tre
       latest: tu.length ? tu[tu.length - 1].value : null,
       since: lastRemoval ? lastRemoval.measuredAt.toISOString() : null,
       forecast: forecastView(forecastCrossing(tu, lim.limit)),
+      earlier,
+      resets,
     },
     alerts: await openAlerts(organisationId, ctx.lift.id),
   };
