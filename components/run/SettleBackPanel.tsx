@@ -39,6 +39,7 @@ export function SettleBackPanel({ data }: { data: RunData }) {
             s.setT(account.catchTime);
           }}
           data-testid="go-to-catch"
+          className="shrink-0 whitespace-nowrap"
         >
           Go to the catch
         </Button>

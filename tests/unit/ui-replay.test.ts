@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildLiftDrawing, fitView } from "@/components/replay/geometry";
+import { buildLiftDrawing, fitView, labelBesideTrack, zoomTransform } from "@/components/replay/geometry";
 import { frameAt, frameIndexAt } from "@/components/replay/frames";
 import { ardCatchTimes, runEvents } from "@/components/replay/events";
 import { bandOf, TENSION_BANDS, viridis } from "@/components/replay/palette";
@@ -10,6 +10,20 @@ import type { Summary } from "@/sim";
 const lift = { approachLength: 15, sagRadius: 30, angle: 40, inclineLength: 50, crestRadius: 25, exitLength: 40, chainFrom: 10, chainTo: 122, dogRelease: 120, bottomRun: 4 };
 
 describe("replay geometry", () => {
+  it("puts a label beside the track on the ground side, clear of the track line", () => {
+    const d = buildLiftDrawing(lift);
+    const v = fitView(d.bounds, 1000, 400);
+    // Mid-incline (40°): the label sits 26 px from the track along its normal, below it (larger screen y).
+    const s = 15 + 30 * ((40 * Math.PI) / 180) + 25;
+    const l = labelBesideTrack(d, s, v, 26);
+    const th = (40 * Math.PI) / 180;
+    // Distance from the track line through `at` with screen direction (cos θ, −sin θ).
+    const dist = Math.abs((l.x - l.at.x) * Math.sin(th) + (l.y - l.at.y) * Math.cos(th));
+    expect(dist).toBeCloseTo(26, 6);
+    expect(l.y).toBeGreaterThan(l.at.y);
+    expect(l.align).toBe("left");
+  });
+
   it("lays the chain loop along the track: carrying strand under the track, closed loop", () => {
     const d = buildLiftDrawing(lift, { travel: 2.5, position: 1.2 });
     expect(d.loopLength).toBeCloseTo(2 * 112 + 4, 9);
@@ -105,5 +119,17 @@ describe("frames, events, palette and plot data", () => {
     expect(csv[1].split(",")).toHaveLength(head.length);
     expect(nearestSample(t, 0.7)).toBe(1);
     expect(nearestSample(t, 0.8)).toBe(2);
+  });
+});
+
+describe("replay zoom", () => {
+  it("centres the zoomed view on the point and stops at the drawing's edges", () => {
+    // ×4 on a 1000 × 400 canvas centred on (500, 200): the point stays mid-canvas, shift −1500, −600.
+    expect(zoomTransform(4, { x: 500, y: 200 }, 1000, 400)).toEqual({ scale: 4, x: -1500, y: -600 });
+    // Near the left/top corner the view stops at the edge instead of showing beyond the drawing.
+    expect(zoomTransform(4, { x: 10, y: 10 }, 1000, 400)).toEqual({ scale: 4, x: 0, y: 0 });
+    // … and at the right/bottom edge: shift at most width − 4 × width.
+    expect(zoomTransform(4, { x: 995, y: 399 }, 1000, 400)).toEqual({ scale: 4, x: -3000, y: -1200 });
+    expect(zoomTransform(1, { x: 995, y: 399 }, 1000, 400)).toEqual({ scale: 1, x: 0, y: 0 });
   });
 });
