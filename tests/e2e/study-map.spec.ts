@@ -7,6 +7,8 @@ import { apiAs, signInUi } from "./support/auth";
  * converted, and no SI unit left on the map for a US reader. The viewer account switches units and back.
  */
 test("the operating map names its axes with units in both unit systems", async ({ page }) => {
+  // Two page loads of a study and two profile writes: more than the default 30 s on a busy machine.
+  test.setTimeout(90_000);
   const api = await apiAs("viewer@lanternfell.example");
   const setUnits = async (units: "si" | "us") => expect((await api.patch("/api/me", { data: { units } })).ok()).toBe(true);
   await setUnits("si");
