@@ -8,6 +8,12 @@ export type AlertJson = AlertView;
 export type TrendJson = Trend;
 export type EntryJson = EntryView;
 
+/** How lengths are shown in the logbook: mm (SI) or inches (US customary), scale × SI metres. */
+export type Len = { unit: string; scale: number; digits: number };
+
+/** A date as the logbook shows it ("3 Dec 2026"), "—" for none. */
+export const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString("en-GB", { dateStyle: "medium" }) : "—");
+
 export const KIND_LABELS: Record<EntryJson["kind"], string> = {
   elongation: "Chain elongation",
   "take-up": "Take-up at rest",
