@@ -15,6 +15,7 @@ import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
 import type { CalibrationStatus } from "@/lib/calibration/status";
+import { fitVerdict } from "@/lib/calibration/gate";
 
 interface Params {
   axialStiffness: number;
@@ -126,12 +127,8 @@ export function CalibrationPanel({
   const save = async () => {
     if (!fit || !job) return;
     try {
-      const r = await sendJson<{ currentRevision: { number: number } }>(`/api/recordings/${recordingId}/calibration`, "POST", {
-        version: liftVersion,
-        axialStiffness: fit.fitted.axialStiffness,
-        damping: fit.fitted.damping,
-        ...(job.fitFriction ? { guideFriction: fit.fitted.guideFriction } : {}),
-      });
+      // The server saves the job's own fitted values, and only when the fit passes the quality gate.
+      const r = await sendJson<{ currentRevision: { number: number } }>(`/api/recordings/${recordingId}/calibration`, "POST", { version: liftVersion, calibrationId: job.id });
       setMsg({ tone: "success", text: `Saved as revision ${r.currentRevision.number} of the lift.` });
     } catch (err) {
       setMsg({ tone: "error", text: errorText(err) });
@@ -233,8 +230,9 @@ export function CalibrationPanel({
             <p className="text-[12.5px] text-steel-500">
               {fit.evaluations} engine runs at {fit.settings.segments} segments over {fit.settings.duration.toFixed(1)} s{fit.converged ? "" : " (stopped at the evaluation budget)"}. Headline figures are from these coarse runs; run the scenario again at full fidelity after saving.
             </p>
+            <FitGate fit={fit} units={units} />
             {canSave && (
-              <Button variant="secondary" onClick={() => void save()} data-testid="save-calibration">
+              <Button variant="secondary" onClick={() => void save()} disabled={!fitVerdict(fit).acceptable} data-testid="save-calibration">
                 Save as a new lift revision
               </Button>
             )}
@@ -243,5 +241,20 @@ export function CalibrationPanel({
         <SafetyNote />
       </CardBody>
     </Card>
+  );
+}
+
+/** The quality gate's verdict in words: a fit that fails it can be read here but not saved. */
+function FitGate({ fit, units }: { fit: Fit; units: UnitSystem }) {
+  const v = fitVerdict(fit, (m) => formatQuantity(m, "smallLength", units, 2));
+  return (
+    <Alert tone={v.acceptable ? "success" : "caution"} title={v.acceptable ? "The fit passes the quality check" : "This fit cannot be saved as a lift revision"} testId="calibration-gate">
+      <ul className="list-disc pl-5">
+        {v.findings.map((f, i) => (
+          <li key={i}>{f.text}</li>
+        ))}
+      </ul>
+      {!v.acceptable && <p className="mt-1">Read it, then try another scenario, also fit guide friction, or check the recording&apos;s engagement time and units.</p>}
+    </Alert>
   );
 }

@@ -1,21 +1,22 @@
 "use client";
 /**
- * The logbook of one lift: trend charts with forecasts, the entry form, the filterable table, the lift's
- * levels and its open alerts. Lengths in mm (SI) or inches (US customary) at the edge; SI to the API.
+ * The logbook of one lift: trend cards (TrendCards), the entry form (EntryForm), the filterable table,
+ * the lift's recordings and levels (SettingsForm). Lengths in mm (SI) or inches (US customary) at the edge; SI to the API.
  */
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useState } from "react";
 import { Alert } from "@/components/ui/Alert";
-import { Badge } from "@/components/ui/Badge";
-import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Input, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
-import { ApiError, getJson, issueMap, newIdempotencyKey, queryString, sendJson } from "@/lib/client/fetch";
+import { getJson, queryString } from "@/lib/client/fetch";
 import type { UnitSystem } from "@/lib/client/units";
-import { TrendChart } from "./TrendChart";
+import { EntryForm } from "./EntryForm";
+import { Reading } from "./Reading";
+import { SettingsForm } from "./SettingsForm";
+import { TrendCards } from "./TrendCards";
 import { KIND_LABELS, type AlertJson, type EntryJson, type TrendJson } from "./types";
 
 const INCH = 0.0254;
@@ -27,7 +28,6 @@ interface RecordingJson {
   duration: number;
   createdAt: string;
 }
-const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString("en-GB", { dateStyle: "medium" }) : "—");
 
 export function LogbookView({
   lifts,
@@ -178,257 +178,5 @@ export function LogbookView({
       {canSettings && trend && <SettingsForm liftId={liftId} trend={trend} onSaved={load} />}
       <SafetyNote />
     </div>
-  );
-}
-
-type Len = { unit: string; scale: number; digits: number };
-
-function Reading({ e, len }: { e: EntryJson; len: Len }) {
-  const d = e.data as Record<string, number | string | null | number[]>;
-  if (e.kind === "elongation") return <span>{e.elongationPercent!.toFixed(2)} % over {String(d.pitches)} pitches</span>;
-  if (e.kind === "take-up") return <span>{(e.takeUpPosition! * len.scale).toFixed(len.digits)} {len.unit} below the top stop</span>;
-  if (e.kind === "links-removed")
-    return (
-      <span>
-        {String(d.links)} links: take-up rises {((d.rise as number) * len.scale).toFixed(len.digits)} {len.unit}
-        {d.expectedPosition !== null ? `, expected at ${((d.expectedPosition as number) * len.scale).toFixed(len.digits)} ${len.unit}` : ""}
-      </span>
-    );
-  if (e.kind === "lubrication") return <span>{(d.lubricant as string) ?? "—"}</span>;
-  return (
-    <span>
-      {String(d.findings)}
-      {e.photos.map((p) => (
-        <a key={p.id} href={p.url} target="_blank" rel="noreferrer" className="ml-2 underline">
-          photo
-        </a>
-      ))}
-    </span>
-  );
-}
-
-function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
-  const ef = trend.elongation.forecast;
-  const tf = trend.takeUpSeries.forecast;
-  return (
-    <div className="grid gap-5 lg:grid-cols-2">
-      <Card>
-        <CardHeader title="Chain elongation" description={`Replacement limit ${trend.settings.elongationLimit} % (common practice for roller chain, no source), warning ${trend.settings.elongationWarning} %.`} />
-        <CardBody className="space-y-2">
-          <TrendChart title="Elongation, %" unit="%" scale={1} digits={2} points={trend.elongation.points} forecast={ef} limit={trend.settings.elongationLimit} warning={trend.settings.elongationWarning} testId="elongation-chart" />
-          <p className="text-[13.5px]" data-testid="elongation-forecast">
-            {ef?.crossing
-              ? `Reaches ${trend.settings.elongationLimit} % around ${day(ef.crossing)} (95 %: ${day(ef.earliest)} – ${day(ef.latest)}), from ${ef.points} readings.`
-              : "Not enough rising readings for a forecast."}
-          </p>
-        </CardBody>
-      </Card>
-      <Card>
-        <CardHeader
-          title="Take-up at rest"
-          description={`Usable travel ${(trend.takeUp.limit * len.scale).toFixed(len.digits)} ${len.unit} of ${(trend.travel * len.scale).toFixed(len.digits)} ${len.unit}, keeping ${(trend.takeUp.thermalReserve * len.scale).toFixed(len.digits)} ${len.unit} for heat (from ${trend.takeUp.source}).`}
-        />
-        <CardBody className="space-y-2">
-          <TrendChart title={`Position below the top stop, ${len.unit}`} unit={len.unit} scale={len.scale} digits={len.digits} points={trend.takeUpSeries.points} forecast={tf} limit={trend.takeUp.limit} warning={trend.takeUp.warning} testId="take-up-chart" />
-          <p className="text-[13.5px]" data-testid="take-up-forecast">
-            {tf?.crossing ? `Runs out of travel around ${day(tf.crossing)} (95 %: ${day(tf.earliest)} – ${day(tf.latest)}).` : "No forecast of the take-up running out."}
-            {trend.takeUpSeries.since ? ` Readings since links were removed on ${day(trend.takeUpSeries.since)}.` : ""}
-          </p>
-          {trend.takeUp.elasticExcursion !== null && (
-            <p className="text-[12.5px] text-steel-500">The weight rises about {(trend.takeUp.elasticExcursion * len.scale).toFixed(len.digits)} {len.unit} when a train loads the chain: keep that much room above it.</p>
-          )}
-        </CardBody>
-      </Card>
-      {trend.alerts.length > 0 && (
-        <div className="lg:col-span-2">
-          <Alert tone="caution" title="Open alerts">
-            <ul>
-              {trend.alerts.map((a) => (
-                <li key={a.id}>
-                  <Badge tone={a.level === "limit" ? "fail" : "caution"}>{a.level}</Badge> {a.message}
-                </li>
-              ))}
-            </ul>
-          </Alert>
-        </div>
-      )}
-    </div>
-  );
-}
-
-function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; trend: TrendJson; len: Len; onSaved: (a: AlertJson[]) => void }) {
-  const [kind, setKind] = useState<EntryJson["kind"]>("take-up");
-  const [v, setV] = useState<Record<string, string>>({ pitches: "20" });
-  const [issues, setIssues] = useState<Record<string, string>>({});
-  const [busy, setBusy] = useState(false);
-  const [message, setMessage] = useState<string | null>(null);
-  const [photo, setPhoto] = useState<File | null>(null);
-  // One key per entry being written: Save pressed again after a lost answer cannot store it twice.
-  const [writeKey, setWriteKey] = useState(newIdempotencyKey);
-  const num = (k: string) => (v[k] === undefined || v[k] === "" ? undefined : Number(v[k]));
-  const set = (k: string) => (e: { target: { value: string } }) => setV({ ...v, [k]: e.target.value });
-
-  const submit = async () => {
-    setBusy(true);
-    setIssues({});
-    setMessage(null);
-    try {
-      const body: Record<string, unknown> = { kind, liftId, notes: v.notes || undefined, measuredAt: v.measuredAt ? new Date(v.measuredAt).toISOString() : undefined };
-      if (kind === "elongation") Object.assign(body, { measuredLength: (num("measuredLength") ?? NaN) / len.scale, pitches: num("pitches") });
-      if (kind === "take-up") body.position = (num("position") ?? NaN) / len.scale;
-      if (kind === "links-removed") body.links = num("links");
-      if (kind === "lubrication") body.lubricant = v.lubricant || undefined;
-      if (kind === "inspection") {
-        body.findings = v.findings ?? "";
-        if (photo) {
-          const form = new FormData();
-          form.set("liftId", String(liftId));
-          form.set("file", photo);
-          const res = await fetch("/api/uploads", { method: "POST", body: form });
-          const j = await res.json();
-          if (!res.ok) throw new ApiError(res.status, j.error, j.issues ?? []);
-          body.photoIds = [j.id];
-        }
-      }
-      const r = await sendJson<{ alerts: AlertJson[]; computed: Record<string, number | null> }>("/api/logbook/entries", "POST", body, { idempotencyKey: writeKey });
-      setWriteKey(newIdempotencyKey());
-      if (kind === "links-removed") setMessage(`Saved. The take-up should rise ${((r.computed.rise ?? 0) * len.scale).toFixed(len.digits)} ${len.unit}.`);
-      else setMessage("Saved.");
-      setV({ pitches: "20" });
-      setPhoto(null);
-      onSaved(r.alerts);
-    } catch (err) {
-      if (err instanceof ApiError) {
-        setIssues(issueMap(err.issues));
-        setMessage(err.message);
-      } else setMessage(String(err));
-    } finally {
-      setBusy(false);
-    }
-  };
-
-  return (
-    <Card>
-      <CardHeader title="Log an entry" description={`Nominal pitch ${(trend.pitch * len.scale).toFixed(len.digits === 0 ? 1 : 3)} ${len.unit}; take-up travel ${(trend.travel * len.scale).toFixed(len.digits)} ${len.unit}.`} />
-      <CardBody>
-        <form
-          className="grid gap-3 md:grid-cols-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            void submit();
-          }}
-          data-testid="entry-form"
-        >
-          <Field label="Type" name="kind">
-            <Select id="kind" value={kind} onChange={(e) => setKind(e.target.value as EntryJson["kind"])}>
-              {Object.entries(KIND_LABELS).map(([k, l]) => (
-                <option key={k} value={k}>
-                  {l}
-                </option>
-              ))}
-            </Select>
-          </Field>
-          <Field label="When" name="measuredAt" hint="Leave empty for now." error={issues.measuredAt}>
-            <Input id="measuredAt" type="datetime-local" value={v.measuredAt ?? ""} onChange={set("measuredAt")} />
-          </Field>
-          {kind === "elongation" && (
-            <>
-              <Field label={`Measured length (${len.unit})`} name="measuredLength" error={issues.measuredLength}>
-                <Input id="measuredLength" inputMode="decimal" value={v.measuredLength ?? ""} onChange={set("measuredLength")} />
-              </Field>
-              <Field label="Over pitches" name="pitches" error={issues.pitches}>
-                <Input id="pitches" inputMode="numeric" value={v.pitches ?? ""} onChange={set("pitches")} />
-              </Field>
-            </>
-          )}
-          {kind === "take-up" && (
-            <Field label={`Position below the top stop (${len.unit})`} name="position" error={issues.position}>
-              <Input id="position" inputMode="decimal" value={v.position ?? ""} onChange={set("position")} />
-            </Field>
-          )}
-          {kind === "links-removed" && (
-            <Field label="Links removed" name="links" error={issues.links}>
-              <Input id="links" inputMode="numeric" value={v.links ?? ""} onChange={set("links")} />
-            </Field>
-          )}
-          {kind === "lubrication" && (
-            <Field label="Lubricant" name="lubricant">
-              <Input id="lubricant" value={v.lubricant ?? ""} onChange={set("lubricant")} />
-            </Field>
-          )}
-          {kind === "inspection" && (
-            <>
-              <Field label="Findings" name="findings" error={issues.findings} className="md:col-span-2">
-                <Input id="findings" value={v.findings ?? ""} onChange={set("findings")} />
-              </Field>
-              <Field label="Photo (JPEG, PNG, GIF or WebP, ≤ 5 MiB)" name="photo" error={issues.file}>
-                <input id="photo" type="file" accept="image/jpeg,image/png,image/gif,image/webp" onChange={(e) => setPhoto(e.target.files?.[0] ?? null)} className="text-[13px]" />
-              </Field>
-            </>
-          )}
-          <Field label="Notes" name="notes" className="md:col-span-3">
-            <Input id="notes" value={v.notes ?? ""} onChange={set("notes")} />
-          </Field>
-          <div className="flex items-center gap-3 md:col-span-3">
-            <Button type="submit" busy={busy} data-testid="save-entry">
-              Save entry
-            </Button>
-            {message && (
-              <span className="text-[13px] text-steel-700" data-testid="entry-message">
-                {message}
-              </span>
-            )}
-          </div>
-        </form>
-      </CardBody>
-    </Card>
-  );
-}
-
-function SettingsForm({ liftId, trend, onSaved }: { liftId: number; trend: TrendJson; onSaved: () => void }) {
-  const s = trend.settings;
-  const [v, setV] = useState({ elongationLimit: String(s.elongationLimit), elongationWarning: String(s.elongationWarning), takeUpWarning: String(s.takeUpWarning * 100), horizonDays: String(s.horizonDays) });
-  const [issues, setIssues] = useState<Record<string, string>>({});
-  const [msg, setMsg] = useState<string | null>(null);
-  const save = async () => {
-    try {
-      await sendJson(`/api/logbook/lifts/${liftId}/settings`, "PUT", {
-        version: s.version,
-        elongationLimit: Number(v.elongationLimit),
-        elongationWarning: Number(v.elongationWarning),
-        takeUpWarning: Number(v.takeUpWarning) / 100,
-        horizonDays: Number(v.horizonDays),
-      });
-      setIssues({});
-      setMsg("Levels saved.");
-      onSaved();
-    } catch (err) {
-      if (err instanceof ApiError) setIssues(issueMap(err.issues));
-      setMsg(err instanceof Error ? err.message : String(err));
-    }
-  };
-  const f = (k: keyof typeof v, label: string) => (
-    <Field label={label} name={k} error={issues[k]}>
-      <Input id={k} inputMode="decimal" value={v[k]} onChange={(e) => setV({ ...v, [k]: e.target.value })} />
-    </Field>
-  );
-  return (
-    <Card>
-      <CardHeader title="Levels for this lift" description="The replacement limit defaults to 3 % (common practice for roller chain, no source); the manufacturer's figure governs." />
-      <CardBody>
-        <div className="grid gap-3 md:grid-cols-4">
-          {f("elongationLimit", "Elongation limit, %")}
-          {f("elongationWarning", "Elongation warning, %")}
-          {f("takeUpWarning", "Take-up warning, % of usable travel")}
-          {f("horizonDays", "Forecast horizon, days")}
-        </div>
-        <div className="mt-3 flex items-center gap-3">
-          <Button variant="secondary" onClick={() => void save()}>
-            Save levels
-          </Button>
-          {msg && <span className="text-[13px] text-steel-700">{msg}</span>}
-        </div>
-      </CardBody>
-    </Card>
   );
 }

@@ -1,12 +1,27 @@
 "use client";
 /**
- * A logbook trend with uPlot: the readings as points, the least-squares line with its 95 % band, and the
- * limit and warning levels. Values are shown in the unit the caller gives (`scale` × SI).
+ * A logbook trend with uPlot: the readings as points (earlier ones, before links were removed, hollow and
+ * grey), the least-squares line with its 95 % band, the limit and warning levels, and a mark where links
+ * were removed. Each series has its own colour and line style, named in the legend. The chart always
+ * draws its levels, so it stays on screen with no readings (e.g. right after links were removed).
+ * Values are shown in the unit the caller gives (`scale` × SI).
  */
 import { useEffect, useRef } from "react";
 import uPlot from "uplot";
 import "uplot/dist/uPlot.min.css";
 import type { ForecastJson } from "./types";
+
+type Point = { at: string; value: number };
+
+const STYLE = {
+  reading: "#1f5fa8",
+  earlier: "#8796a5",
+  trend: "#0f766e",
+  band: "#0f766e",
+  limit: "#b3261e",
+  warning: "#b86e00",
+  reset: "#6a3fa0",
+};
 
 export function TrendChart({
   title,
@@ -14,6 +29,8 @@ export function TrendChart({
   scale,
   digits,
   points,
+  earlier = [],
+  resets = [],
   forecast,
   limit,
   warning,
@@ -23,7 +40,9 @@ export function TrendChart({
   unit: string;
   scale: number;
   digits: number;
-  points: { at: string; value: number }[];
+  points: Point[];
+  earlier?: Point[];
+  resets?: string[];
   forecast: ForecastJson | null;
   limit: number;
   warning: number;
@@ -33,56 +52,87 @@ export function TrendChart({
   useEffect(() => {
     if (!box.current) return;
     const sec = (iso: string) => Date.parse(iso) / 1000;
-    const xs = [...new Set([...points.map((p) => sec(p.at)), ...(forecast?.line ?? []).map((p) => sec(p.at))])].sort((a, b) => a - b);
-    const at = (list: { at: string }[], x: number) => list.findIndex((p) => sec(p.at) === x);
-    const col = (get: (x: number) => number | null) => xs.map(get);
+    const line = forecast?.line ?? [];
+    let xs = [...new Set([...points, ...earlier, ...line].map((p) => sec(p.at)))].sort((a, b) => a - b);
+    // Nothing to show yet: a 90-day window to today, so the levels and axes are still drawn.
+    if (xs.length < 2) {
+      const now = Date.now() / 1000;
+      xs = [...new Set([...xs, now - 90 * 86_400, now])].sort((a, b) => a - b);
+    }
+    const column = (list: Point[], get: (i: number) => number) => {
+      const byX = new Map(list.map((p, i) => [sec(p.at), i]));
+      return xs.map((x) => (byX.has(x) ? get(byX.get(x)!) * scale : null));
+    };
     const data: uPlot.AlignedData = [
       xs,
-      col((x) => {
-        const i = at(points, x);
-        return i < 0 ? null : points[i].value * scale;
-      }),
-      col((x) => {
-        const i = forecast ? at(forecast.line, x) : -1;
-        return i < 0 ? null : forecast!.line[i].value * scale;
-      }),
-      col((x) => {
-        const i = forecast ? at(forecast.line, x) : -1;
-        return i < 0 ? null : forecast!.line[i].lower * scale;
-      }),
-      col((x) => {
-        const i = forecast ? at(forecast.line, x) : -1;
-        return i < 0 ? null : forecast!.line[i].upper * scale;
-      }),
-      col(() => limit * scale),
-      col(() => warning * scale),
+      column(points, (i) => points[i].value),
+      column(earlier, (i) => earlier[i].value),
+      column(line, (i) => line[i].value),
+      column(line, (i) => line[i].lower),
+      column(line, (i) => line[i].upper),
+      xs.map(() => limit * scale),
+      xs.map(() => warning * scale),
     ];
-    const fmt = (v: number | null | undefined) => (v === null || v === undefined ? "—" : v.toFixed(digits));
+    const fmt = (v: number | null | undefined) => (v === null || v === undefined ? "—" : `${v.toFixed(digits)} ${unit}`);
+    const value = (_u: uPlot, v: number | null) => fmt(v);
+    const resetXs = resets.map(sec);
     const u = new uPlot(
       {
         width: Math.max(280, box.current.clientWidth - 8),
-        height: 220,
+        height: 230,
         scales: { x: { time: true } },
-        axes: [{ stroke: "#5f7386", grid: { stroke: "#e3e8ec" } }, { stroke: "#5f7386", grid: { stroke: "#e3e8ec" }, label: unit, size: 56 }],
+        axes: [{ stroke: "#5f7386", grid: { stroke: "#e3e8ec" } }, { stroke: "#5f7386", grid: { stroke: "#e3e8ec" }, label: unit, size: 60 }],
+        legend: { markers: { dash: (self, i) => { const d = self.series[i].dash; return !d || d.length === 0 ? "solid" : d[0] >= 5 ? "dashed" : "dotted"; } } },
         series: [
           {},
-          { label: "reading", stroke: "#1f6fb2", width: 0, points: { show: true, size: 7, fill: "#1f6fb2" }, value: (_u, v) => fmt(v) },
-          { label: "trend", stroke: "#b86e00", width: 1.5, spanGaps: true, value: (_u, v) => fmt(v) },
-          { label: "95 % low", stroke: "#b86e00", width: 1, dash: [4, 4], spanGaps: true, value: (_u, v) => fmt(v) },
-          { label: "95 % high", stroke: "#b86e00", width: 1, dash: [4, 4], spanGaps: true, value: (_u, v) => fmt(v) },
-          { label: "limit", stroke: "#c0392b", width: 1.5, value: (_u, v) => fmt(v) },
-          { label: "warning", stroke: "#e08a00", width: 1, dash: [2, 3], value: (_u, v) => fmt(v) },
+          { label: "reading", stroke: STYLE.reading, width: 0, points: { show: true, size: 7, fill: STYLE.reading, stroke: STYLE.reading }, value },
+          { label: "before links removed", stroke: STYLE.earlier, width: 0, points: { show: true, size: 7, fill: "#ffffff", stroke: STYLE.earlier, width: 1.5 }, value },
+          { label: "trend", stroke: STYLE.trend, width: 2, spanGaps: true, points: { show: false }, value },
+          { label: "95 % band", stroke: STYLE.band, width: 1, dash: [2, 3], spanGaps: true, points: { show: false }, value },
+          { label: "95 % band (upper)", stroke: STYLE.band, width: 1, dash: [2, 3], spanGaps: true, points: { show: false }, value },
+          { label: "limit", stroke: STYLE.limit, width: 2.5, points: { show: false }, value },
+          { label: "warning", stroke: STYLE.warning, width: 1.5, dash: [8, 4], points: { show: false }, value },
         ],
+        bands: [{ series: [5, 4], fill: "rgba(15,118,110,0.08)" }],
+        hooks: {
+          // Links removed: a vertical dash-dot line, labelled, where each reset happened.
+          draw: [
+            (self) => {
+              const ctx = self.ctx;
+              ctx.save();
+              ctx.strokeStyle = STYLE.reset;
+              ctx.fillStyle = STYLE.reset;
+              ctx.lineWidth = 1.5 * devicePixelRatio;
+              ctx.setLineDash([6 * devicePixelRatio, 3 * devicePixelRatio, 1.5 * devicePixelRatio, 3 * devicePixelRatio]);
+              ctx.font = `${11 * devicePixelRatio}px sans-serif`;
+              for (const x of resetXs) {
+                const px = self.valToPos(x, "x", true);
+                if (px < self.bbox.left || px > self.bbox.left + self.bbox.width) continue;
+                ctx.beginPath();
+                ctx.moveTo(px, self.bbox.top);
+                ctx.lineTo(px, self.bbox.top + self.bbox.height);
+                ctx.stroke();
+                ctx.fillText("links removed", px + 4 * devicePixelRatio, self.bbox.top + 12 * devicePixelRatio);
+              }
+              ctx.restore();
+            },
+          ],
+        },
       },
       data,
       box.current,
     );
+    // The band's upper edge shares the legend entry of the lower one.
+    const legendRows = box.current.querySelectorAll(".u-legend .u-series");
+    (legendRows[5] as HTMLElement | undefined)?.style.setProperty("display", "none");
+    if (!earlier.length) (legendRows[2] as HTMLElement | undefined)?.style.setProperty("display", "none");
     return () => u.destroy();
-  }, [points, forecast, limit, warning, scale, digits, unit]);
+  }, [points, earlier, resets, forecast, limit, warning, scale, digits, unit]);
   return (
     <figure className="space-y-1" data-testid={testId}>
       <figcaption className="text-[13px] font-semibold text-ink-800">{title}</figcaption>
       <div ref={box} />
+      {resets.length > 0 && <p className="text-[12px] text-steel-500">Dash-dot purple line: links removed (the take-up trend starts again after the latest).</p>}
     </figure>
   );
 }

@@ -1,50 +1,18 @@
 /** Shapes of the logbook API answers, as the browser sees them (dates as ISO strings, SI values). */
-export interface ForecastJson {
-  crossing: string | null;
-  earliest: string | null;
-  latest: string | null;
-  slopePerDay: number;
-  residualSd: number | null;
-  points: number;
-  reached: boolean;
-  line: { at: string; value: number; lower: number; upper: number }[];
-}
+import type { AlertView } from "@/lib/alerts/notify";
+import type { EntryView, ForecastView, Trend } from "@/lib/logbook/service";
 
-export interface AlertJson {
-  id: number;
-  liftId: number;
-  liftName: string;
-  kind: string;
-  level: string;
-  message: string;
-  createdAt: string;
-  emailedAt: string | null;
-  recipients: string[];
-}
+// The API answers are the lib's view types as they are (dates already ISO strings).
+export type ForecastJson = ForecastView;
+export type AlertJson = AlertView;
+export type TrendJson = Trend;
+export type EntryJson = EntryView;
 
-export interface TrendJson {
-  liftId: number;
-  liftName: string;
-  settings: { elongationLimit: number; elongationWarning: number; takeUpWarning: number; horizonDays: number; version: number };
-  pitch: number;
-  travel: number;
-  takeUp: { limit: number; warning: number; thermalReserve: number; elasticExcursion: number | null; source: string };
-  elongation: { points: { at: string; value: number }[]; latest: number | null; forecast: ForecastJson | null };
-  takeUpSeries: { points: { at: string; value: number }[]; latest: number | null; since: string | null; forecast: ForecastJson | null };
-  alerts: AlertJson[];
-}
+/** How lengths are shown in the logbook: mm (SI) or inches (US customary), scale × SI metres. */
+export type Len = { unit: string; scale: number; digits: number };
 
-export interface EntryJson {
-  id: number;
-  kind: "elongation" | "take-up" | "links-removed" | "lubrication" | "inspection";
-  measuredAt: string;
-  userName: string | null;
-  data: Record<string, unknown>;
-  elongationPercent: number | null;
-  takeUpPosition: number | null;
-  notes: string | null;
-  photos: { id: number; url: string; name: string }[];
-}
+/** A date as the logbook shows it ("3 Dec 2026"), "—" for none. */
+export const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString("en-GB", { dateStyle: "medium" }) : "—");
 
 export const KIND_LABELS: Record<EntryJson["kind"], string> = {
   elongation: "Chain elongation",

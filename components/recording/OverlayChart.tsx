@@ -11,7 +11,7 @@ export interface Trace {
   colour: string;
 }
 
-export function OverlayChart({ traces, unit, scale, testId }: { traces: Trace[]; unit: string; scale: number; testId: string }) {
+export function OverlayChart({ traces, unit, scale, testId, height = 260 }: { traces: Trace[]; unit: string; scale: number; testId: string; height?: number }) {
   const box = useRef<HTMLDivElement>(null);
   useEffect(() => {
     if (!box.current || traces.length === 0) return;
@@ -26,7 +26,7 @@ export function OverlayChart({ traces, unit, scale, testId }: { traces: Trace[];
     const u = new uPlot(
       {
         width: Math.max(280, box.current.clientWidth - 8),
-        height: 260,
+        height,
         scales: { x: { time: false } },
         axes: [{ stroke: "#5f7386", label: "time (s)", grid: { stroke: "#e3e8ec" } }, { stroke: "#5f7386", label: unit, size: 56, grid: { stroke: "#e3e8ec" } }],
         series: [{}, ...traces.map((tr) => ({ label: tr.label, stroke: tr.colour, width: 1.5, spanGaps: true }))],
@@ -35,6 +35,6 @@ export function OverlayChart({ traces, unit, scale, testId }: { traces: Trace[];
       box.current,
     );
     return () => u.destroy();
-  }, [traces, unit, scale]);
+  }, [traces, unit, scale, height]);
   return <div ref={box} data-testid={testId} />;
 }

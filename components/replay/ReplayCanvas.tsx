@@ -5,12 +5,12 @@
  * turning, and a take-up detail with its magnification. Two custom shapes draw everything; the moving
  * one repaints from the replay store outside React, one stroke per tension band per frame.
  */
-import { memo, useEffect, useMemo, useRef, useState } from "react";
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { Layer, Shape, Stage } from "react-konva";
 import type Konva from "konva";
 import type { Frame, Layout, Scenario } from "@/sim";
 import { formatQuantity, fromDisplay, toDisplay, unitOf, type UnitSystem } from "@/lib/client/units";
-import { buildLiftDrawing, fitView, niceLength, type LiftDrawing, type View } from "./geometry";
+import { buildLiftDrawing, fitView, labelBesideTrack, niceLength, zoomTransform, type LiftDrawing, type View } from "./geometry";
 import { frameAt, type FrameView } from "./frames";
 import { BAND_COLOURS, SLACK_COLOUR, TENSION_BANDS, bandOf } from "./palette";
 import { useReplayStore } from "./store";
@@ -71,6 +71,22 @@ function prepare(s: Scenario, layout: Layout, width: number, height: number): Pr
   return { d, v, segs, bottomSegs, stationsQ: q, loop };
 }
 
+/** A label off the track with a thin leader line back to its point. */
+function drawLabel(ctx: CanvasRenderingContext2D, l: ReturnType<typeof labelBesideTrack>, text: string, colour: string) {
+  ctx.save();
+  ctx.strokeStyle = colour;
+  ctx.fillStyle = colour;
+  ctx.lineWidth = 1;
+  ctx.beginPath();
+  ctx.moveTo(l.at.x, l.at.y);
+  ctx.lineTo(l.x, l.y);
+  ctx.stroke();
+  ctx.textAlign = l.align;
+  ctx.textBaseline = "top";
+  ctx.fillText(text, l.x + (l.align === "left" ? 3 : -3), l.y + 2);
+  ctx.restore();
+}
+
 function strokePoly(ctx: CanvasRenderingContext2D, a: Float32Array) {
   ctx.moveTo(a[0], a[1]);
   for (let i = 2; i < a.length; i += 2) ctx.lineTo(a[i], a[i + 1]);
@@ -96,11 +112,40 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
   const prep = useMemo(() => prepare(scenario, layout, width, height), [scenario, layout, width, height]);
   const bottomPaths = useRef<Map<number, Float32Array>>(new Map());
 
-  // Repaint the moving layer whenever the clock or the magnification changes; count paints per second.
+  // Zoom: the stage scales both layers about a centre; following the train moves the centre with it
+  // every frame (then both layers repaint), otherwise the centre stays where the train was when zoomed.
+  const stage = useRef<Konva.Stage>(null);
+  const centre = useRef<{ x: number; y: number } | null>(null);
+  const applyView = useCallback((s: { t: number; zoom: number; follow: boolean }, recentre: boolean): boolean => {
+    const st = stage.current;
+    if (!st) return false;
+    if (s.zoom <= 1) {
+      centre.current = null;
+      if (st.scaleX() === 1 && st.x() === 0 && st.y() === 0) return false;
+      st.scale({ x: 1, y: 1 });
+      st.position({ x: 0, y: 0 });
+      return true;
+    }
+    if (recentre || s.follow || !centre.current) {
+      const p = prep.d.trackAt(frameAt(frames, s.t).trainPosition);
+      centre.current = { x: prep.v.sx(p.x), y: prep.v.sy(p.z) };
+    }
+    const tr = zoomTransform(s.zoom, centre.current, width, height);
+    if (st.scaleX() === tr.scale && st.x() === tr.x && st.y() === tr.y) return false;
+    st.scale({ x: tr.scale, y: tr.scale });
+    st.position({ x: tr.x, y: tr.y });
+    return true;
+  }, [prep, frames, width, height]);
+
+  // Repaint the moving layer whenever the clock or the magnification changes (the whole stage when the
+  // view moves); count paints per second.
   useEffect(() => {
     const unsub = useReplayStore.subscribe((s, prev) => {
-      if (s.t !== prev.t || s.magnify !== prev.magnify) dynLayer.current?.batchDraw();
+      const moved = s.zoom !== prev.zoom || s.follow !== prev.follow || (s.follow && s.t !== prev.t) ? applyView(s, s.zoom !== prev.zoom || s.follow !== prev.follow) : false;
+      if (moved) stage.current?.batchDraw();
+      else if (s.t !== prev.t || s.magnify !== prev.magnify) dynLayer.current?.batchDraw();
     });
+    if (applyView(useReplayStore.getState(), true)) stage.current?.batchDraw();
     dynLayer.current?.batchDraw();
     const timer = setInterval(() => {
       onFps?.(drawCount.current, drawCount.current ? drawTime.current / drawCount.current : 0);
@@ -111,7 +156,7 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
       unsub();
       clearInterval(timer);
     };
-  }, [prep, frames, onFps]);
+  }, [prep, frames, onFps, applyView]);
 
   const drawStatic = (c: Konva.Context) => {
     const ctx = nativeCtx(c);
@@ -157,7 +202,7 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     ctx.stroke();
     ctx.fillStyle = "#5f7386";
     ctx.font = "11px ui-sans-serif, system-ui";
-    ctx.fillText("dog release", v.sx(rel.x) + 4, v.sy(rel.z) - 8);
+    drawLabel(ctx, labelBesideTrack(d, scenario.lift.dogRelease, v, 24), "dog release", "#5f7386");
     // Top idler.
     ctx.strokeStyle = "#10202e";
     ctx.lineWidth = 1.5;
@@ -294,9 +339,8 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
         ctx.beginPath();
         ctx.arc(v.sx(p.x), v.sy(p.z) - 4, 11, 0, Math.PI * 2);
         ctx.stroke();
-        ctx.fillStyle = "#c0392b";
         ctx.font = "bold 11px ui-sans-serif, system-ui";
-        ctx.fillText("ARD catch", v.sx(p.x) + 14, v.sy(p.z) - 12);
+        drawLabel(ctx, labelBesideTrack(d, f.ardTooth, v, 30), "ARD catch", "#c0392b");
       }
     }
     // Drive sprocket, turning with the chain.
@@ -373,7 +417,7 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
 
   return (
     <div ref={box} className="relative w-full overflow-hidden rounded-md border border-steel-300/70 bg-[#fbfaf7]" style={{ height }} data-testid="replay-canvas">
-      <Stage width={width} height={height} listening={false}>
+      <Stage ref={stage} width={width} height={height} listening={false}>
         <Layer listening={false}>
           <Shape sceneFunc={drawStatic} listening={false} perfectDrawEnabled={false} />
         </Layer>

@@ -12,7 +12,7 @@ import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { frameAt, frameIndexAt } from "./frames";
 import { runEvents, type EventKind, type RunEvent } from "./events";
 import { viridis } from "./palette";
-import { SPEEDS, useReplayStore, useReplayTime } from "./store";
+import { SPEEDS, ZOOMS, useReplayStore, useReplayTime } from "./store";
 
 const ReplayCanvas = dynamic(() => import("./ReplayCanvas").then((m) => m.ReplayCanvas), {
   ssr: false,
@@ -58,6 +58,8 @@ export function ReplayPanel({
   const playing = useReplayStore((s) => s.playing);
   const speed = useReplayStore((s) => s.speed);
   const magnify = useReplayStore((s) => s.magnify);
+  const zoom = useReplayStore((s) => s.zoom);
+  const follow = useReplayStore((s) => s.follow);
   const t = useReplayTime();
   const st = useReplayStore.getState;
   const [fps, setFps] = useState(0);
@@ -185,7 +187,7 @@ export function ReplayPanel({
             }}
             data-testid="replay-play"
             aria-label={playing ? "Pause" : "Play"}
-            className="w-20"
+            className="min-w-[5.5rem] whitespace-nowrap"
           >
             {playing ? "❚❚ Pause" : "▶ Play"}
           </Button>
@@ -216,7 +218,21 @@ export function ReplayPanel({
             ))}
           </select>
         </label>
-        <div className="ml-auto flex items-center gap-3 font-mono text-[12.5px] tabular-nums text-ink-900" data-testid="replay-readout">
+        <label className="flex items-center gap-1.5 whitespace-nowrap text-[12.5px] text-steel-500">
+          Zoom
+          <select className="h-8 rounded-md border border-steel-300 bg-white px-1.5 text-[13px] text-ink-900" value={zoom} onChange={(e) => useReplayStore.getState().setZoom(Number(e.target.value))} data-testid="replay-zoom">
+            {ZOOMS.map((z) => (
+              <option key={z} value={z}>
+                ×{z}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-1.5 whitespace-nowrap text-[12.5px] text-steel-500">
+          <input type="checkbox" checked={follow} onChange={(e) => useReplayStore.getState().setFollow(e.target.checked)} data-testid="replay-follow" />
+          Follow the train
+        </label>
+        <div className="ml-auto flex items-center gap-3 whitespace-nowrap font-mono text-[12.5px] tabular-nums text-ink-900" data-testid="replay-readout">
           <span data-testid="replay-time">t = {t.toFixed(2)} s</span>
           <span className="text-steel-500">/ {duration.toFixed(1)} s</span>
         </div>

@@ -213,3 +213,34 @@ export function niceLength(target: number): number {
   for (const m of [1, 2, 5, 10]) if (m * p >= target) return m * p;
   return 10 * p;
 }
+
+/**
+ * Where a label for a point on the track goes so it does not print over the track: `gap` pixels from
+ * the track along its normal on the ground side (below the track, where the chain and the ARD run),
+ * with the text aligned away from the track. Screen coordinates (y down). Pure.
+ */
+export function labelBesideTrack(d: Pick<LiftDrawing, "trackAt">, s: number, v: View, gap = 26): { x: number; y: number; align: "left" | "right"; at: { x: number; y: number } } {
+  const p = d.trackAt(s);
+  const at = { x: v.sx(p.x), y: v.sy(p.z) };
+  // Screen tangent of the track at s: along +s the screen x grows with cos φ and y falls with sin φ.
+  const tx = Math.cos(p.phi);
+  const ty = -Math.sin(p.phi);
+  // The normal pointing down the screen (toward the ground).
+  let nx = -ty;
+  let ny = tx;
+  if (ny < 0) {
+    nx = -nx;
+    ny = -ny;
+  }
+  return { x: at.x + nx * gap, y: at.y + ny * gap, align: nx >= 0 ? "left" : "right", at };
+}
+
+/**
+ * The canvas transform for a zoom of `zoom` × centred on a point of the fitted drawing (screen px),
+ * kept inside the drawing: scale, then shift so the point sits mid-canvas unless an edge would show.
+ */
+export function zoomTransform(zoom: number, center: { x: number; y: number }, width: number, height: number): { scale: number; x: number; y: number } {
+  const z = Math.max(1, zoom);
+  const clamp = (v: number, lo: number, hi: number) => Math.max(lo, Math.min(hi, v));
+  return { scale: z, x: clamp(width / 2 - z * center.x, width - z * width, 0), y: clamp(height / 2 - z * center.y, height - z * height, 0) };
+}

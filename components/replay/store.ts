@@ -12,6 +12,9 @@ interface ReplayState {
   speed: number;
   /** Take-up drawing magnification (its real motion is centimetres on a drawing of tens of metres). */
   magnify: number;
+  /** Drawing zoom (1 = the whole lift) and whether the view follows the train. */
+  zoom: number;
+  follow: boolean;
   setT(t: number): void;
   setDuration(d: number): void;
   setPlaying(p: boolean): void;
@@ -19,7 +22,11 @@ interface ReplayState {
   faster(): void;
   slower(): void;
   setMagnify(m: number): void;
+  setZoom(z: number): void;
+  setFollow(f: boolean): void;
 }
+
+export const ZOOMS = [1, 2, 4, 8] as const;
 
 export const useReplayStore = create<ReplayState>((set, get) => ({
   t: 0,
@@ -27,6 +34,8 @@ export const useReplayStore = create<ReplayState>((set, get) => ({
   playing: false,
   speed: 1,
   magnify: 20,
+  zoom: 1,
+  follow: false,
   setT: (t) => set({ t: Math.max(0, Math.min(get().duration, t)) }),
   setDuration: (d) => set({ duration: d, t: Math.min(get().t, d) }),
   setPlaying: (p) => set({ playing: p }),
@@ -40,6 +49,8 @@ export const useReplayStore = create<ReplayState>((set, get) => ({
     set({ speed: SPEEDS[Math.max(0, (i < 0 ? 2 : i) - 1)] });
   },
   setMagnify: (m) => set({ magnify: m }),
+  setZoom: (z) => set({ zoom: z }),
+  setFollow: (f) => set({ follow: f }),
 }));
 
 /**

@@ -55,6 +55,7 @@ function SettleBackCard({ label, account, units }: { label: string; account: Set
             s.setT(account.catchTime);
           }}
           data-testid="go-to-catch"
+          className="shrink-0 whitespace-nowrap"
         >
           Go to the catch
         </Button>

@@ -10,7 +10,8 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { SAFETY_CAUTION } from "@/components/ui/SafetyNote";
 import { ReportPanel } from "@/components/report/ReportPanel";
 import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
-import { StudyLinePlots, StudyMap } from "./StudyCharts";
+import { StudyLinePlots } from "./StudyCharts";
+import { OperatingMap } from "./OperatingMap";
 import { getJson } from "@/lib/client/fetch";
 
 function duration(s: number | null): string {
@@ -125,18 +126,25 @@ export function StudyDetail({
         <CardHeader title="Recommended operating window" description={study.requireNoArdCatch ? "Acceptable: no check fails, and no settle-back onto the ARD." : "Acceptable: no check fails (ARD catches allowed)."} />
         <CardBody>
           <p className="text-[15px] font-semibold text-ink-900" data-testid="study-window">
-            {study.window?.text}
+            {study.regionText ?? study.window?.text}
           </p>
+          {study.regionText && study.window?.text ? (
+            <p className="mt-1 text-[13px] text-steel-600" data-testid="study-window-rows">
+              Row by row: {study.window.text}
+            </p>
+          ) : null}
           {/* The page footer carries the caution too; here it stands beside the window itself. */}
           <p className="mt-2 text-[12.5px] text-steel-500">{SAFETY_CAUTION}</p>
         </CardBody>
       </Card>
 
-      {study.parameters.length === 2 ? (
+      {study.region ? (
         <Card>
-          <CardHeader title="Acceptable region" />
+          <CardHeader title="Operating map" description="Each case of the grid, coloured by its worst check; contours of the governing check; the recommended window outlined." />
           <CardBody>
-            <StudyMap study={study} units={units} />
+            <div data-testid="study-map">
+              <OperatingMap region={study.region} units={units} />
+            </div>
           </CardBody>
         </Card>
       ) : null}
@@ -170,6 +178,7 @@ export function StudyDetail({
                 {th("idx", "#")}
                 {study.parameters.map((p) => th(`p:${p.key}`, paramHeader(p.key, units)))}
                 {th("acceptable", "Acceptable")}
+                <th className="px-2 py-1.5 text-left font-medium">Failing check</th>
                 {FIGURES.map((f) => th(f.key, `${f.label}${unitLabel(f.quantity, units)}`))}
                 <th className="px-2 py-1.5" />
               </tr>
@@ -191,6 +200,12 @@ export function StudyDetail({
                     ) : (
                       <Badge tone="fail">no</Badge>
                     )}
+                  </td>
+                  <td className="px-2 py-1" data-testid="case-failing">
+                    {((c.checks ?? []) as { state: string; label: string }[])
+                      .filter((ch) => ch.state === "fail")
+                      .map((ch) => ch.label)
+                      .join(", ") || "—"}
                   </td>
                   {FIGURES.map((f) => (
                     <td key={f.key} className="px-2 py-1 tabular-nums">

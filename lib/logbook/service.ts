@@ -14,7 +14,7 @@ import { evaluateAlerts } from "@/lib/alerts/evaluate";
 import { clearAlerts, openAlerts, raiseAlerts, type AlertView } from "@/lib/alerts/notify";
 import { getModels, type LogbookEntry, type LogbookSetting } from "@/models";
 import { loadLiftContext, type LiftContext } from "./context";
-import { forecastCrossing, type Forecast } from "./forecast";
+import { MIN_FORECAST_READINGS, forecastCrossing, type Forecast, type ForecastStatus } from "./forecast";
 import { elongationPercent, takeUpLimits, takeUpReset } from "./measure";
 import { DEFAULT_SETTINGS, entryInputSchema, entryListQuery, settingsInputSchema } from "./schema";
 
@@ -80,11 +80,25 @@ export interface Trend {
   travel: number;
   takeUp: { limit: number; warning: number; thermalReserve: number; elasticExcursion: number | null; source: string };
   elongation: { points: { at: string; value: number }[]; latest: number | null; forecast: ForecastView | null };
-  takeUpSeries: { points: { at: string; value: number }[]; latest: number | null; since: string | null; forecast: ForecastView | null };
+  takeUpSeries: {
+    points: { at: string; value: number }[];
+    latest: number | null;
+    since: string | null;
+    forecast: ForecastView | null;
+    /** Readings before the latest links removal: drawn for context, not part of the trend. */
+    earlier: { at: string; value: number }[];
+    /** When links were removed (each one resets the take-up). */
+    resets: string[];
+  };
   alerts: AlertView[];
 }
 
 export interface ForecastView {
+  /** Why there is (or is no) crossing date; the chart and the words follow it. */
+  status: ForecastStatus;
+  /** Readings needed before a date is given (MIN_FORECAST_READINGS). */
+  minimumReadings: number;
+  searchYears: number;
   crossing: string | null;
   earliest: string | null;
   latest: string | null;
@@ -99,6 +113,9 @@ const iso = (d: Date | null) => (d ? d.toISOString() : null);
 function forecastView(f: Forecast | null): ForecastView | null {
   if (!f) return null;
   return {
+    status: f.status,
+    minimumReadings: MIN_FORECAST_READINGS,
+    searchYears: f.searchYears,
     crossing: iso(f.crossing),
     earliest: iso(f.crossingEarliest),
     latest: iso(f.crossingLatest),
@@ -120,9 +137,11 @@ async function buildTrend(ctx: LiftContext, organisationId: number): Promise<Tre
   const el = rows.filter((r) => r.kind === "elongation" && r.elongationPercent !== null).map((r) => ({ at: r.measuredAt, value: r.elongationPercent! }));
   // Removing links resets the take-up: its trend starts again after the latest removal.
   const lastRemoval = [...rows].reverse().find((r) => r.kind === "links-removed");
-  const tu = rows
-    .filter((r) => r.kind === "take-up" && r.takeUpPosition !== null && (!lastRemoval || r.measuredAt >= lastRemoval.measuredAt))
-    .map((r) => ({ at: r.measuredAt, value: r.takeUpPosition! }));
+  const after = (r: LogbookEntry) => !lastRemoval || r.measuredAt >= lastRemoval.measuredAt;
+  const readings = rows.filter((r) => r.kind === "take-up" && r.takeUpPosition !== null);
+  const tu = readings.filter(after).map((r) => ({ at: r.measuredAt, value: r.takeUpPosition! }));
+  const earlier = readings.filter((r) => !after(r)).map((r) => ({ at: r.measuredAt.toISOString(), value: r.takeUpPosition! }));
+  const resets = rows.filter((r) => r.kind === "links-removed").map((r) => r.measuredAt.toISOString());
   const lim = takeUpLimits(ctx.travel, ctx.thermalReserve, settings.takeUpWarning);
   return {
     liftId: ctx.lift.id,
@@ -141,6 +160,8 @@ async function buildTrend(ctx: LiftContext, organisationId: number): Promise<Tre
       latest: tu.length ? tu[tu.length - 1].value : null,
       since: lastRemoval ? lastRemoval.measuredAt.toISOString() : null,
       forecast: forecastView(forecastCrossing(tu, lim.limit)),
+      earlier,
+      resets,
     },
     alerts: await openAlerts(organisationId, ctx.lift.id),
   };

@@ -5,7 +5,8 @@
  */
 import Papa from "papaparse";
 import type { FieldIssue } from "@/lib/http/errors";
-import { CHANNELS, FACTORS, RECORDING_MAX_ROWS, type Channel, type Units } from "./schema";
+import { QUANTITY_OF, factorOf, resolveUnits, type ChannelKey, type ResolvedUnit } from "./headers";
+import { CHANNELS, RECORDING_MAX_ROWS, type Channel, type Units } from "./schema";
 
 export interface ParsedSample {
   t: number;
@@ -22,6 +23,11 @@ export interface ParseReport {
   samples: ParsedSample[];
   issues: FieldIssue[];
   channels: Channel[];
+  /** The unit each mapped column was read in, and where that unit came from. */
+  units: Partial<Record<ChannelKey, ResolvedUnit>>;
+  /** Field separator found in the file, and whether its numbers use a decimal comma (found once, per file). */
+  delimiter: string;
+  decimalComma: boolean;
 }
 
 const MAX_LISTED = 1000;
@@ -44,21 +50,17 @@ const MAX_SI: Record<Channel | "time", number> = {
 const SI_UNIT: Record<Channel, string> = { takeUpPosition: "m", chainTension: "N", driveCurrent: "A", trainPosition: "m", trainSpeed: "m/s" };
 const withinRange = (v: number, max: number) => Number.isFinite(v) && Math.abs(v) <= max;
 
-function unitOf(c: Channel, u: Units): string {
-  if (c === "takeUpPosition" || c === "trainPosition") return u.length;
-  if (c === "chainTension") return u.force;
-  if (c === "trainSpeed") return u.speed;
-  return "A";
+/**
+ * A decimal comma is only possible when the separator is not a comma: then it is the file's convention
+ * if the mapped columns' first rows hold numbers written with one comma and none with a point.
+ */
+function usesDecimalComma(rows: string[][], columns: number[], delimiter: string): boolean {
+  if (delimiter === ",") return false;
+  const cells = rows.slice(1, 201).flatMap((r) => columns.map((i) => String(r[i] ?? "").trim()));
+  return cells.some((c) => /^[+-]?\d*,\d+(e[+-]?\d+)?$/i.test(c)) && !cells.some((c) => /^[+-]?\d*\.\d+/.test(c));
 }
 
-function factorFor(c: Channel, u: Units): number {
-  if (c === "takeUpPosition" || c === "trainPosition") return FACTORS.length[u.length];
-  if (c === "chainTension") return FACTORS.force[u.force];
-  if (c === "trainSpeed") return FACTORS.speed[u.speed];
-  return 1; // drive current, A
-}
-
-export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel | "time", string>>, units: Units): ParseReport {
+export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel | "time", string>>, units: Partial<Units>, columnUnits: Partial<Record<ChannelKey, string>> = {}): ParseReport {
   const issues: FieldIssue[] = [];
   let more = 0;
   const add = (i: FieldIssue) => (issues.length < MAX_LISTED ? issues.push(i) : more++);
@@ -74,13 +76,18 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
     else index[key] = i;
   }
   const channels = CHANNELS.filter((c) => index[c] !== undefined);
+  const resolved = resolveUnits(mapping, units, columnUnits);
+  resolved.issues.forEach(add);
+  const factor = (key: ChannelKey) => factorOf(QUANTITY_OF[key], resolved.columns[key]?.unit ?? "");
+  const delimiter = r.meta.delimiter || ",";
+  const decimalComma = usesDecimalComma(rows, Object.values(index), delimiter);
   const body = rows.slice(1);
   if (body.length === 0) add({ path: "csv", message: "the file has a header but no data rows" });
   if (body.length > RECORDING_MAX_ROWS) add({ path: "csv", message: `the file has ${body.length} data rows; at most ${RECORDING_MAX_ROWS}` });
   const samples: ParsedSample[] = [];
   if (issues.length === 0) {
-    const tf = FACTORS.time[units.time];
-    const sign = units.takeUpDirection === "down" ? 1 : -1;
+    const tf = factor("time");
+    const sign = units.takeUpDirection === "up" ? -1 : 1;
     let lastT = Number.NEGATIVE_INFINITY;
     let takeUp0: number | null = null;
     body.forEach((cells, k) => {
@@ -94,7 +101,7 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
         if (i === undefined) return null;
         const raw = String(cells[i]).trim();
         if (raw === "" && key !== "time") return null; // an empty reading is a gap, not an error
-        const v = Number(raw);
+        const v = Number(decimalComma ? raw.replace(",", ".") : raw);
         if (raw === "" || !Number.isFinite(v)) {
           add({ path: `rows.${line}.${key}`, message: `line ${line}, column "${headers[i]}": "${raw.slice(0, 40)}" is not a number` });
           return undefined;
@@ -106,7 +113,7 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
       if (t === undefined || t === null) return;
       const ts = t * tf;
       if (!withinRange(ts, MAX_SI.time)) {
-        add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} ${units.time} is beyond ${MAX_SI.time} s once converted` });
+        add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} ${resolved.columns.time?.unit ?? ""} is beyond ${MAX_SI.time} s once converted` });
         return;
       }
       if (ts <= lastT) add({ path: `rows.${line}.time`, message: `line ${line}: time ${t} does not increase (previous ${lastT / tf})` });
@@ -116,10 +123,10 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
       for (const c of channels) {
         const v = values[c];
         if (v === null || v === undefined) continue;
-        const si = v * factorFor(c, units);
+        const si = v * factor(c);
         // A reading that overflows (or is absurd) once in SI units is an error, not Infinity in the database.
         if (!withinRange(si, MAX_SI[c])) {
-          add({ path: `rows.${line}.${c}`, message: `line ${line}, column "${headers[index[c]!]}": ${v} ${unitOf(c, units)} is beyond ${MAX_SI[c]} ${SI_UNIT[c]} once converted to SI units` });
+          add({ path: `rows.${line}.${c}`, message: `line ${line}, column "${headers[index[c]!]}": ${v} ${resolved.columns[c]?.unit ?? ""} is beyond ${MAX_SI[c]} ${SI_UNIT[c]} once converted to SI units` });
           continue;
         }
         if (c === "takeUpPosition") {
@@ -132,7 +139,7 @@ export function parseRecordingCsv(csv: string, mapping: Partial<Record<Channel |
     });
   }
   if (more) issues.push({ path: "rows", message: `and ${more} more problems` });
-  return { headers, rowCount: body.length, samples: issues.length ? [] : samples, issues, channels };
+  return { headers, rowCount: body.length, samples: issues.length ? [] : samples, issues, channels, units: resolved.columns, delimiter, decimalComma };
 }
 
 /**

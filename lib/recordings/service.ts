@@ -12,6 +12,8 @@ import { discardUpload, storeRecordingFile } from "@/lib/logbook/uploads";
 import { updateLift } from "@/lib/lifts/service";
 import { findOwnRun, getRunResult } from "@/lib/runs/service";
 import { getModels, type Recording } from "@/models";
+import { fitVerdict } from "@/lib/calibration/gate";
+import { toCalibrationView } from "@/lib/calibration/service";
 import { alignAtEngagement, type OverlaySeries } from "./align";
 import { detectEngagement, parseRecordingCsv, type ParseReport } from "./parse";
 import { RECORDING_MAX_BYTES, recordingInputSchema, type Channel } from "./schema";
@@ -53,8 +55,16 @@ export interface PreviewAnswer {
   rowCount: number;
   channels: Channel[];
   engagementTime: number | null;
+  /** The first rows as read, SI. */
   preview: ParseReport["samples"];
+  /** Every n-th sample (at most PLOT_POINTS), SI, for the preview plot. */
+  plot: ParseReport["samples"];
+  units: ParseReport["units"];
+  delimiter: string;
+  decimalComma: boolean;
 }
+
+const PLOT_POINTS = 400;
 
 /**
  * Checks (dry run) or stores a recording. Any problem → 400 listing every one (`issues`), nothing stored.
@@ -69,7 +79,7 @@ export async function createRecording(actor: Actor, input: unknown): Promise<{ r
   const bytes = Buffer.byteLength(body.csv, "utf8");
   if (bytes > RECORDING_MAX_BYTES)
     throw new HttpError(413, `The file is ${bytes} bytes; at most ${RECORDING_MAX_BYTES}.`, [{ path: "csv", message: `at most ${RECORDING_MAX_BYTES} bytes` }]);
-  const report = parseRecordingCsv(body.csv, body.mapping, body.units);
+  const report = parseRecordingCsv(body.csv, body.mapping, body.units, body.columnUnits);
   if (report.issues.length) throw badRequest(`The file has ${report.issues.length} problem(s); nothing was stored.`, report.issues);
   const first = report.samples[0].t;
   const last = report.samples[report.samples.length - 1].t;
@@ -80,7 +90,18 @@ export async function createRecording(actor: Actor, input: unknown): Promise<{ r
   }
   const engagementTime = body.engagementTime ?? detectEngagement(report.samples);
   if (body.dryRun)
-    return { ok: true, headers: report.headers, rowCount: report.rowCount, channels: report.channels, engagementTime, preview: report.samples.slice(0, 20) };
+    return {
+      ok: true,
+      headers: report.headers,
+      rowCount: report.rowCount,
+      channels: report.channels,
+      engagementTime,
+      preview: report.samples.slice(0, 20),
+      plot: report.samples.filter((_, i) => i % Math.ceil(report.samples.length / PLOT_POINTS) === 0),
+      units: report.units,
+      delimiter: report.delimiter,
+      decimalComma: report.decimalComma,
+    };
   const revisionId = lift.currentRevisionId;
   if (!revisionId) throw new Error(`Lift ${lift.id} has no current revision.`);
   const upload = await storeRecordingFile(actor, lift.id, body.fileName ?? `${body.name}.csv`, Buffer.from(body.csv, "utf8"));
@@ -95,7 +116,7 @@ export async function createRecording(actor: Actor, input: unknown): Promise<{ r
         liftRevisionId: revisionId,
         uploadId: upload.id,
         name: body.name,
-        mapping: { columns: body.mapping, units: body.units },
+        mapping: { columns: body.mapping, units: body.units, columnUnits: report.units, decimalComma: report.decimalComma },
         channels: report.channels,
         sampleCount: s.length,
         duration: s[s.length - 1].t - s[0].t,
@@ -176,19 +197,36 @@ export async function overlay(actor: Actor, id: number, runIdText: unknown): Pro
 
 export const saveCalibrationSchema = z.object({
   version: z.number().int().min(0),
-  axialStiffness: z.number().finite().min(1e5).max(1e10),
-  damping: z.number().finite().min(0).max(1e9),
-  guideFriction: z.number().finite().min(0).max(0.5).optional(),
+  /** The calibration job whose fitted values become the revision (only its own values are saved). */
+  calibrationId: z.number({ error: "name the fit to save (calibrationId)" }).int().positive(),
 });
 
-/** Saves fitted values as a new revision of the recording's lift (lib/lifts' revision function). */
+/**
+ * Saves a finished fit's values as a new revision of the recording's lift (lib/lifts' revision function).
+ * A fit that fails the quality gate (lib/calibration/gate.ts) can be read but not saved: 409 with the reasons.
+ */
 export async function saveCalibration(actor: Actor, id: number, input: unknown) {
   assertCan(actor, "calibration:save");
   const r = await ownRecording(actor, id);
   const body = validate(saveCalibrationSchema, input);
+  const job = await getModels().Calibration.findByPk(body.calibrationId);
+  if (!job || job.recordingId !== r.id || job.organisationId !== actor.organisationId)
+    throw badRequest("That fit is not one of this recording's.", [{ path: "calibrationId", message: "choose a fit of this recording" }]);
+  const view = toCalibrationView(job);
+  if (view.status !== "done" || !view.result) throw new HttpError(409, "The fit has not finished; only a finished fit can be saved.");
+  const verdict = fitVerdict(view.result);
+  if (!verdict.acceptable)
+    throw new HttpError(
+      409,
+      `This fit is not good enough to save as a lift revision: ${verdict.findings
+        .filter((f) => !f.ok)
+        .map((f) => f.text)
+        .join(" ")}`,
+    );
+  const fitted = view.result.fitted;
   return updateLift(actor, r.liftId, {
     version: body.version,
-    chain: { axialStiffness: body.axialStiffness, damping: body.damping, ...(body.guideFriction !== undefined ? { guideFriction: body.guideFriction } : {}) },
-    changeSummary: `Calibrated against recording "${r.name}" (#${r.id})`,
+    chain: { axialStiffness: fitted.axialStiffness, damping: fitted.damping, ...(view.fitFriction ? { guideFriction: fitted.guideFriction } : {}) },
+    changeSummary: `Calibrated against recording "${r.name}" (#${r.id}), fit #${job.id}`,
   });
 }

@@ -23,6 +23,7 @@ import { planStudy } from "./plan";
 import { driveStudy, storedSettings } from "./driver";
 import { settleOpenCases, refreshStudy } from "./progress";
 import { operatingWindow, type OperatingWindow, type ValueNamer } from "./window";
+import { describeRegion, studyRegion, type StudyRegion } from "./region";
 
 const NOT_FOUND = "Study";
 
@@ -61,6 +62,10 @@ export interface StudyView {
   version: number;
   cases?: StudyCaseView[];
   window?: OperatingWindow;
+  /** Two-parameter studies: the grid as a region (states, governing check, recommended window, holes). */
+  region?: StudyRegion | null;
+  /** The recommended window in words, in the reader's units (two-parameter studies). */
+  regionText?: string | null;
 }
 
 function caseView(c: StudyCase): StudyCaseView {
@@ -125,6 +130,8 @@ function toView(study: Study, cases: StudyCase[] | null, units: UnitSystem = "si
   if (cases) {
     view.cases = cases.map(caseView);
     view.window = operatingWindow(view.parameters, cases, { units, name: studyNamer(study) });
+    view.region = studyRegion(view.parameters, cases);
+    view.regionText = view.region ? describeRegion(view.region, units, studyNamer(study)) : null;
   }
   return view;
 }

@@ -65,8 +65,9 @@ describe("logbook alerts", () => {
 
   it("computes elongation from the measured length and raises the forecast alert inside the horizon", async () => {
     const now = Date.now();
-    // 20 pitches of 0.1016 m: 1 % + 0.02 %/day → 3 % about 100 days after the first reading.
-    for (const k of [0, 20, 40, 60]) {
+    // 20 pitches of 0.1016 m: 1 % + 0.02 %/day → 3 % about 100 days after the first reading. Five
+    // readings: the logbook dates nothing from fewer (MIN_FORECAST_READINGS).
+    for (const k of [0, 15, 30, 45, 60]) {
       const e = 1 + 0.02 * k;
       await createEntry(other.as.operator, { kind: "elongation", liftId: other.liftId, pitches: 20, measuredLength: 20 * 0.1016 * (1 + e / 100), measuredAt: new Date(now - (60 - k) * DAY).toISOString() });
     }

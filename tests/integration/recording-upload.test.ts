@@ -67,7 +67,7 @@ describe("logger uploads", () => {
   });
 
   it("calibrates against the recording and saves the fit as a new lift revision", async () => {
-    const { Recording } = getModels();
+    const { Recording, Calibration } = getModels();
     const rec = await Recording.findOne({ where: { organisationId: w.organisationId } });
     const job = await startCalibration(w.as.engineer, rec!.id, { scenarioId: w.scenarioId });
     await waitForCalibrationJob(job.id);
@@ -75,10 +75,46 @@ describe("logger uploads", () => {
     expect(done.status).toBe("done");
     const fit = done.result!;
     expect(fit.quality.fitted.rms!).toBeLessThanOrEqual(fit.quality.initial.rms! + 1e-9);
-    await expectHttpError(() => saveCalibration(w.as.operator, rec!.id, { version: 0, axialStiffness: fit.fitted.axialStiffness, damping: fit.fitted.damping }), 403);
+    await expectHttpError(() => saveCalibration(w.as.operator, rec!.id, { version: 0, calibrationId: job.id }), 403);
+    // Two finished fits of the same recording with set qualities: one the gate refuses, one it passes.
+    const row = (await Calibration.findByPk(job.id))!.get({ plain: true }) as Record<string, unknown>;
+    const withResult = (result: object) => Calibration.create({ ...row, id: undefined, inputs: row.inputs ?? {}, result } as never);
+    const bad = await withResult({ ...fit, quality: { ...fit.quality, fitted: { rms: 0.012, rSquared: -0.318, samples: 300 } }, converged: false });
+    const good = await withResult({ ...fit, fitted: { ...fit.fitted, axialStiffness: 1.6e7, damping: 3000 }, quality: { ...fit.quality, fitted: { rms: 0.0004, rSquared: 0.985, samples: 300 } }, converged: true });
     const lift = await getLift(w.as.engineer, w.liftId);
-    const saved = await saveCalibration(w.as.engineer, rec!.id, { version: lift.version, axialStiffness: 1.6e7, damping: 3000 });
+    const refused = await expectHttpError(() => saveCalibration(w.as.engineer, rec!.id, { version: lift.version, calibrationId: bad.id }), 409);
+    expect(refused.message).toContain("R² = -0.318");
+    expect(refused.message).toContain("stopped at its budget");
+    expect((await getLift(w.as.engineer, w.liftId)).currentRevision.number).toBe(1);
+    // Values in the request are not what is saved: the fit's own are.
+    const saved = await saveCalibration(w.as.engineer, rec!.id, { version: lift.version, calibrationId: good.id, axialStiffness: 1, damping: 1 });
     expect(saved.currentRevision.number).toBe(2);
     expect(saved.changes.map((c) => c.path)).toEqual(expect.arrayContaining(["chain.axialStiffness", "chain.damping"]));
+    const after = await getLift(w.as.engineer, w.liftId);
+    expect(after.currentRevision.chain.axialStiffness).toBe(1.6e7);
+    expect(after.currentRevision.chain.damping).toBe(3000);
   }, 60_000);
+});
+
+describe("logger headers", () => {
+  it("reads a file with [ms] and [kN] headers in seconds and newtons, and says so in the check", async () => {
+    const lines = ["Time [ms],Chain tension [kN],Take-up [mm]"];
+    for (let k = 0; k <= 50; k++) lines.push(`${k * 20},${(12 + 0.1 * k).toFixed(1)},${(k / 10).toFixed(1)}`);
+    const csv = lines.join("\n");
+    const mapping = { time: "Time [ms]", chainTension: "Chain tension [kN]", takeUpPosition: "Take-up [mm]" };
+    // The file-wide units say s and N (as the old defaults did): the headers govern their own columns.
+    const input = { liftId: w.liftId, name: "Headers", csv, mapping, units: { time: "s", force: "N" } };
+    const dry = await createRecording(w.as.operator, { ...input, dryRun: true });
+    if (!("ok" in dry)) throw new Error("expected a check");
+    expect(dry.units).toMatchObject({ time: { unit: "ms", from: "header" }, chainTension: { unit: "kN", from: "header" } });
+    expect(dry.plot.length).toBeGreaterThan(10);
+    const out = await createRecording(w.as.operator, input);
+    if (!("recording" in out)) throw new Error("expected a stored recording");
+    // Source: SI prefixes (BIPM SI Brochure): 50 × 20 ms = 1 s; 12 kN = 12 000 N.
+    expect(out.recording.duration).toBeCloseTo(1, 12);
+    const { series } = await getRecording(w.as.viewer, out.recording.id);
+    expect(series.t[1]).toBeCloseTo(0.02, 12);
+    expect(series.chainTension[0]).toBeCloseTo(12_000, 6);
+    expect(series.takeUpPosition[50]).toBeCloseTo(0.005, 12);
+  });
 });

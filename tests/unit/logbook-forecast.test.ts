@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { forecastCrossing, t975 } from "@/lib/logbook/forecast";
+import { MIN_FORECAST_READINGS, forecastCrossing, t975 } from "@/lib/logbook/forecast";
 import { elongationPercent, takeUpLimits, takeUpReset } from "@/lib/logbook/measure";
 import { evaluateAlerts } from "@/lib/alerts/evaluate";
 
@@ -57,6 +57,61 @@ describe("trend forecast", () => {
     // Source: standard t table, t(0.975, 1) = 12.706, t(0.975, 10) = 2.228.
     expect(t975(1)).toBe(12.706);
     expect(t975(10)).toBe(2.228);
+  });
+});
+
+describe("trend forecast on awkward histories", () => {
+  // Seven identical readings at uneven times: the least-squares slope is rounding noise (~1e-34/day).
+  const uneven = [0, 3.7, 11.2, 12.9, 30.4, 41.05, 59.3];
+  const valid = (d: Date | null) => d === null || Number.isFinite(d.getTime());
+
+  it("gives no date (and no invalid date) from constant readings at uneven times", () => {
+    for (const v of [0.37, 1.2, 1.6, 2.2]) {
+      const f = forecastCrossing(uneven.map((o) => ({ at: new Date(start + o * DAY), value: v })), 2.4)!;
+      expect(f.slopePerDay).toBe(0);
+      expect(f.status).toBe("no-trend");
+      expect(f.crossing).toBeNull();
+      expect([f.crossingEarliest, f.crossingLatest, ...f.line.map((p) => p.at)].every(valid)).toBe(true);
+      expect(() => f.line.map((p) => p.at.toISOString())).not.toThrow();
+    }
+  });
+
+  it("gives no date when the crossing lies beyond the search window or the Date range", () => {
+    // 0.001 %/day from 1 % reaches 3 % after 2000 days (5.5 years): dated in 20 years, not in 2.
+    const slow = Array.from({ length: 6 }, (_, k) => ({ at: new Date(start + k * 30 * DAY), value: 1 + 0.001 * k * 30 }));
+    expect(forecastCrossing(slow, 3)!.status).toBe("dated");
+    const short = forecastCrossing(slow, 3, { searchYears: 2 })!;
+    expect(short.status).toBe("beyond-window");
+    expect(short.crossing).toBeNull();
+    // A rise of 1e-12 per day over a 1e4 scale would cross ~2.7e13 years ahead: far past any Date.
+    const tiny = Array.from({ length: 6 }, (_, k) => ({ at: new Date(start + k * 30 * DAY), value: 1e4 + 1e-7 * k }));
+    const t = forecastCrossing(tiny, 2e4)!;
+    expect(t.crossing).toBeNull();
+    expect([t.crossingEarliest, t.crossingLatest, ...t.line.map((p) => p.at)].every(valid)).toBe(true);
+  });
+
+  it(`dates nothing from fewer than ${MIN_FORECAST_READINGS} readings, however steep`, () => {
+    // Two readings used to give a zero-width 95 % interval: there is no scatter estimate from two points.
+    const steep = (n: number) => Array.from({ length: n }, (_, k) => ({ at: new Date(start + k * 10 * DAY), value: 1 + 0.1 * k }));
+    const few = forecastCrossing(steep(MIN_FORECAST_READINGS - 1), 3)!;
+    expect(few.status).toBe("too-few");
+    expect(few.crossing).toBeNull();
+    expect(few.line).toEqual([]);
+    expect(forecastCrossing(steep(MIN_FORECAST_READINGS), 3)!.status).toBe("dated");
+  });
+
+  it("widens the interval by the readings' own scatter (prediction band of one reading)", () => {
+    // Source: Draper & Smith, Applied Regression Analysis, ch. 3 — the band for a single new reading has
+    // the factor √(1 + 1/n + (x − x̄)²/Sxx), the band of the line only √(1/n + (x − x̄)²/Sxx).
+    const wobble = [0.03, -0.03, 0.03, -0.03, 0.03, -0.03];
+    const h = wobble.map((w, k) => ({ at: new Date(start + k * 10 * DAY), value: 1 + 0.01 * k * 10 + w }));
+    const f = forecastCrossing(h, 1.5)!;
+    const first = f.line[0];
+    const xs = h.map((_, k) => k * 10);
+    const mean = xs.reduce((a, c) => a + c, 0) / xs.length;
+    const sxx = xs.reduce((a, c) => a + (c - mean) ** 2, 0);
+    const expected = t975(4) * f.residualSd! * Math.sqrt(1 + 1 / 6 + mean ** 2 / sxx);
+    expect((first.upper - first.lower) / 2).toBeCloseTo(expected, 9);
   });
 });
 

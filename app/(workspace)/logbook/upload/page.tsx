@@ -15,7 +15,7 @@ export default async function UploadPage({ searchParams }: { searchParams: Promi
   return (
     <>
       <PageHeader eyebrow="Operate" title="Upload a logger recording" description="A dispatch as the data logger saw it, attached to the lift's current revision." />
-      {liftId ? <UploadWizard lifts={lifts} liftId={liftId} /> : <p className="text-[14px] text-steel-500">No lifts yet.</p>}
+      {liftId ? <UploadWizard lifts={lifts} liftId={liftId} units={user.units} /> : <p className="text-[14px] text-steel-500">No lifts yet.</p>}
     </>
   );
 }

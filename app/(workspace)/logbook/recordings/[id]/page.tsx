@@ -10,6 +10,7 @@ import { HttpError } from "@/lib/http/errors";
 import { getRecording } from "@/lib/recordings/service";
 import { recordedSettleBack } from "@/lib/recordings/settle";
 import { getModels } from "@/models";
+import { runPickerOptions } from "@/lib/runs/picker";
 
 export const metadata: Metadata = { title: "Recording" };
 
@@ -24,15 +25,11 @@ export default async function RecordingPage({ params }: { params: Promise<{ id: 
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   }
-  const { Lift, LiftRevision, Scenario, Run, Train } = getModels();
+  const { Lift, LiftRevision, Scenario, Train } = getModels();
   const lift = await Lift.findByPk(rec.recording.liftId);
   const revisions = await LiftRevision.findAll({ where: { liftId: rec.recording.liftId }, attributes: ["id", "number"] });
   const scenarios = await Scenario.findAll({ where: { liftId: rec.recording.liftId, organisationId: user.organisationId }, order: [["name", "ASC"]] });
-  const runs = await Run.findAll({ where: { organisationId: user.organisationId, status: "done", liftRevisionId: revisions.map((r) => r.id) }, order: [["id", "DESC"]], limit: 50, attributes: ["id", "scenarioId", "liftRevisionId"] });
-  const runOptions = runs.map((r) => ({
-    id: r.id,
-    label: `Run ${r.id} · ${scenarios.find((s) => s.id === r.scenarioId)?.name ?? "scenario"} · revision ${revisions.find((v) => v.id === r.liftRevisionId)?.number ?? "?"}`,
-  }));
+  const runOptions = await runPickerOptions(user, { units: user.units, liftRevisionIds: revisions.map((r) => r.id), limit: 50 });
   // The settle-back account needs the lift's design and a train: the first scenario's.
   const rev = await LiftRevision.findByPk(rec.recording.liftRevisionId);
   const train = scenarios[0] ? await Train.findByPk(scenarios[0].trainId) : null;

@@ -6,7 +6,7 @@ import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
 import { HttpError } from "@/lib/http/errors";
 import { getSession } from "@/lib/training/service";
-import { getModels } from "@/models";
+import { runPickerOptions } from "@/lib/runs/picker";
 
 export const metadata: Metadata = { title: "Edit replay session" };
 
@@ -21,14 +21,7 @@ export default async function EditSessionPage({ params }: { params: Promise<{ id
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   }
-  const { Run, Scenario } = getModels();
-  const runs = await Run.findAll({ where: { organisationId: user.organisationId, status: "done" }, order: [["id", "DESC"]], limit: 100, attributes: ["id", "scenarioId", "inputs"] });
-  const scenarios = await Scenario.findAll({ where: { organisationId: user.organisationId }, attributes: ["id", "name"] });
-  const options = runs.map((r) => ({
-    id: r.id,
-    label: `Run ${r.id} · ${scenarios.find((s) => s.id === r.scenarioId)?.name ?? "scenario"}`,
-    duration: Number((r.inputs as { run?: { duration?: number } }).run?.duration ?? 0),
-  }));
+  const options = await runPickerOptions(user, { units: user.units });
   return (
     <>
       <PageHeader eyebrow="Edit replay session" title={session.title} />
