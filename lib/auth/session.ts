@@ -1,3 +1,4 @@
+// The signed-in user on the server: reads the session and re-checks the user row on every request (requireUser, requirePermission).
 import { cookies } from "next/headers";
 import { forbidden, unauthorized } from "@/lib/http/errors";
 import { getModels } from "@/models";

@@ -1,3 +1,4 @@
+// One-time e-mailed links (invitations, password resets): random tokens stored only as hashes, with lifetimes.
 import { createHash, randomBytes } from "node:crypto";
 import { Op, type Transaction } from "sequelize";
 import { getModels } from "@/models";

@@ -2,7 +2,7 @@
  * The shared standard chain catalogue (organisation_id NULL), seeded at start.
  *
  * Pitch and minimum tensile strength come from the standards named per row. Mass per length and axial
- * stiffness have no published table (REFERENCES.md: treat E·A as an input): they are approximate or
+ * stiffness have no published table (docs/references.md: treat E·A as an input): they are approximate or
  * assumed values, and each row's note says so. Replace them with the chain manufacturer's data sheet
  * values in an organisation's own catalogue entry before relying on a result.
  */
@@ -14,7 +14,7 @@ const LB_PER_FT = 0.45359237 / 0.3048; // kg/m per lb/ft
  * E·A assumed as 30 × the minimum breaking strength (the ratio of the scenario format's example chain,
  * 1.5e7 N / 5e5 N). A chain at one fifth of its breaking strength then stretches 1/150 ≈ 0.67 %: 0.8 m
  * over 120 m if the whole length carried that tension, the same order as the 450–600 mm quoted for a
- * heavy lift chain of about 120 m at working load (REFERENCES.md, common practice, no source).
+ * heavy lift chain of about 120 m at working load (docs/references.md, common practice, no source).
  * An assumption, not a published value.
  */
 export const ASSUMED_STIFFNESS_PER_STRENGTH = 30;

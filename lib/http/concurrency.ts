@@ -1,3 +1,4 @@
+// Optimistic concurrency: edits send the version they loaded; a stale one answers 409 with the current version.
 import { HttpError } from "@/lib/http/errors";
 
 export { versionField } from "./version";

@@ -1,3 +1,4 @@
+// Query-string rules shared by list routes: paging, sorting, filters, archived rows (400 naming the parameter).
 import { z } from "zod";
 import type { Order } from "sequelize";
 import { toId } from "./ids";

@@ -1,3 +1,4 @@
+// What DELETE does: rows others depend on are archived (readable, not editable) instead of removed; restoring un-archives.
 import { conflict } from "@/lib/http/errors";
 
 export interface DeleteOutcome {

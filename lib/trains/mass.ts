@@ -1,3 +1,4 @@
+// A train's mass for a loading case (empty, full, part-loaded): riders and mean car mass.
 import type { Loading } from "@/lib/scenarios/loading";
 
 export interface TrainMassData {

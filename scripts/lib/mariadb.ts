@@ -1,3 +1,4 @@
+// The private MariaDB instance of a data dir: install, start (ready = root login on its socket, never by pid), create db and user, stop.
 import fs from "node:fs";
 import net from "node:net";
 import os from "node:os";

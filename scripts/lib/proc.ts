@@ -1,3 +1,4 @@
+// Child processes for the scripts: run and capture, run live, find a Debian binary.
 import { spawn, type SpawnOptions } from "node:child_process";
 import fs from "node:fs";
 

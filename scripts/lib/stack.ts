@@ -1,3 +1,4 @@
+// Bringing up the services a command needs (database migrated and seeded, mail fake), stopped on exit if we started them.
 import fs from "node:fs";
 import path from "node:path";
 import { createSequelize } from "../../lib/db/sequelize";

@@ -1,3 +1,4 @@
+// npm test's parts (`--only unit,sim,integration,e2e`) and reading the vitest / Playwright JSON reports.
 import fs from "node:fs";
 
 export type Part = "unit" | "sim" | "integration" | "e2e";

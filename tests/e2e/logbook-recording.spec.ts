@@ -84,7 +84,7 @@ test("the fit is a job: the start answers 202 at once with a status to poll unti
   const last = seen.job!;
   expect(last.progress).toBe(1);
   expect(last.result!.fitted.axialStiffness).toBeGreaterThan(0);
-  // The answer did not wait for the fit (about 60 engine runs). Source: the issue's acceptance rule.
+  // The answer did not wait for the fit (about 60 engine runs). Source: README "Overlay and calibration" (the fit is a job; the page shows it waiting).
   expect(answeredMs).toBeLessThan(Math.max(1500, last.wallTimeMs!));
   const bad = await page.request.post(`/api/recordings/${rec.id}/calibrate`, { data: { scenarioId: "x" } });
   expect(bad.status()).toBe(400);

@@ -13,7 +13,7 @@ import { inputFieldNames } from "./schema-keys";
  * Malformed requests against every write route found under app/ (short form in npm test, the full
  * corpus with `npm run test:fuzz`). Pass: every answer 4xx with a JSON error (a 400 about a field names
  * it), no 5xx, no row written in any table, and the server still answers afterwards.
- * Source for the expectations: the issue's pass rule and lib/http/request.ts's contract.
+ * Source for the expectations: README "Reliability and security" (bad input: no 5xx, no row written) and lib/http/request.ts's contract.
  */
 
 const FULL = process.env.FUZZ_FULL === "1";

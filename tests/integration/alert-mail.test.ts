@@ -37,7 +37,7 @@ describe("logbook alerts", () => {
     expect(again.alerts.map((a) => a.kind)).not.toContain("take-up-limit");
     const mine = (await fakes.messages()).slice(0, (await fakes.messages()).length - before).filter((m) => m.subject.includes("Limit reached"));
     expect(mine).toHaveLength(1);
-    // Source: the issue — "the lift's engineers are e-mailed": the organisation's ride engineers, nobody else.
+    // Source: README "Alerts" — the organisation's ride engineers get one e-mail per alert, nobody else.
     expect(mine[0].to).toEqual([engineer!.email]);
     expect(mine[0].text).toContain("below the top stop");
     const row = await Alert.findOne({ where: { liftId: w.liftId, kind: "take-up-limit" } });

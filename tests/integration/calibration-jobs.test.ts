@@ -107,7 +107,7 @@ describe("calibration as a job", () => {
     expect(started.status).toBe("queued");
     expect(started.result).toBeNull();
     // The fit itself takes seconds (about 60 engine runs); accepting it must not wait for any of them.
-    // Source: the acceptance rule (the engine stays off the request thread); 2 s is common practice, no source.
+    // Source: README "Overlay and calibration" (the fit is a job in the engine pool, off the request thread); 2 s is common practice, no source.
     expect(answerMs).toBeLessThan(2000);
 
     const running = await waitForState(started.id, (c) => c.status === "running" && c.progress > 0);
@@ -137,7 +137,7 @@ describe("calibration as a job", () => {
     expect([...progress].some((p) => p > 0 && p < 1)).toBe(true);
     const fit = done.result!;
     // Source: self-consistency with the engine (the recording was made with these values); the 5 % band
-    // is the acceptance rule for calibration.
+    // is Tautline's acceptance criterion for calibration (assumption).
     expect(Math.abs(fit.fitted.axialStiffness / TRUE_EA - 1)).toBeLessThan(0.05);
     expect(Math.abs(fit.fitted.damping / TRUE_DAMPING - 1)).toBeLessThan(0.05);
     expect(fit.quality.fitted.rms!).toBeLessThan(0.0015);

@@ -30,13 +30,13 @@ describe("standard catalogue (seeded)", () => {
   it("holds ASME B29.1 sizes with pitch n/80 in and minimum tensile strength 12,500·P² lbf", async () => {
     const page = await listChainSpecs(org.as.viewer, { scope: "standard", q: "ASME", pageSize: "100" } as never);
     const byName = new Map(page.items.map((c) => [c.designation, c]));
-    // Source: ASME B29.1 via REFERENCES.md — No. 80: P = 1.000 in, 12,500 lbf = 55.6 kN.
+    // Source: ASME B29.1 via docs/references.md — No. 80: P = 1.000 in, 12,500 lbf = 55.6 kN.
     const no80 = byName.get("ASME B29.1 No. 80")!;
     expect(no80.pitch).toBeCloseTo(0.0254, 10);
     expect(no80.breakingStrength / 1000).toBeCloseTo(55.6, 1);
-    // Source: ASME B29.1 via REFERENCES.md — No. 160: P = 2.000 in, 50,000 lbf.
+    // Source: ASME B29.1 via docs/references.md — No. 160: P = 2.000 in, 50,000 lbf.
     expect(byName.get("ASME B29.1 No. 160")!.breakingStrength / LBF).toBeCloseTo(50_000, 6);
-    // Source: ASME B29.1 via REFERENCES.md — No. 240: P = 3.000 in, 112,500 lbf = 500 kN.
+    // Source: ASME B29.1 via docs/references.md — No. 240: P = 3.000 in, 112,500 lbf = 500 kN.
     const no240 = byName.get("ASME B29.1 No. 240")!;
     expect(no240.pitch).toBeCloseTo(3 * 0.0254, 10);
     expect(no240.breakingStrength / 1000).toBeCloseTo(500.4, 1);
@@ -52,7 +52,7 @@ describe("standard catalogue (seeded)", () => {
   it("holds ISO 606 B-series rows whose breaking force is marked as recalled from memory", async () => {
     const page = await listChainSpecs(org.as.viewer, { scope: "standard", q: "ISO 606" });
     expect(page.total).toBe(7);
-    // From memory (REFERENCES.md [memory]): 16B 60 kN … 48B 560 kN.
+    // From memory (docs/references.md [memory]): 16B 60 kN … 48B 560 kN.
     const b16 = page.items.find((c) => c.designation === "ISO 606 16B")!;
     expect(b16.breakingStrength).toBe(60_000);
     expect(b16.note).toMatch(/memory/);

@@ -11,7 +11,7 @@ import { finished, importForRuns, shortScenarioFile } from "./runs-fixtures";
 
 /**
  * Hostile but schema-valid scenarios through the runs path (import → start → worker pool → stored row),
- * complementing tests/sim/robustness.test.ts, which calls the engine directly. Pass (the issue's rule):
+ * complementing tests/sim/robustness.test.ts, which calls the engine directly. Pass (sim/README.md: simulate() never returns NaN):
  * every run ends within its budget (plus the runner's grace) as done or failed with a diagnostic, and a
  * stored result holds no NaN or infinite number. Bounds: sim/schema.ts (the extremes it allows).
  */

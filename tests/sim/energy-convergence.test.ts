@@ -27,7 +27,7 @@ describe("energy balance", () => {
 describe("convergence", () => {
   it("doubling the segments changes peak tension and take-up excursion by less than 2 %", () => {
     // Source: a correctly built lumped mass–spring model converges to the continuum (Harrison 1992;
-    // Nordell & Ciozda 1984); the 2 % criterion is the issue's.
+    // Nordell & Ciozda 1984); the 2 % criterion is an assumption (sim/README.md, validation).
     const s = scenario({ run: { duration: 22 } });
     const a = simulate(s, { segments: 60, frameBudget: 0, series: false }).summary;
     const b = simulate(s, { segments: 120, frameBudget: 0, series: false }).summary;

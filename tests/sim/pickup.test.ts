@@ -50,7 +50,7 @@ describe("a train standing on the lift is picked up", () => {
     const Lnow = s.lift.chainTo - (ser.trainPosition[i] - s.trains[0].dogOffset) + Lc;
     const drop = (F * Lnow) / (2 * EA);
     expect(Math.abs(ser.takeUpPosition[i] - drop) / drop).toBeLessThan(0.02); // 2 %: residual ringing
-    // Source: loaded length shrinks at v, so the counterweight rises at F·v/(2·E·A) (issue derivation, common practice).
+    // Source: loaded length shrinks at v, so the counterweight rises at F·v/(2·E·A) (Gere & Goodno; the 2:1 take-up is common practice, no source).
     const creep = slope(ser.t, ser.takeUpPosition, 14, 30);
     const expected = -(F * v) / (2 * EA);
     expect(Math.abs(creep - expected) / Math.abs(expected)).toBeLessThan(0.05); // 5 %: ringing in the window
@@ -95,7 +95,7 @@ describe("a spring–mass given a velocity step", () => {
     const L = chainTo - dog + (chainTo - lift.chainFrom);
     const k = 1 / (L / EA + 1 / (2 * EA)); // chain and dog contact in series
     // Source: a mass M on a spring k whose far end starts moving at v peaks at v·√(k·M) above its static
-    // force (REFERENCES.md [derived]; Rao, Mechanical Vibrations). Static force here is 0 (level, no resistance).
+    // force (docs/references.md [derived]; Rao, Mechanical Vibrations). Static force here is 0 (level, no resistance).
     const expected = v * Math.sqrt(k * M);
     // Tolerance 5 %: the chain's own waves add steps of about Z·v = √(E·A·μ)·v (3.5 % of the peak here).
     expect(Math.abs(r.summary.peakDogForce - expected) / expected).toBeLessThan(0.05);

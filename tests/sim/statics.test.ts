@@ -6,7 +6,7 @@ import { G, scenario } from "./scenarios";
 
 describe("sprocket chordal action", () => {
   it("matches the tabulated 1 − cos(180°/N)", () => {
-    // Source: Juvinall & Marshek; values [derived] in REFERENCES.md. Tolerance: their rounding (0.0005 %).
+    // Source: Juvinall & Marshek; values [derived] in docs/references.md. Tolerance: their rounding (0.0005 %).
     const table: [number, number][] = [[9, 6.031], [10, 4.894], [12, 3.407], [16, 1.921], [20, 1.231], [24, 0.856], [30, 0.548]];
     for (const [z, pct] of table) expect(Math.abs(chordalRadiusVariation(z) * 100 - pct)).toBeLessThan(0.0006);
   });
@@ -137,7 +137,7 @@ describe("design statics", () => {
   });
 
   it("a heavy lift chain of about 120 m loaded stretches 450–600 mm at working load", () => {
-    // Source: common practice, no source (REFERENCES.md [practice]: "on the order of" 450–600 mm for about
+    // Source: common practice, no source (docs/references.md [practice]: "on the order of" 450–600 mm for about
     // 120 m / 400 ft). The example's chain (15 kg/m, E·A 1.5e7 N) and lift with the chain run out onto the
     // exit, train at its worst position (working load). Tolerance: the range widened by 10 % ("on the order of").
     const lift2 = { approachLength: 15, sagRadius: 30, angle: 40, inclineLength: 50, crestRadius: 25, exitLength: 40, bottomRun: 4 };

@@ -4,7 +4,7 @@ import { ROLES, isRole, type Role } from "@/lib/auth/roles";
 import { API_ROUTES, PAGE_ROUTES, patternFromFile } from "@/lib/auth/route-access";
 
 // The table itself is the product's policy ("common practice, no source": least privilege per role);
-// these checks pin the decisions the issue names and keep the table and the route table consistent.
+// these checks pin the decisions README "Roles" states and keep the table and the route table consistent.
 
 describe("permission table", () => {
   it("names only known roles", () => {

@@ -32,7 +32,7 @@ describe("grids", () => {
 });
 
 describe("the operating window", () => {
-  // Acceptable speeds (a hand-made answer): full 2.6–3.1, empty 2.4–3.0 — the issue's own example sentence.
+  // Acceptable speeds (a hand-made answer): full 2.6–3.1, empty 2.4–3.0 — in the form of README's operating-window example.
   const ok = (l: string, v: number) => (l === "full" ? v >= 2.6 && v <= 3.1 : v >= 2.4 && v <= 3.0);
   const cases = expandGrid([speed, loading]).map((values) => ({
     values,
@@ -42,7 +42,7 @@ describe("the operating window", () => {
 
   it("is stated in words and numbers per loading", () => {
     const w = operatingWindow([speed, loading], cases);
-    // Source: the example wording ("entry speed 2.6–3.1 m/s with the full train; 2.4–3.0 m/s empty").
+    // Source: the hand-made answer above, in the wording of README "Design studies" ("Entry speed … m/s with the … train").
     expect(w.text).toBe("Entry speed 2.40–3.00 m/s with the empty train; entry speed 2.60–3.10 m/s with the full train.");
     expect(w.groups.find((g) => g.group?.value === "full")!.intervals).toEqual([[2.6, 3.1]]);
     expect(w.incomplete).toBe(false);

@@ -15,7 +15,7 @@ describe("SI ↔ US customary", () => {
     expect(fromUnit(1, "lb")).toBe(0.45359237);
     expect(fromUnit(1, "lbf")).toBeCloseTo(4.4482216152605, 12);
     expect(fromUnit(1, "kip")).toBeCloseTo(4448.2216152605, 8);
-    // ASME B29 No. 240 minimum tensile strength 112,500 lbf ≈ 500 kN (REFERENCES.md).
+    // ASME B29 No. 240 minimum tensile strength 112,500 lbf ≈ 500 kN (docs/references.md).
     expect(toUnit(fromUnit(112500, "lbf"), "kN")).toBeCloseTo(500.42, 2);
   });
   it("speed, power, stiffness, mass per length, acceleration, torque", () => {
