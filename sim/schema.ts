@@ -292,11 +292,11 @@ export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> 
     "2: a suddenly applied load on a spring–mass peaks at twice its static value (e.g. Rao, Mechanical Vibrations). Assumption as a limit.",
   motorRating: "The installed motor's rating: the user's input (no default).",
   maxRiderAccel:
-    "0.5 g, exceeded for at most riderAccelBriefDuration at a time (filtered longitudinal acceleration): assumption, not the standard's number. Patron acceleration limits are set by ASTM F2291 (by axis, direction and duration); enter your organisation's envelope from it — its numbers are not reproduced here.",
-  riderAccelBriefDuration: "0.5 s: assumption (see maxRiderAccel).",
+    "0.5 g, exceeded for at most the brief duration at a time (filtered longitudinal acceleration): assumption, not the standard's number. Patron acceleration limits are set by ASTM F2291 (by axis, direction and duration); enter your organisation's envelope from it — its numbers are not reproduced here.",
+  riderAccelBriefDuration: "0.5 s, the longest time the brief level may be exceeded: assumption.",
   riderAccelSustained:
-    "0.3 g, exceeded for at most riderAccelSustainedDuration at a time: assumption, not the standard's number (ASTM F2291 governs).",
-  riderAccelSustainedDuration: "2 s: assumption (see riderAccelSustained).",
+    "0.3 g, exceeded for at most the sustained duration at a time: assumption, not the standard's number (ASTM F2291 governs).",
+  riderAccelSustainedDuration: "2 s, the longest time the sustained level may be exceeded: assumption.",
   riderAccelCeiling: "1 g never exceeded, however briefly (filtered): assumption, not the standard's number (ASTM F2291 governs).",
   riderAccelBackwardScale:
     "1: the envelope's levels for slowing (rider pitched forward) are the forward levels × this: assumption; the standard's allowances differ by direction.",
@@ -305,7 +305,7 @@ export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> 
   maxPickupDelay: "1.5 s from first dog contact until the dog carries the train's load: assumption.",
   maxTimeToChainSpeed: "3 s from first dog contact until the train runs within 5 % of chain speed: assumption.",
   allowableWorkingLoad:
-    "The chain maker's allowable working load (fatigue-rated), N: the user's input from the maker's data (no default; workingLoadFraction applies without it).",
+    "The chain maker's allowable working load (fatigue-rated), N: the user's input from the maker's data (no default; the working load fraction applies without it).",
   workingLoadFraction:
     "1/7 of breaking strength when no allowable working load is given: assumption (chain makers limit working load to roughly 1/6–1/9 of ultimate strength).",
   minBreakingRatio:

@@ -88,7 +88,7 @@ describe("an approved report holds", () => {
     expect(approved.snapshot!.inputs).toEqual(run.inputs);
     expect((approved.snapshot!.train as { id: number }).id).toBe(trainId);
     expect(approved.snapshot!.liftRevision).not.toBeNull();
-    expect(approved.snapshot!.engine.scenarioFormat).toBe("tautline-scenario/1");
+    expect(approved.snapshot!.engine.scenarioFormat).toBe("tautline-scenario/2");
 
     const train = await getTrain(engineer, trainId);
     await updateTrain(engineer, trainId, { version: train.version, cars: 2, carMassEmpty: 4300 });
