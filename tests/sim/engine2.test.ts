@@ -11,7 +11,11 @@ import { G, standingTrain } from "./scenarios";
 function mean(t: number[], v: number[], t0: number, t1: number): number {
   let s = 0;
   let n = 0;
-  for (let i = 0; i < t.length; i++) if (t[i] >= t0 && t[i] <= t1) (s += v[i]), n++;
+  for (let i = 0; i < t.length; i++) {
+    if (t[i] < t0 || t[i] > t1) continue;
+    s += v[i];
+    n++;
+  }
   return s / n;
 }
 
@@ -125,7 +129,10 @@ describe("take-up dashpot", () => {
     let lobe = 0;
     for (let i = 0; i < ys.length; i++) {
       if (ys[i] > 0) lobe = Math.max(lobe, ys[i]);
-      else if (lobe > 0) (peaks.push(lobe), (lobe = 0));
+      else if (lobe > 0) {
+        peaks.push(lobe);
+        lobe = 0;
+      }
     }
     expect(peaks.length).toBeGreaterThan(3);
     // Source: logarithmic decrement δ = ln(x_n / x_{n+1}) = 2πζ/√(1 − ζ²), ζ = c/(2√(k·m)) (Rao, Mechanical
