@@ -14,6 +14,7 @@ import {
   periodAverage,
   positivePeaks,
 } from "./signal";
+import { StopRecorder, type StopFigures } from "./stop";
 
 /** Figures of one train (`summary.trains[i]`). */
 export interface TrainSummary {
@@ -36,6 +37,8 @@ export interface TrainSummary {
   dogClicks: number;
   dogReleaseTime: number | null;
   maxTrainSpeed: number;
+  /** The stop on the lift (drive.stop) as this train lived it; null without a stop or when the chain did not carry it then. */
+  stop: StopFigures | null;
 }
 
 /**
@@ -99,6 +102,8 @@ export interface Summary {
   maxTrainSpeed: number;
   /** Largest compression of the ARD contact, m (peak ARD force / contact stiffness): part of rollbackDistance. */
   peakArdCompression: number;
+  /** The stop on the lift for the first train the chain carried then (see trains[i].stop for each). */
+  stop: StopFigures | null;
   /** Per-train figures; the flat keys describe the lift as a whole (peaks over all trains, times of the first). */
   trains: TrainSummary[];
 }
@@ -134,6 +139,8 @@ export const SUMMARY_DEFINITIONS = {
   riderAccelExposure: "Longest continuous time the filtered rider acceleration stayed above each level, forward and backward.",
   minSafetyFactor: "Breaking strength / peak tension.",
   steadyClimbDuration: "Length of the steady climb used for the steady figures, s.",
+  stop:
+    "The stop on the lift: the train's speed v, mass m and load F at the stop, the stiffness k holding it (chain from the dog to the drive with the dog contact), and the inequality that decides a settle-back: v·√(k·m) > F unloads the dog and the train rolls back onto the ARD; then the peak ARD force, the rollback and the time from the restart until the dog carries the train again.",
 } as const satisfies Partial<Record<keyof Summary, string>>;
 
 export interface StepView {
@@ -458,6 +465,7 @@ export class SummaryRecorder {
   peakDrivePower = 0;
   peakDriveTorque = 0;
   private readonly trains: TrainRecorder[];
+  private readonly stops: StopRecorder[];
   private readonly samples: Samples;
   private nextSample = 0;
   private readonly halfD: number;
@@ -475,6 +483,7 @@ export class SummaryRecorder {
           resistingLoad: (x, v) => tr.model.resistingLoad(x, v),
         }),
     );
+    this.stops = sys.trains.map((tr) => new StopRecorder(sys, tr));
     this.samples = { t: [], vd: [], vref: [], driveTension: [], power: [], y: [], trains: sys.trains.map(() => ({ x: [], v: [], dog: [], ard: [] })) };
   }
 
@@ -507,6 +516,7 @@ export class SummaryRecorder {
       c.ax = st.ax;
       c.events = this.trains.length === 1 ? events : st.events;
       this.trains[j].step(t, x, vx, dt, c);
+      this.stops[j].step(t, x, vx, this.trains[j].ardCatches);
     }
     if (v.y > this.yMax) this.yMax = v.y;
     if (v.y < this.yMin) this.yMin = v.y;
@@ -603,6 +613,7 @@ export class SummaryRecorder {
         dogClicks: tr.dogClicks,
         dogReleaseTime: tr.dogReleaseTime,
         maxTrainSpeed: tr.maxTrainSpeed,
+        stop: this.stops[j].figures,
       };
     });
 
@@ -689,6 +700,7 @@ export class SummaryRecorder {
       trainReachedEnd: extra.trainReachedEnd,
       maxTrainSpeed: maxOf((t) => t.maxTrainSpeed),
       peakArdCompression: maxOf((t) => t.peakArdCompression),
+      stop: trains.find((t) => t.stop !== null)?.stop ?? null,
       trains,
     };
   }
