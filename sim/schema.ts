@@ -496,6 +496,26 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
           });
       });
   }
+  // Trains that appear together must not overlap (a train occupies startPosition − cars·carLength … startPosition).
+  const extents = trainChecks.map((tc) => {
+    const front = tc.value("startPosition");
+    const cars = tc.value("cars");
+    const carLength = tc.value("carLength");
+    const at = tc.value("startTime") ?? 0;
+    return front !== undefined && cars !== undefined && carLength !== undefined ? { front, rear: front - cars * carLength, at } : undefined;
+  });
+  extents.forEach((b, j) => {
+    if (!b) return;
+    for (let i = 0; i < j; i++) {
+      const a = extents[i];
+      if (!a || a.at !== b.at || !(b.front > a.rear + 1e-9 && a.front > b.rear + 1e-9)) continue;
+      out.push({
+        path: `trains.${j}.startPosition`,
+        message: `trains.${j} overlaps trains.${i} at their start time ${b.at} s (trains.${j}: ${b.rear.toFixed(2)}–${b.front.toFixed(2)} m, trains.${i}: ${a.rear.toFixed(2)}–${a.front.toFixed(2)} m); set trains.${j}.startPosition at least a train length apart (m)`,
+      });
+      break;
+    }
+  });
   const stop = get(data, "drive", "stop");
   const restart = get(data, "drive", "restart");
   const stopTime = stop && typeof stop === "object" ? (stop as Record<string, unknown>).time : undefined;
