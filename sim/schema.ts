@@ -7,6 +7,7 @@
  */
 import { z } from "zod";
 import { meshCounts } from "./loop";
+import { elongationDrop } from "./wear";
 
 export const SCENARIO_FORMAT = "tautline-scenario/2";
 export const SCENARIO_FORMAT_V1 = "tautline-scenario/1";
@@ -87,6 +88,11 @@ export const chainSchema = chainSchemaV1.extend({
    * 0 = none; with `damping` 0 too the chain is undamped.
    */
   lossFactor: num("chain.lossFactor", "", { min: 0, max: 0.5 }).default(DEFAULT_LOSS_FACTOR),
+  /**
+   * Wear as elongation (pitch growth), a fraction of the new length (e.g. 0.015 = 1.5 %); absent means a new chain.
+   * The loop lengthens, pitch and catch spacing grow, E·A stays; the take-up starts lower (see sim/wear.ts).
+   */
+  elongation: num("chain.elongation", "fraction of length", { min: 0, max: 0.1 }).optional(),
 });
 
 /** Drive fields of version 1. */
@@ -528,6 +534,16 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
   const travel = n("takeUp", "travel");
   if (pos !== undefined && travel !== undefined && pos > travel)
     out.push({ path: "takeUp.position", message: "takeUp.position must not exceed takeUp.travel" });
+  const el = n("chain", "elongation");
+  const bottomRun = n("lift", "bottomRun") ?? 4;
+  if (el !== undefined && el > 0 && pos !== undefined && travel !== undefined && from !== undefined && to !== undefined && from < to && pos <= travel) {
+    const drop = elongationDrop({ chainFrom: from, chainTo: to, bottomRun }, el);
+    if (pos + drop > travel)
+      out.push({
+        path: "chain.elongation",
+        message: `chain.elongation ${el} lengthens the loop by ${(2 * drop).toFixed(3)} m: the take-up would start ${(pos + drop).toFixed(3)} m below its top stop, past takeUp.travel ${travel} m (shorten the chain or reset the take-up)`,
+      });
+  }
   return out;
 }
 
