@@ -288,6 +288,8 @@ export const limitsSchema = z.object({
   wearAllowance: num("limits.wearAllowance", "% elongation", { min: 0, max: 10 }).default(3),
   thermalDeltaT: num("limits.thermalDeltaT", "K", { min: 0, max: 200 }).default(40),
   thermalExpansion: num("limits.thermalExpansion", "1/K", { min: 0, max: 1e-4 }).default(11.7e-6),
+  /** Kinetic energy at the dog's release over the energy needed to clear the crest (dimensionless ratio). */
+  releaseEnergyMargin: num("limits.releaseEnergyMargin", "ratio", { min: 1, max: 10 }).default(1.25),
 }, section("limits"));
 
 /** Where each default limit comes from. Results support, and never replace, review by a qualified engineer. */
@@ -322,6 +324,8 @@ export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> 
     "3 % elongation: replace roller chain at about 3 % (lower, ≈1.5 %, where fixed centres matter): common practice, no source.",
   thermalDeltaT: "40 K between installation and the extreme service temperature: assumption.",
   thermalExpansion: "11.7e-6 /K for carbon steel: from memory.",
+  releaseEnergyMargin:
+    "1.25: the train's kinetic energy at the dog's release must exceed the energy to clear the crest by a quarter (assumption; covers wind, wheel drag and rolling resistance above the model's). Set it from the ride's data.",
 };
 
 const scenarioHead = {
