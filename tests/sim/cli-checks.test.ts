@@ -78,3 +78,26 @@ describe("design checks", () => {
     for (const k of Object.keys(limitsSchema.shape)) expect(LIMIT_SOURCES[k as keyof typeof LIMIT_SOURCES]).toBeTruthy();
   });
 });
+
+describe("command line, format 2", () => {
+  it("answers a version 2 file with per-train series and converts a version 1 file with --upgrade", async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), "tautline-sim-"));
+    const v1 = path.join(dir, "v1.json");
+    const s = exampleInput() as unknown as { run: { duration: number } };
+    s.run.duration = 3;
+    writeFileSync(v1, JSON.stringify(s));
+    const up = JSON.parse((await cli([v1, "--upgrade"])).stdout);
+    expect(up.format).toBe("tautline-scenario/2");
+    expect(up.trains).toHaveLength(1);
+    expect(up.drive.motor).toEqual({ kind: "ideal" });
+    const v2 = path.join(dir, "v2.json");
+    up.drive.motor = { kind: "induction" };
+    writeFileSync(v2, JSON.stringify(up));
+    const out = JSON.parse((await cli([v2, "--segments", "20", "--series", "--sample-interval", "1"])).stdout);
+    expect(out.series.t).toEqual([0, 1, 2, 3]);
+    expect(out.series.trains[0].position).toHaveLength(4);
+    // The induction drive's synchronous speed ramps over 2 s; the chain follows it with some slip.
+    expect(out.series.driveSpeed[3]).toBeGreaterThan(0.9 * up.drive.speed);
+    expect(out.series.driveSpeed[3]).toBeLessThan(up.drive.speed);
+  });
+});
