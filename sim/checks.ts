@@ -104,7 +104,29 @@ export function evaluateChecks(summary: Summary, statics: DesignStatics, limitsI
     takeUpCreepCheck(summary, statics),
     drivePowerCheck(summary, statics, limits),
     riderAccelCheck(summary, limits),
+    releaseCheck(summary, limits),
   ];
+}
+
+/** At the dog's release the train's kinetic energy must clear the crest with the margin set; a re-engagement fails. */
+function releaseCheck(summary: Summary, limits: Limits): Check {
+  const limit = limits.releaseEnergyMargin;
+  const base = { key: "release", label: "Release: energy to clear the crest", limit, unit: "" };
+  const r = summary.release ?? null;
+  if (!r) return { ...base, state: "pass", value: null, ...because("The dog was not released during the run.") };
+  const kJ = (e: number) => `${(e / 1000).toFixed(1)} kJ`;
+  const head = [
+    // Speed stays in the text (reasons have no speed kind): m/s with mph beside it.
+    `At the release (t = ${r.time.toFixed(2)} s) the train moves at ${r.speed.toFixed(2)} m/s (${(r.speed / 0.44704).toFixed(1)} mph)`,
+    `: kinetic energy ${kJ(r.kineticEnergy)} against ${kJ(r.energyNeeded)} to rise `,
+    m(r.rise, 2),
+    " to the crest with rolling resistance",
+  ];
+  const again = r.reengagedAt !== null ? `; it fell back and the dog re-engaged at t = ${r.reengagedAt.toFixed(2)} s` : "";
+  if (r.margin === null)
+    return { ...base, state: r.reengagedAt !== null ? "fail" : "pass", value: null, ...because(...head, ` (nothing left to climb)${again}.`) };
+  const st: CheckState = r.margin < limit || r.reengagedAt !== null ? "fail" : r.margin < limit / CAUTION_FRACTION ? "caution" : "pass";
+  return { ...base, state: st, value: r.margin, ...because(...head, `: margin ${r.margin.toFixed(2)} (required ${limit.toFixed(2)})${again}.`) };
 }
 
 /** Peak drive tension over steady drive tension (both at the drive); the peak anywhere is quoted beside it. */

@@ -12,6 +12,7 @@ export { chainTensionAtDog, dogSegments, dogTensionAt } from "./dog-tension";
 export type { DogLayout, DogPlace } from "./dog-tension";
 export type { Summary, TrainSummary, RiderAccelExposure } from "./summary";
 export { SUMMARY_DEFINITIONS } from "./summary";
+export type { StopFigures } from "./stop";
 export { meshConfidence, runMeshConfidence, coarserSegments, MESH_FIGURES } from "./confidence";
 export type { MeshConfidence, MeshRun, FigureConvergence, VerdictChange } from "./confidence";
 export type { Frame, FrameTrain, Series, TrainSeries } from "./frames";

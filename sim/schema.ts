@@ -7,6 +7,7 @@
  */
 import { z } from "zod";
 import { meshCounts } from "./loop";
+import { elongationDrop } from "./wear";
 
 export const SCENARIO_FORMAT = "tautline-scenario/2";
 export const SCENARIO_FORMAT_V1 = "tautline-scenario/1";
@@ -87,6 +88,11 @@ export const chainSchema = chainSchemaV1.extend({
    * 0 = none; with `damping` 0 too the chain is undamped.
    */
   lossFactor: num("chain.lossFactor", "", { min: 0, max: 0.5 }).default(DEFAULT_LOSS_FACTOR),
+  /**
+   * Wear as elongation (pitch growth), a fraction of the new length (e.g. 0.015 = 1.5 %); absent means a new chain.
+   * The loop lengthens, pitch and catch spacing grow, E·A stays; the take-up starts lower (see sim/wear.ts).
+   */
+  elongation: num("chain.elongation", "fraction of length", { min: 0, max: 0.1 }).optional(),
 });
 
 /** Drive fields of version 1. */
@@ -282,6 +288,8 @@ export const limitsSchema = z.object({
   wearAllowance: num("limits.wearAllowance", "% elongation", { min: 0, max: 10 }).default(3),
   thermalDeltaT: num("limits.thermalDeltaT", "K", { min: 0, max: 200 }).default(40),
   thermalExpansion: num("limits.thermalExpansion", "1/K", { min: 0, max: 1e-4 }).default(11.7e-6),
+  /** Kinetic energy at the dog's release over the energy needed to clear the crest (dimensionless ratio). */
+  releaseEnergyMargin: num("limits.releaseEnergyMargin", "ratio", { min: 1, max: 10 }).default(1.25),
 }, section("limits"));
 
 /** Where each default limit comes from. Results support, and never replace, review by a qualified engineer. */
@@ -316,6 +324,8 @@ export const LIMIT_SOURCES: Record<keyof z.output<typeof limitsSchema>, string> 
     "3 % elongation: replace roller chain at about 3 % (lower, ≈1.5 %, where fixed centres matter): common practice, no source.",
   thermalDeltaT: "40 K between installation and the extreme service temperature: assumption.",
   thermalExpansion: "11.7e-6 /K for carbon steel: from memory.",
+  releaseEnergyMargin:
+    "1.25: the train's kinetic energy at the dog's release must exceed the energy to clear the crest by a quarter (assumption; covers wind, wheel drag and rolling resistance above the model's). Set it from the ride's data.",
 };
 
 const scenarioHead = {
@@ -496,6 +506,26 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
           });
       });
   }
+  // Trains that appear together must not overlap (a train occupies startPosition − cars·carLength … startPosition).
+  const extents = trainChecks.map((tc) => {
+    const front = tc.value("startPosition");
+    const cars = tc.value("cars");
+    const carLength = tc.value("carLength");
+    const at = tc.value("startTime") ?? 0;
+    return front !== undefined && cars !== undefined && carLength !== undefined ? { front, rear: front - cars * carLength, at } : undefined;
+  });
+  extents.forEach((b, j) => {
+    if (!b) return;
+    for (let i = 0; i < j; i++) {
+      const a = extents[i];
+      if (!a || a.at !== b.at || !(b.front > a.rear + 1e-9 && a.front > b.rear + 1e-9)) continue;
+      out.push({
+        path: `trains.${j}.startPosition`,
+        message: `trains.${j} overlaps trains.${i} at their start time ${b.at} s (trains.${j}: ${b.rear.toFixed(2)}–${b.front.toFixed(2)} m, trains.${i}: ${a.rear.toFixed(2)}–${a.front.toFixed(2)} m); set trains.${j}.startPosition at least a train length apart (m)`,
+      });
+      break;
+    }
+  });
   const stop = get(data, "drive", "stop");
   const restart = get(data, "drive", "restart");
   const stopTime = stop && typeof stop === "object" ? (stop as Record<string, unknown>).time : undefined;
@@ -508,6 +538,16 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
   const travel = n("takeUp", "travel");
   if (pos !== undefined && travel !== undefined && pos > travel)
     out.push({ path: "takeUp.position", message: "takeUp.position must not exceed takeUp.travel" });
+  const el = n("chain", "elongation");
+  const bottomRun = n("lift", "bottomRun") ?? 4;
+  if (el !== undefined && el > 0 && pos !== undefined && travel !== undefined && from !== undefined && to !== undefined && from < to && pos <= travel) {
+    const drop = elongationDrop({ chainFrom: from, chainTo: to, bottomRun }, el);
+    if (pos + drop > travel)
+      out.push({
+        path: "chain.elongation",
+        message: `chain.elongation ${el} lengthens the loop by ${(2 * drop).toFixed(3)} m: the take-up would start ${(pos + drop).toFixed(3)} m below its top stop, past takeUp.travel ${travel} m (shorten the chain or reset the take-up)`,
+      });
+  }
   return out;
 }
 

@@ -10,6 +10,7 @@ import type { DynState, IntegratorResult, RunHooks } from "./integrators/types";
 import { LiftSystem } from "./rhs";
 import { parseScenario, type Integrator, type Scenario } from "./schema";
 import { initialState } from "./start";
+import { withElongation } from "./wear";
 import { SummaryRecorder, type StepView, type Summary } from "./summary";
 
 export interface SimulateOptions {
@@ -41,6 +42,8 @@ export interface Layout {
   topStation: number;
   catchSpacing: number;
   catchPoints: number;
+  /** Take-up's starting distance below its top stop, m (takeUp.position, lowered by chain.elongation). */
+  takeUpStart: number;
 }
 
 export interface SimulationResult {
@@ -65,7 +68,8 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     const first = parsed.issues[0];
     throw new SimulationError("invalid-scenario", `${first.path}: ${first.message}`, 0, { issues: parsed.issues });
   }
-  const s = parsed.scenario;
+  // Chain wear: a longer loop on the same path (pitch, catch spacing, take-up start); see sim/wear.ts.
+  const s = withElongation(parsed.scenario);
   const started = now();
   const duration = s.run.duration;
   const integrator: Integrator = options.integrator ?? s.run.integrator;
@@ -256,6 +260,7 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
       topStation: loop.topNode,
       catchSpacing: s.chain.catchSpacing,
       catchPoints: sys.lattice.count,
+      takeUpStart: s.takeUp.position,
     },
   };
 }

@@ -8,6 +8,7 @@
  * picked up, and rises again as the loaded length shrinks on the climb; D = p/sin(180°/N), Δr/R = 1 − cos(180°/N),
  * Δv/v = (π/N)[1/sin(180°/N) − 1/tan(180°/N)] (Juvinall & Marshek).
  */
+import { withElongation } from "./wear";
 import { trackPositionOf } from "./loop";
 import { limitsSchema, parseScenario, type Limits, type Scenario } from "./schema";
 import { buildTrack } from "./track";
@@ -111,7 +112,7 @@ export function chordalSpeedVariation(teeth: number): number {
 export function designStatics(input: Scenario | unknown, opts: StaticsOptions = {}): DesignStatics {
   const parsed = parseScenario(input);
   if (!parsed.ok) throw new Error(`${parsed.issues[0].path}: ${parsed.issues[0].message}`);
-  const s = parsed.scenario;
+  const s = withElongation(parsed.scenario);
   const limits = limitsSchema.parse({ ...s.limits, ...opts.limits });
   const track = buildTrack(s.lift);
   const train = buildTrain(s, track);

@@ -4,7 +4,8 @@
  * over whole periods of the surge (the train-on-chain oscillation), so they do not depend on where in a
  * swing the window happens to start or end. Quantities that did not happen are null, never NaN.
  */
-import { EVENT_CLICK, EVENT_RELEASE, type LiftSystem } from "./rhs";
+import { releaseFigures, type ReleaseFigures } from "./release";
+import { EVENT_CLICK, EVENT_ENGAGE, EVENT_RELEASE, type LiftSystem } from "./rhs";
 import {
   averageOver,
   dampingRatioFromDecrement,
@@ -14,6 +15,7 @@ import {
   periodAverage,
   positivePeaks,
 } from "./signal";
+import { StopRecorder, type StopFigures } from "./stop";
 
 /** Figures of one train (`summary.trains[i]`). */
 export interface TrainSummary {
@@ -36,6 +38,10 @@ export interface TrainSummary {
   dogClicks: number;
   dogReleaseTime: number | null;
   maxTrainSpeed: number;
+  /** The stop on the lift (drive.stop) as this train lived it; null without a stop or when the chain did not carry it then. */
+  stop: StopFigures | null;
+  /** The dog's release at lift.dogRelease: speed, kinetic energy against the energy to clear the crest, re-engagement. */
+  release: ReleaseFigures | null;
 }
 
 /**
@@ -99,6 +105,10 @@ export interface Summary {
   maxTrainSpeed: number;
   /** Largest compression of the ARD contact, m (peak ARD force / contact stiffness): part of rollbackDistance. */
   peakArdCompression: number;
+  /** The stop on the lift for the first train the chain carried then (see trains[i].stop for each). */
+  stop: StopFigures | null;
+  /** The first train's release at lift.dogRelease (see trains[i].release for each). */
+  release: ReleaseFigures | null;
   /** Per-train figures; the flat keys describe the lift as a whole (peaks over all trains, times of the first). */
   trains: TrainSummary[];
 }
@@ -134,6 +144,10 @@ export const SUMMARY_DEFINITIONS = {
   riderAccelExposure: "Longest continuous time the filtered rider acceleration stayed above each level, forward and backward.",
   minSafetyFactor: "Breaking strength / peak tension.",
   steadyClimbDuration: "Length of the steady climb used for the steady figures, s.",
+  release:
+    "The dog's release at lift.dogRelease: the train's speed and kinetic energy then, against the energy to carry it to its highest point ahead (rise of its weight + rolling resistance); the margin is their ratio. A re-engagement after the release (the train fell back onto the chain) is reported with its time.",
+  stop:
+    "The stop on the lift: the train's speed v, mass m and load F at the stop, the stiffness k holding it (chain from the dog to the drive with the dog contact), and the inequality that decides a settle-back: v·√(k·m) > F unloads the dog and the train rolls back onto the ARD; then the peak ARD force, the rollback and the time from the restart until the dog carries the train again.",
 } as const satisfies Partial<Record<keyof Summary, string>>;
 
 export interface StepView {
@@ -458,6 +472,8 @@ export class SummaryRecorder {
   peakDrivePower = 0;
   peakDriveTorque = 0;
   private readonly trains: TrainRecorder[];
+  private readonly stops: StopRecorder[];
+  private readonly releases: (ReleaseFigures | null)[];
   private readonly samples: Samples;
   private nextSample = 0;
   private readonly halfD: number;
@@ -475,6 +491,8 @@ export class SummaryRecorder {
           resistingLoad: (x, v) => tr.model.resistingLoad(x, v),
         }),
     );
+    this.stops = sys.trains.map((tr) => new StopRecorder(sys, tr));
+    this.releases = sys.trains.map(() => null);
     this.samples = { t: [], vd: [], vref: [], driveTension: [], power: [], y: [], trains: sys.trains.map(() => ({ x: [], v: [], dog: [], ard: [] })) };
   }
 
@@ -507,6 +525,12 @@ export class SummaryRecorder {
       c.ax = st.ax;
       c.events = this.trains.length === 1 ? events : st.events;
       this.trains[j].step(t, x, vx, dt, c);
+      this.stops[j].step(t, x, vx, this.trains[j].ardCatches);
+      const rel = this.releases[j];
+      // The release: the dog passes lift.dogRelease (in contact or not, the chain carries it no further).
+      if (!rel && x - st.dogOffset >= sys.dogRelease && st.settings.startPosition - st.dogOffset < sys.dogRelease)
+        this.releases[j] = releaseFigures(st.model, st.settings.rollingResistance, sys.g, sys.track.length, t, x, vx);
+      else if (rel && rel.reengagedAt === null && c.events & EVENT_ENGAGE) rel.reengagedAt = t;
     }
     if (v.y > this.yMax) this.yMax = v.y;
     if (v.y < this.yMin) this.yMin = v.y;
@@ -603,6 +627,8 @@ export class SummaryRecorder {
         dogClicks: tr.dogClicks,
         dogReleaseTime: tr.dogReleaseTime,
         maxTrainSpeed: tr.maxTrainSpeed,
+        stop: this.stops[j].figures,
+        release: this.releases[j],
       };
     });
 
@@ -689,6 +715,8 @@ export class SummaryRecorder {
       trainReachedEnd: extra.trainReachedEnd,
       maxTrainSpeed: maxOf((t) => t.maxTrainSpeed),
       peakArdCompression: maxOf((t) => t.peakArdCompression),
+      stop: trains.find((t) => t.stop !== null)?.stop ?? null,
+      release: first.release,
       trains,
     };
   }

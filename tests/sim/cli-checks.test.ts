@@ -52,7 +52,7 @@ describe("design checks", () => {
     const s = scenario({ run: { duration: 30, segments: 30 } });
     const r = simulate(s, { frameBudget: 0, series: false });
     const checks = evaluateChecks(r.summary, designStatics(s), { motorRating: 200e3 });
-    expect(checks.map((c) => c.key)).toEqual(["snatch", "safetyFactor", "workingLoad", "breakingStrength", "rollback", "pickup", "takeUpTravel", "takeUpWear", "takeUpCreep", "drivePower", "riderAccel"]);
+    expect(checks.map((c) => c.key)).toEqual(["snatch", "safetyFactor", "workingLoad", "breakingStrength", "rollback", "pickup", "takeUpTravel", "takeUpWear", "takeUpCreep", "drivePower", "riderAccel", "release"]);
     for (const c of checks) {
       expect(["pass", "caution", "fail"]).toContain(c.state);
       expect(c.reason).not.toContain("\n");
