@@ -105,7 +105,7 @@ describe("an approved report holds", () => {
     // A new run of the frozen scenario solves the approved train (6 cars as in the run it reports).
     const again = await startRun(engineer, scenarioId, {});
     await finished(again.id);
-    expect(((await getRun(engineer, again.id)).inputs as { train: { cars: number } }).train.cars).toBe((run.inputs as { train: { cars: number } }).train.cars);
+    expect(((await getRun(engineer, again.id)).inputs as { trains: { cars: number }[] }).trains[0]!.cars).toBe((run.inputs as { trains: { cars: number }[] }).trains[0]!.cars);
 
     // A lift edit is a new revision; the approved scenario stays pinned to the one it was approved on.
     const { Lift } = getModels();
