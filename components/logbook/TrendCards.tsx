@@ -43,7 +43,7 @@ export function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
             {trend.takeUpSeries.since ? ` Readings since links were removed on ${day(trend.takeUpSeries.since)}.` : ""}
           </p>
           {trend.takeUp.elasticExcursion !== null && (
-            <p className="text-[12.5px] text-steel-500">The weight rises about {(trend.takeUp.elasticExcursion * len.scale).toFixed(len.digits)} {len.unit} when a train loads the chain: keep that much room above it.</p>
+            <p className="text-[12.5px] text-steel-500">The weight drops about {(trend.takeUp.elasticExcursion * len.scale).toFixed(len.digits)} {len.unit} when a train loads the chain (and creeps back up as it climbs): keep that much room below it.</p>
           )}
         </CardBody>
       </Card>

@@ -17,7 +17,7 @@ import type { LiftListItemJson, RevisionListItemJson } from "@/components/lift/t
 import type { TrainJson } from "@/components/train/TrainEditor";
 import { ApiError, sendJson } from "@/lib/client/fetch";
 import { useList } from "@/lib/client/hooks";
-import { unitOf, type UnitSystem } from "@/lib/client/units";
+import type { UnitSystem } from "@/lib/client/units";
 import { INTEGRATORS, runSettingsSchema, trainSchema, trainSchemaV1 } from "@/sim/schema";
 import { scenarioIssueMessage } from "@/lib/scenarios/schema";
 import type { Scenario as EngineScenario } from "@/sim";
