@@ -46,8 +46,9 @@ export async function runPickerOptions(actor: Actor, opts: { units: UnitSystem; 
   const studyOf = new Map(cases.map((c) => [c.runId, c.studyId]));
   const revision = new Map(revisions.map((v) => [v.id, v.number]));
   return runs.map((r) => {
-    const inputs = r.inputs as { run?: { duration?: number }; train?: { entrySpeed?: number } };
-    const entry = inputs.train?.entrySpeed;
+    // Format 2 inputs list trains; a run stored before the migration may still hold format 1's one train.
+    const inputs = r.inputs as { run?: { duration?: number }; trains?: { entrySpeed?: number }[]; train?: { entrySpeed?: number } };
+    const entry = inputs.trains?.[0]?.entrySpeed ?? inputs.train?.entrySpeed;
     const parts = [
       `Run ${r.id}`,
       scenario.get(r.scenarioId) ?? "scenario",
