@@ -7,11 +7,8 @@ import os from "node:os";
 import { simulate } from "@/sim/simulate";
 import { SimulationError } from "@/sim/errors";
 import type { Scenario } from "@/sim/schema";
-import { designStatics } from "@/sim/statics";
-import { evaluateChecks } from "@/sim/checks";
-import { coarserSegments, meshConfidence, type MeshConfidence } from "@/sim/confidence";
-import type { Summary } from "@/sim/summary";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
+import { meshCheck } from "@/lib/runs/mesh-check";
 import { calibrate } from "@/lib/calibration/fit";
 import type { WorkerMessage } from "@/lib/jobs/protocol";
 import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerTask } from "./protocol";
@@ -96,24 +93,3 @@ async function runSimulationTask(task: SimulationTask): Promise<SimulationOutcom
   }
 }
 
-/**
- * Mesh confidence of a finished run: the same scenario again at the coarser mesh (no series, no frames), its
- * figures and checks compared with the run's. The coarse summary is kept too, so a study can judge the coarse
- * case with its own rules. An engine failure on the coarse mesh is reported, never fails the run.
- */
-function meshCheck(
-  scenario: Scenario,
-  summary: Summary,
-): { meshConfidence: MeshConfidence | null; meshCoarse: { segments: number; summary: Summary } | null; meshError?: string } {
-  try {
-    const checksOf = (s: Summary) => evaluateChecks(s, designStatics(scenario), scenario.limits);
-    const coarse = simulate(scenario, { segments: coarserSegments(summary.segments), series: false, frameBudget: 0 });
-    const confidence = meshConfidence(
-      { segments: summary.segments, summary, checks: checksOf(summary) },
-      { segments: coarse.summary.segments, summary: coarse.summary, checks: checksOf(coarse.summary) },
-    );
-    return { meshConfidence: confidence, meshCoarse: { segments: coarse.summary.segments, summary: coarse.summary } };
-  } catch (err) {
-    return { meshConfidence: null, meshCoarse: null, meshError: err instanceof Error ? err.message : String(err) };
-  }
-}
