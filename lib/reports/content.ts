@@ -19,7 +19,7 @@ import { OVERRIDE_FIELDS, RUN_OVERRIDE_KEYS, type RunOverrideKey } from "@/lib/r
 import { fmtQ, reasonIn } from "./format";
 import { limitLabel, limitValue } from "./assumptions";
 import { operatingWindow } from "@/lib/studies/window";
-import { studyNamer } from "@/lib/studies/service";
+import { casesMesh, studyNamer, windowCasesOf } from "@/lib/studies/service";
 import { reportSnapshot } from "./snapshot";
 import type { StudyParameter } from "@/lib/studies/schema";
 
@@ -141,7 +141,8 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
     const st = await Study.findByPk(report.studyId);
     if (st) {
       const cases = await StudyCase.findAll({ where: { studyId: st.id }, order: [["idx", "ASC"]] });
-      const w = operatingWindow(st.parameters as StudyParameter[], cases, { units: report.units, name: studyNamer(st) });
+      const windowCases = windowCasesOf(cases, await casesMesh(st, cases));
+      const w = operatingWindow(st.parameters as StudyParameter[], windowCases, { units: report.units, name: studyNamer(st) });
       study = { id: st.id, name: st.name, cases: st.casesTotal, done: st.casesDone, window: w.text };
     }
   }

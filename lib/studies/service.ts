@@ -97,7 +97,7 @@ export function studyNamer(study: Pick<Study, "settings">): ValueNamer {
  * Each finished case against the same case on the coarser mesh, judged with the study's rule: from its run's
  * stored coarse summary (lib/engine/worker.ts). Cases whose run holds none (older runs) are left out.
  */
-async function casesMesh(study: Study, cases: StudyCase[]): Promise<Map<number, CaseMeshConfidence>> {
+export async function casesMesh(study: Study, cases: StudyCase[]): Promise<Map<number, CaseMeshConfidence>> {
   const out = new Map<number, CaseMeshConfidence>();
   const done = cases.filter((c) => c.status === "done" && c.runId !== null);
   if (!done.length) return out;
@@ -111,6 +111,11 @@ async function casesMesh(study: Study, cases: StudyCase[]): Promise<Map<number, 
     if (mc) out.set(c.id, mc);
   }
   return out;
+}
+
+/** The cases as the operating window reads them, each with whether its verdict is settled on the mesh. */
+export function windowCasesOf(cases: StudyCase[], mesh: Map<number, CaseMeshConfidence>) {
+  return cases.map((c) => ({ values: c.values, status: c.status, acceptable: c.acceptable, meshSettled: mesh.get(c.id)?.verdictSettled ?? null }));
 }
 
 function secondsLeft(study: Study, cases: StudyCase[] | null): number | null {
@@ -149,8 +154,7 @@ function toView(study: Study, cases: StudyCase[] | null, units: UnitSystem = "si
   };
   if (cases) {
     view.cases = cases.map((c) => caseView(c, mesh.get(c.id) ?? null));
-    const windowCases = cases.map((c) => ({ values: c.values, status: c.status, acceptable: c.acceptable, meshSettled: mesh.get(c.id)?.verdictSettled ?? null }));
-    view.window = operatingWindow(view.parameters, windowCases, { units, name: studyNamer(study) });
+    view.window = operatingWindow(view.parameters, windowCasesOf(cases, mesh), { units, name: studyNamer(study) });
   }
   return view;
 }
