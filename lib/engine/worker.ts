@@ -77,7 +77,9 @@ async function runSimulationTask(task: SimulationTask): Promise<SimulationOutcom
       },
     });
     const packed = packEngineResult(result as unknown as EngineResult);
-    const mesh = meshCheck(task.scenario as Scenario, result.summary);
+    // The comparison shares the run's budget: the job's guard stops the thread past it.
+    const left = task.budgetMs !== undefined ? task.budgetMs - (performance.now() - t0) : undefined;
+    const mesh = meshCheck(task.scenario as Scenario, result.summary, left);
     const diagnostics = { ...packed.diagnostics, ...mesh };
     return { ok: true, ...packed, diagnostics, wallTimeMs: Math.round(performance.now() - t0) };
   } catch (err) {

@@ -17,10 +17,13 @@ export interface MeshDiagnostics {
   meshError?: string;
 }
 
-export function meshCheck(scenario: Scenario, summary: Summary): MeshDiagnostics {
+/** `budgetMs`: wall time left for the coarse run (the run's own budget minus what it used); past it, no comparison. */
+export function meshCheck(scenario: Scenario, summary: Summary, budgetMs?: number): MeshDiagnostics {
   try {
     const checksOf = (s: Summary) => evaluateChecks(s, designStatics(scenario), scenario.limits);
-    const coarse = simulate(scenario, { segments: coarserSegments(summary.segments), series: false, frameBudget: 0 });
+    if (budgetMs !== undefined && budgetMs <= 0) throw new Error("no time left in the run's budget for the coarse-mesh comparison");
+    const budget = budgetMs !== undefined ? { wallTimeMs: budgetMs } : undefined;
+    const coarse = simulate(scenario, { segments: coarserSegments(summary.segments), series: false, frameBudget: 0, budget });
     const confidence = meshConfidence(
       { segments: summary.segments, summary, checks: checksOf(summary) },
       { segments: coarse.summary.segments, summary: coarse.summary, checks: checksOf(coarse.summary) },
