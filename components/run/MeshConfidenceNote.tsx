@@ -4,7 +4,13 @@ import { meshLine } from "@/lib/runs/mesh";
 import type { MeshConfidence } from "@/sim";
 import { cx } from "@/components/ui/cx";
 
-export function MeshConfidenceNote({ confidence }: { confidence: MeshConfidence | null | undefined }) {
+export function MeshConfidenceNote({ confidence, error }: { confidence: MeshConfidence | null | undefined; error?: string | null }) {
+  if (!confidence && error)
+    return (
+      <p data-testid="mesh-confidence" data-converged="unknown" className="text-[12.5px] font-semibold text-[#7a5400]">
+        <span>Mesh: </span>not checked against a coarser mesh ({error}).
+      </p>
+    );
   if (!confidence) return null;
   const line = meshLine(confidence);
   return (

@@ -32,7 +32,7 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
         {data.wallTimeMs > 0 && <span>{(data.wallTimeMs / 1000).toFixed(2)} s to compute</span>}
       </div>
       <HeadlineFigures checks={data.checks} summary={s} units={units} dim={data.origin === "preview"} />
-      <MeshConfidenceNote confidence={data.meshConfidence} />
+      <MeshConfidenceNote confidence={data.meshConfidence} error={data.meshError} />
       {data.notes.length > 0 && (
         <ul className="space-y-0.5 text-[12.5px] text-ink-800" data-testid="run-notes">
           {data.notes

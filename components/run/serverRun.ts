@@ -52,6 +52,7 @@ export function toRunData(run: RunJson, res: ResultJson): RunData {
     runId: run.id,
     wallTimeMs: run.wallTimeMs ?? 0,
     meshConfidence: meshConfidenceOf(run.diagnostics),
+    meshError: typeof run.diagnostics?.meshError === "string" ? run.diagnostics.meshError : null,
   };
 }
 

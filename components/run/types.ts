@@ -16,6 +16,8 @@ export interface RunData {
   wallTimeMs: number;
   /** Saved runs: the figures against a coarser mesh (null when the run was stored without it). */
   meshConfidence?: MeshConfidence | null;
+  /** Why a saved run holds no mesh confidence (e.g. its budget ran out), when it says. */
+  meshError?: string | null;
 }
 
 /** Settings the what-if sliders change on top of the scenario (SI). */
