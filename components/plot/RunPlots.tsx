@@ -12,7 +12,7 @@ import { dogTensionAt, type Frame, type Layout, type Series } from "@/sim";
 import { Button } from "@/components/ui/Button";
 import { unitOf, type UnitSystem } from "@/lib/client/units";
 import { useReplayStore } from "@/components/replay/store";
-import { DOG_TENSION_NOTE, PANELS, chainSpeedSeries, nearestSample, panelData, seriesCsv } from "./plotData";
+import { DOG_TENSION_NOTE, chainSpeedOf, nearestSample, panelData, panelsFor, seriesCsv } from "./plotData";
 
 function download(name: string, href: string) {
   const a = document.createElement("a");
@@ -49,7 +49,7 @@ export function RunPlots({
   const plots = useRef<uPlot[]>([]);
   const box = useRef<HTMLDivElement>(null);
   const [cursorIdx, setCursorIdx] = useState<number | null>(null);
-  const chain = useMemo(() => chainSpeedSeries(series.t, chainSpeed, rampTime), [series, chainSpeed, rampTime]);
+  const chain = useMemo(() => chainSpeedOf(series, chainSpeed, rampTime), [series, chainSpeed, rampTime]);
   const dogTension = useMemo(
     () =>
       frames?.length && layout && dogOffset !== undefined && dogRelease !== undefined
@@ -58,7 +58,7 @@ export function RunPlots({
     [frames, layout, dogOffset, dogRelease, series],
   );
   // Without frames there is no tension at the dog: leave its line (and its note) out.
-  const panels = useMemo(() => PANELS.map((p) => ({ ...p, lines: p.lines.filter((l) => l.key !== "dogTension" || dogTension) })), [dogTension]);
+  const panels = useMemo(() => panelsFor(series).map((p) => ({ ...p, lines: p.lines.filter((l) => l.key !== "dogTension" || dogTension) })), [series, dogTension]);
   const hovering = useRef(false);
 
   useEffect(() => {

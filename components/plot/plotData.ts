@@ -1,12 +1,16 @@
 /** The run's series as plot panels in the user's units, and their CSV export (pure). */
 import { toCsv } from "@/lib/csv/write";
 import type { Series } from "@/sim";
-import type { SeriesKey } from "@/sim/frames";
+import type { SeriesKey, TrainSeriesKey } from "@/sim/frames";
 import { toDisplay, unitOf, type Quantity, type UnitSystem } from "@/lib/client/units";
 
 export interface PanelLine {
-  /** A series of the run, or one derived from it here (chain speed) or from the frames (tension at the dog). */
-  key: SeriesKey | "chainSpeed" | "dogTension";
+  /**
+   * A series of the run, or one derived from it here (chain speed) or from the frames (tension at the dog), or
+   * "train": one train's own signal `series.trains[train.index][train.key]`.
+   */
+  key: SeriesKey | "chainSpeed" | "dogTension" | "train";
+  train?: { index: number; key: TrainSeriesKey };
   label: string;
   colour: string;
   dash?: number[];
@@ -77,10 +81,48 @@ export function chainSpeedSeries(t: readonly number[], speed: number, rampTime: 
   return t.map((x) => (rampTime > 0 ? Math.min(1, x / rampTime) : 1) * speed);
 }
 
+/**
+ * The chain speed line: the drive's own speed as the engine computed it (`series.driveSpeed`, which shows the
+ * motor's slip and the surge at the drive) when the run has it; the set ramp only for runs stored without it.
+ */
+export function chainSpeedOf(series: Series, speed: number, rampTime: number): number[] {
+  const d = series.driveSpeed;
+  return d && d.length === series.t.length && d.length > 0 ? Array.from(d) : chainSpeedSeries(series.t, speed, rampTime);
+}
+
+/** Colours of trains 1, 2, 3 … (cycled), each dashed differently as well. */
+const TRAIN_COLOURS = ["#1a2f42", "#1f6fb2", "#b86e00", "#2e7d4f", "#7b3fa0", "#c0392b"];
+const TRAIN_DASHES: (number[] | undefined)[] = [undefined, [6, 3], [2, 3], [8, 3, 2, 3]];
+
+const trainLine = (j: number, key: TrainSeriesKey, what: string): PanelLine => ({
+  key: "train",
+  train: { index: j, key },
+  label: `${what}, train ${j + 1}`,
+  colour: TRAIN_COLOURS[j % TRAIN_COLOURS.length],
+  dash: TRAIN_DASHES[j % TRAIN_DASHES.length],
+});
+
+/**
+ * The panels for this run: with several trains, the dog and ARD forces and the speed panel draw one line per
+ * train (from `series.trains[j]`) on the shared time axis instead of the flat keys, which are train 1's.
+ */
+export function panelsFor(series: Series): Panel[] {
+  const n = series.trains?.length ?? 0;
+  if (n <= 1) return PANELS;
+  const trains = Array.from({ length: n }, (_, j) => j);
+  return PANELS.map((p) => {
+    if (p.id === "forces")
+      return { ...p, lines: [...trains.map((j) => trainLine(j, "dogForce", "Dog")), ...trains.map((j) => ({ ...trainLine(j, "ardForce", "ARD"), dash: [4, 3] }))] };
+    if (p.id === "speed") return { ...p, lines: [...trains.map((j) => trainLine(j, "speed", "Train")), ...p.lines.filter((l) => l.key === "chainSpeed")] };
+    return p;
+  });
+}
+
 /** The SI values of one line, or undefined when the run has none (no frames for the tension at the dog). */
 export function lineValues(l: PanelLine, series: Series, derived: DerivedSeries): readonly (number | null)[] | undefined {
   if (l.key === "chainSpeed") return derived.chainSpeed;
   if (l.key === "dogTension") return derived.dogTension;
+  if (l.key === "train") return l.train ? series.trains?.[l.train.index]?.[l.train.key] : undefined;
   return series[l.key];
 }
 
@@ -101,7 +143,7 @@ export function panelData(panel: Panel, series: Series, derived: DerivedSeries, 
 export function seriesCsv(series: Series, chainSpeed: number[], units: UnitSystem, dogTension?: (number | null)[]): string {
   const derived: DerivedSeries = { chainSpeed, dogTension };
   const cols: { head: string; values: (i: number) => number | null }[] = [{ head: "time (s)", values: (i) => series.t[i] }];
-  for (const p of PANELS)
+  for (const p of panelsFor(series))
     for (const l of p.lines) {
       const raw = lineValues(l, series, derived);
       if (!raw) continue;

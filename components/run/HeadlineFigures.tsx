@@ -57,7 +57,11 @@ function headline(c: Check, s: Summary, units: UnitSystem): { value: string; sub
     case "takeUpCreep":
       return { value: formatQuantity(s.takeUpCreepRate, "rate", units), sub: "drop rate over the steady climb (negative: rising)" };
     case "drivePower":
-      return { value: formatQuantity(s.peakDrivePower, "power", units), sub: typeof c.limit === "number" ? `motor ${formatQuantity(c.limit, "power", units)}` : "no motor rating" };
+    {
+      // Runs stored before the drive had its own speed lack the steady chain speed.
+      const steady = typeof s.steadyChainSpeed === "number" ? ` · steady chain speed ${formatQuantity(s.steadyChainSpeed, "speed", units)}` : "";
+      return { value: formatQuantity(s.peakDrivePower, "power", units), sub: `${typeof c.limit === "number" ? `motor ${formatQuantity(c.limit, "power", units)}` : "no motor rating"}${steady}` };
+    }
     case "riderAccel":
       return { value: `${s.peakRiderAccel.toFixed(2)} g`, sub: typeof c.value === "number" ? `uses ${(c.value * 100).toFixed(0)} % of the envelope` : `limit ${c.limit}` };
     default:
@@ -76,7 +80,7 @@ const DEFINITIONS: Record<string, string[]> = {
   takeUpTravel: [SUMMARY_DEFINITIONS.takeUpMaxDrop, SUMMARY_DEFINITIONS.takeUpMaxRise, "The running budget is the elastic drop at the longest loaded length plus thermal growth, against the travel; wear is judged apart."],
   takeUpWear: ["Wear elongation of the loop that the travel left after the elastic drop and thermal growth can take up.", `Allowance: ${LIMIT_SOURCES.wearAllowance}`],
   takeUpCreep: [SUMMARY_DEFINITIONS.takeUpCreepRate],
-  drivePower: ["Motor power = chain pull × speed / efficiency.", `Limit: ${LIMIT_SOURCES.motorRating}`],
+  drivePower: ["Motor power = chain pull × speed / efficiency.", SUMMARY_DEFINITIONS.steadyChainSpeed, `Limit: ${LIMIT_SOURCES.motorRating}`],
   riderAccel: [SUMMARY_DEFINITIONS.peakRiderAccel, SUMMARY_DEFINITIONS.riderAccelExposure, `Limits: ${LIMIT_SOURCES.maxRiderAccel} ${LIMIT_SOURCES.riderAccelSustained} ${LIMIT_SOURCES.riderAccelCeiling} ${LIMIT_SOURCES.riderAccelBackwardScale}`],
 };
 

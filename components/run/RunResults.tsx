@@ -6,6 +6,7 @@ import { RunPlots } from "@/components/plot/RunPlots";
 import { ReplayPanel } from "@/components/replay/ReplayPanel";
 import type { UnitSystem } from "@/lib/client/units";
 import { HeadlineFigures } from "./HeadlineFigures";
+import { MeshConfidenceNote } from "./MeshConfidenceNote";
 import { SettleBackPanel } from "./SettleBackPanel";
 import { DriveDampingPanel } from "./DriveDampingPanel";
 import { runTrains } from "./runTrains";
@@ -31,6 +32,7 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
         {data.wallTimeMs > 0 && <span>{(data.wallTimeMs / 1000).toFixed(2)} s to compute</span>}
       </div>
       <HeadlineFigures checks={data.checks} summary={s} units={units} dim={data.origin === "preview"} />
+      <MeshConfidenceNote confidence={data.meshConfidence} error={data.meshError} />
       {data.notes.length > 0 && (
         <ul className="space-y-0.5 text-[12.5px] text-ink-800" data-testid="run-notes">
           {data.notes

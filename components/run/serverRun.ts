@@ -2,6 +2,7 @@
 import type { Frame, Layout, Scenario, Series, Summary } from "@/sim";
 import { getJson } from "@/lib/client/fetch";
 import type { RunOverrides } from "@/lib/runs/overrides";
+import { meshConfidenceOf } from "@/lib/runs/mesh";
 import { checksFor } from "./compute";
 import type { RunData } from "./types";
 
@@ -25,6 +26,7 @@ export interface RunJson {
   /** The scenario's values those replaced when the run started (SI). */
   overridesFrom?: RunOverrides | null;
   inputs?: Record<string, unknown>;
+  diagnostics?: Record<string, unknown> | null;
 }
 
 interface ResultJson {
@@ -49,6 +51,8 @@ export function toRunData(run: RunJson, res: ResultJson): RunData {
     origin: "server",
     runId: run.id,
     wallTimeMs: run.wallTimeMs ?? 0,
+    meshConfidence: meshConfidenceOf(run.diagnostics),
+    meshError: typeof run.diagnostics?.meshError === "string" ? run.diagnostics.meshError : null,
   };
 }
 

@@ -1,5 +1,5 @@
 /** What a run looks like in the browser, whichever way it was made (Web Worker or a saved server run). */
-import type { Check, Frame, Layout, Scenario, Series, Summary } from "@/sim";
+import type { Check, Frame, Layout, MeshConfidence, Scenario, Series, Summary } from "@/sim";
 
 export interface RunData {
   scenario: Scenario;
@@ -14,6 +14,10 @@ export interface RunData {
   runId?: number;
   /** Wall time of the simulation itself, ms. */
   wallTimeMs: number;
+  /** Saved runs: the figures against a coarser mesh (null when the run was stored without it). */
+  meshConfidence?: MeshConfidence | null;
+  /** Why a saved run holds no mesh confidence (e.g. its budget ran out), when it says. */
+  meshError?: string | null;
 }
 
 /** Settings the what-if sliders change on top of the scenario (SI). */

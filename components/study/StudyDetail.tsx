@@ -200,6 +200,11 @@ export function StudyDetail({
                     ) : (
                       <Badge tone="fail">no</Badge>
                     )}
+                    {c.mesh && !c.mesh.verdictSettled && (
+                      <span className="ml-1 text-[11px] font-semibold text-[#7a5400]" title={c.mesh.message} data-testid="case-mesh-unsettled">
+                        not settled on the mesh
+                      </span>
+                    )}
                   </td>
                   <td className="px-2 py-1" data-testid="case-failing">
                     {((c.checks ?? []) as { state: string; label: string }[])

@@ -6,6 +6,7 @@ import { engineScenarioInput } from "@/lib/scenarios/resolve";
 import { parseScenario } from "@/sim/schema";
 import { simulate } from "@/sim/simulate";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
+import { meshCheck } from "@/lib/runs/mesh-check";
 import { RESULT_FORMAT } from "@/lib/runs/result-format";
 import { runConfig } from "@/lib/runs/config";
 import { recoverInterruptedRuns } from "@/lib/runs/recover";
@@ -137,7 +138,7 @@ export async function seedDemoRuns(sequelize: Sequelize): Promise<void> {
       inputs: parsed.scenario as unknown as Record<string, unknown>,
       solver: { budgetSeconds: cfg.defaultBudgetSeconds, run: parsed.scenario.run },
       summary: packed.summary,
-      diagnostics: packed.diagnostics,
+      diagnostics: { ...packed.diagnostics, ...meshCheck(parsed.scenario, result.summary) },
       result: Buffer.from(packed.blob),
       resultFormat: RESULT_FORMAT,
       resultBytes: packed.blob.byteLength,

@@ -8,6 +8,7 @@ import { simulate } from "@/sim/simulate";
 import { SimulationError } from "@/sim/errors";
 import type { Scenario } from "@/sim/schema";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
+import { meshCheck } from "@/lib/runs/mesh-check";
 import { calibrate } from "@/lib/calibration/fit";
 import type { WorkerMessage } from "@/lib/jobs/protocol";
 import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerTask } from "./protocol";
@@ -75,7 +76,12 @@ async function runSimulationTask(task: SimulationTask): Promise<SimulationOutcom
         post({ type: "progress", value: Math.min(1, Math.max(0, f)) });
       },
     });
-    return { ok: true, ...packEngineResult(result as unknown as EngineResult), wallTimeMs: Math.round(performance.now() - t0) };
+    const packed = packEngineResult(result as unknown as EngineResult);
+    // The comparison shares the run's budget: the job's guard stops the thread past it.
+    const left = task.budgetMs !== undefined ? task.budgetMs - (performance.now() - t0) : undefined;
+    const mesh = meshCheck(task.scenario as Scenario, result.summary, left);
+    const diagnostics = { ...packed.diagnostics, ...mesh };
+    return { ok: true, ...packed, diagnostics, wallTimeMs: Math.round(performance.now() - t0) };
   } catch (err) {
     const wallTimeMs = Math.round(performance.now() - t0);
     if (err instanceof SimulationError) {
@@ -88,3 +94,4 @@ async function runSimulationTask(task: SimulationTask): Promise<SimulationOutcom
     task.port.close();
   }
 }
+

@@ -9,6 +9,7 @@ import { getModels } from "@/models";
 import { conflict } from "@/lib/http/errors";
 import type { Report } from "@/models/Report";
 import { designStatics } from "@/sim/statics";
+import { summaryForReport, type ReportSummaryValue } from "./figures";
 import { evaluateChecks, type Check } from "@/sim/checks";
 import { LIMIT_SOURCES, limitsSchema, type Scenario as EngineScenario } from "@/sim/schema";
 import type { Summary } from "@/sim/summary";
@@ -19,7 +20,7 @@ import { fmtQ, reasonIn } from "./format";
 import { limitLabel, limitValue } from "./assumptions";
 import { DEFAULT_RIDER_MASS } from "@/lib/trains/schema";
 import { operatingWindow } from "@/lib/studies/window";
-import { studyNamer } from "@/lib/studies/service";
+import { casesMesh, studyNamer, windowCasesOf } from "@/lib/studies/service";
 import { reportSnapshot } from "./snapshot";
 import type { StudyParameter } from "@/lib/studies/schema";
 
@@ -63,7 +64,7 @@ export interface ReportContent {
     safetyFactor: number;
     waveSpeed: number;
   };
-  run: { id: number; finishedAt: string | null; summary: Record<string, number | boolean | string | null> } | null;
+  run: { id: number; finishedAt: string | null; summary: Record<string, ReportSummaryValue> } | null;
   series: ReportSeries | null;
   /** The checks with their reason already in the report's units (no parts: the content is what is printed). */
   checks: ReportCheck[];
@@ -141,7 +142,8 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
     const st = await Study.findByPk(report.studyId);
     if (st) {
       const cases = await StudyCase.findAll({ where: { studyId: st.id }, order: [["idx", "ASC"]] });
-      const w = operatingWindow(st.parameters as StudyParameter[], cases, { units: report.units, name: studyNamer(st) });
+      const windowCases = windowCasesOf(cases, await casesMesh(st, cases));
+      const w = operatingWindow(st.parameters as StudyParameter[], windowCases, { units: report.units, name: studyNamer(st) });
       study = { id: st.id, name: st.name, cases: st.casesTotal, done: st.casesDone, window: w.text };
     }
   }
@@ -152,9 +154,7 @@ export async function buildReportContent(report: Report): Promise<ReportContent>
     attributes: ["number", "changeSummary", "createdAt"],
   });
 
-  const round = (v: unknown) => (typeof v === "number" ? Number(v.toPrecision(6)) : v === undefined ? null : (v as boolean | string | null));
-  const summaryOut: Record<string, number | boolean | string | null> = {};
-  for (const [k, v] of Object.entries(summary)) if (k !== "wallTimeMs" && k !== "steps" && k !== "rhsEvaluations") summaryOut[k] = round(v);
+  const summaryOut = summaryForReport(summary);
 
   return {
     title: report.title,

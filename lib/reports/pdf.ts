@@ -6,7 +6,7 @@
 import path from "node:path";
 import PDFDocument from "pdfkit";
 import type { ReportCheck, ReportContent } from "./content";
-import { headlineFigures } from "./figures";
+import { headlineDefinitions, headlineFigures } from "./figures";
 import { checkMargin, fmtN, fmtQ } from "./format";
 
 /**
@@ -282,6 +282,9 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
 
   heading(doc, "4. Dynamic results");
   rows(doc, headlineFigures(c));
+  doc.moveDown(0.3).font(BOLD).fontSize(9).fillColor(INK).text("What these figures mean", MARGIN);
+  doc.moveDown(0.2);
+  rows(doc, headlineDefinitions());
   if (c.series && c.series.t.length > 1) {
     const sr = c.series;
     linePlot(doc, "Highest chain tension against time", sr.t, sr.maxTension, (v) => fmtQ(v, "force", u, 1));

@@ -11,6 +11,7 @@ import { engineScenarioInput } from "@/lib/scenarios/resolve";
 import { parseScenario } from "@/sim/schema";
 import { simulate } from "@/sim/simulate";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
+import { meshCheck } from "@/lib/runs/mesh-check";
 import { RESULT_FORMAT } from "@/lib/runs/result-format";
 import { runConfig } from "@/lib/runs/config";
 import { DEMO_PARK } from "@/lib/demo/park";
@@ -84,7 +85,7 @@ export async function seedDemoStudy(sequelize: Sequelize): Promise<void> {
         inputs: built.scenario as unknown as Record<string, unknown>,
         solver: { ...stored.solver, run: built.scenario.run, studyId: created.id },
         summary: packed.summary,
-        diagnostics: packed.diagnostics,
+        diagnostics: { ...packed.diagnostics, ...meshCheck(built.scenario, result.summary) },
         result: Buffer.from(packed.blob),
         resultFormat: RESULT_FORMAT,
         resultBytes: packed.blob.byteLength,

@@ -24,6 +24,8 @@ import { driveStudy, storedSettings } from "./driver";
 import { settleOpenCases, refreshStudy } from "./progress";
 import { operatingWindow, type OperatingWindow, type ValueNamer } from "./window";
 import { describeRegion, studyRegion, type StudyRegion } from "./region";
+import { caseMeshConfidence, type CaseMeshConfidence } from "./headline";
+import type { Scenario as EngineScenario } from "@/sim/schema";
 
 const NOT_FOUND = "Study";
 
@@ -36,6 +38,8 @@ export interface StudyCaseView {
   headline: Record<string, number | null> | null;
   checks: unknown[] | null;
   acceptable: boolean | null;
+  /** Against the coarser mesh: null when not measured. `verdictSettled` false = acceptability may change. */
+  mesh: { converged: boolean; verdictSettled: boolean; message: string } | null;
   error: string | null;
   wallTimeMs: number | null;
 }
@@ -68,7 +72,7 @@ export interface StudyView {
   regionText?: string | null;
 }
 
-function caseView(c: StudyCase): StudyCaseView {
+function caseView(c: StudyCase, mc: CaseMeshConfidence | null = null): StudyCaseView {
   return {
     id: c.id,
     idx: c.idx,
@@ -78,6 +82,7 @@ function caseView(c: StudyCase): StudyCaseView {
     headline: c.headline,
     checks: c.checks,
     acceptable: c.acceptable,
+    mesh: mc ? { converged: mc.converged, verdictSettled: mc.verdictSettled, message: mc.message } : null,
     error: c.error,
     wallTimeMs: c.wallTimeMs,
   };
@@ -93,6 +98,31 @@ export function studyNamer(study: Pick<Study, "settings">): ValueNamer {
   };
 }
 
+/**
+ * Each finished case against the same case on the coarser mesh, judged with the study's rule: from its run's
+ * stored coarse summary (lib/engine/worker.ts). Cases whose run holds none (older runs) are left out.
+ */
+export async function casesMesh(study: Study, cases: StudyCase[]): Promise<Map<number, CaseMeshConfidence>> {
+  const out = new Map<number, CaseMeshConfidence>();
+  const done = cases.filter((c) => c.status === "done" && c.runId !== null);
+  if (!done.length) return out;
+  const runs = await getModels().Run.findAll({ where: { id: done.map((c) => c.runId!) }, attributes: ["id", "inputs", "summary", "diagnostics"] });
+  const byId = new Map(runs.map((r) => [r.id, r]));
+  const requireNoArd = storedSettings(study).requireNoArdCatch;
+  for (const c of done) {
+    const run = byId.get(c.runId!);
+    if (!run?.summary) continue;
+    const mc = caseMeshConfidence(run.inputs as unknown as EngineScenario, run.summary as Record<string, unknown>, run.diagnostics, requireNoArd);
+    if (mc) out.set(c.id, mc);
+  }
+  return out;
+}
+
+/** The cases as the operating window reads them, each with whether its verdict is settled on the mesh. */
+export function windowCasesOf(cases: StudyCase[], mesh: Map<number, CaseMeshConfidence>) {
+  return cases.map((c) => ({ values: c.values, status: c.status, acceptable: c.acceptable, meshSettled: mesh.get(c.id)?.verdictSettled ?? null }));
+}
+
 function secondsLeft(study: Study, cases: StudyCase[] | null): number | null {
   const finished = study.casesDone + study.casesFailed;
   const open = study.casesTotal - finished;
@@ -105,7 +135,7 @@ function secondsLeft(study: Study, cases: StudyCase[] | null): number | null {
   return Math.round(per * open);
 }
 
-function toView(study: Study, cases: StudyCase[] | null, units: UnitSystem = "si"): StudyView {
+function toView(study: Study, cases: StudyCase[] | null, units: UnitSystem = "si", mesh: Map<number, CaseMeshConfidence> = new Map()): StudyView {
   const st = storedSettings(study);
   const view: StudyView = {
     id: study.id,
@@ -128,8 +158,8 @@ function toView(study: Study, cases: StudyCase[] | null, units: UnitSystem = "si
     version: study.version,
   };
   if (cases) {
-    view.cases = cases.map(caseView);
-    view.window = operatingWindow(view.parameters, cases, { units, name: studyNamer(study) });
+    view.cases = cases.map((c) => caseView(c, mesh.get(c.id) ?? null));
+    view.window = operatingWindow(view.parameters, windowCasesOf(cases, mesh), { units, name: studyNamer(study) });
     view.region = studyRegion(view.parameters, cases);
     view.regionText = view.region ? describeRegion(view.region, units, studyNamer(study)) : null;
   }
@@ -219,7 +249,7 @@ export async function getStudy(actor: Actor, id: number, opts: { units?: UnitSys
     study = await findOwnStudy(actor, id);
   }
   const cases = await getModels().StudyCase.findAll({ where: { studyId: id }, order: [["idx", "ASC"]] });
-  return toView(study, cases, opts.units);
+  return toView(study, cases, opts.units, await casesMesh(study, cases));
 }
 
 export async function listStudies(actor: Actor, q: { scenarioId?: number; page: number; pageSize: number }) {

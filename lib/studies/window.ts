@@ -10,6 +10,8 @@ export interface WindowCase {
   values: Record<string, number | string>;
   status: string;
   acceptable: boolean | null;
+  /** False when the case's verdict differs on a coarser mesh (lib/studies/headline.ts); null/absent = not measured. */
+  meshSettled?: boolean | null;
 }
 
 export interface WindowGroup {
@@ -27,6 +29,8 @@ export interface OperatingWindow {
   combos: Record<string, number | string>[];
   /** Cases not finished yet or failed: the window may still change. */
   incomplete: boolean;
+  /** Finished cases whose verdict is not settled on the mesh (their values), so the window's edges there may move. */
+  unsettled: Record<string, number | string>[];
   text: string;
 }
 
@@ -63,6 +67,14 @@ export function operatingWindow(
   const units = opts.units ?? "si";
   const name = opts.name ?? defaultNamer;
   const incomplete = cases.some((c) => c.status !== "done");
+  const unsettled = cases.filter((c) => c.status === "done" && c.meshSettled === false).map((c) => c.values);
+  const describe = (v: Record<string, number | string>) =>
+    parameters
+      .map((p) => (isNumeric(p.key) ? `${PARAMETER_LABELS[p.key].label.toLowerCase()} ${describeInterval(p.key, [Number(v[p.key]), Number(v[p.key])], units)}` : name(p.key, v[p.key])))
+      .join(" with ");
+  const meshNote = unsettled.length
+    ? ` Not settled on the mesh (the verdict differs at a coarser mesh or lies within its error of a limit): ${unsettled.map(describe).join("; ")}. Refine the mesh before relying on the window there.`
+    : "";
   const axisParam = parameters.find((p) => isNumeric(p.key)) ?? null;
   const other = parameters.find((p) => p !== axisParam) ?? null;
 
@@ -71,7 +83,7 @@ export function operatingWindow(
     const text = combos.length
       ? `Acceptable: ${combos.map((v) => parameters.map((p) => name(p.key, v[p.key])).join(" with ")).join("; ")}.`
       : "No case of this study is acceptable.";
-    return { axis: null, groups: [], combos, incomplete, text };
+    return { axis: null, groups: [], combos, incomplete, unsettled, text: text + meshNote };
   }
 
   const axis = axisParam.key;
@@ -109,5 +121,6 @@ export function operatingWindow(
   let text = parts.join("; ");
   text = text.charAt(0).toUpperCase() + text.slice(1) + ".";
   if (incomplete) text += " (Not every case has finished: the window may still change.)";
-  return { axis, groups, combos: [], incomplete, text };
+  text += meshNote;
+  return { axis, groups, combos: [], incomplete, unsettled, text };
 }

@@ -10,6 +10,7 @@ import { checkDemoExpectations } from "@/lib/demo/expectations";
 import type { FigureSource } from "@/lib/demo/figures";
 import { decodeResult } from "@/lib/runs/result-format";
 import { json } from "@/lib/runs/serialize";
+import { meshConfidenceOf } from "@/lib/runs/mesh";
 import { closeDb } from "./design-fixtures";
 
 afterAll(closeDb);
@@ -69,6 +70,22 @@ describe("the seeded demo park (npm test seeds it like npm start)", () => {
     for (const s of DEMO_SCENARIOS) {
       // Our own criteria per scenario (lib/demo/park.ts): common practice, no source.
       expect(checkDemoExpectations(s, runs).filter((c) => !c.ok).map((c) => c.text), s.key).toEqual([]);
+    }
+  });
+
+  it("stores with every demo run its figures against a coarser mesh", async () => {
+    const { Organisation, Scenario, Run } = getModels();
+    const org = (await Organisation.findOne({ where: { slug: DEMO_PARK.slug } }))!;
+    for (const s of DEMO_SCENARIOS) {
+      const sc = (await Scenario.findOne({ where: { organisationId: org.id, name: s.name } }))!;
+      const run = (await Run.findOne({ where: { scenarioId: sc.id, status: "done" }, order: [["id", "ASC"]] }))!;
+      const mc = meshConfidenceOf(json(run.diagnostics));
+      expect(mc, s.key).not.toBeNull();
+      const summary = json(run.summary) as Record<string, unknown>;
+      // Source: the comparison is against half the run's segments (Richardson's refinement ratio r = 2).
+      expect(mc!.fineSegments, s.key).toBe(summary.segments);
+      expect(mc!.coarseSegments, s.key).toBeLessThan(mc!.fineSegments);
+      expect(mc!.figures.find((f) => f.key === "peakTension")!.fine, s.key).toBe(summary.peakTension);
     }
   });
 
