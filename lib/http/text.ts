@@ -44,22 +44,42 @@ export const optionalText = (field: string, max: number) =>
  * with them.
  */
 export function brokenTextIssues(value: unknown, path = ""): { path: string; message: string }[] {
-  const at = (p: string) => p || "(body)";
-  const check = (s: string, p: string) =>
+  // Walked with an explicit stack (a body may nest thousands of levels deep) and paths built only for the
+  // strings that fail, so neither the call stack nor the path strings grow with the nesting.
+  type Node = { value: unknown; key: string; parent: Node | null };
+  const pathOf = (n: Node | null): string => {
+    const keys: string[] = [];
+    for (let m = n; m; m = m.parent) if (m.key !== "") keys.push(m.key);
+    return keys.reverse().join(".") || "(body)";
+  };
+  const message = (s: string) =>
     LONE_SURROGATE.test(s)
-      ? [{ path: at(p), message: "is not valid Unicode text (a lone UTF-16 surrogate)" }]
+      ? "is not valid Unicode text (a lone UTF-16 surrogate)"
       : CONTROL_EXCEPT_LAYOUT.test(s)
-        ? [{ path: at(p), message: "must not contain control characters (NUL, ESC and the like)" }]
-        : [];
-  if (typeof value === "string") return check(value, path);
-  if (Array.isArray(value)) return value.flatMap((v, i) => brokenTextIssues(v, path ? `${path}.${i}` : String(i)));
-  if (value && typeof value === "object") {
-    return Object.entries(value).flatMap(([k, v]) => {
-      const p = path ? `${path}.${k}` : k;
-      return [...check(k, p), ...brokenTextIssues(v, p)];
-    });
+        ? "must not contain control characters (NUL, ESC and the like)"
+        : null;
+  const out: { path: string; message: string }[] = [];
+  const stack: Node[] = [{ value, key: path, parent: null }];
+  while (stack.length && out.length < 100) {
+    const n = stack.pop()!;
+    const v = n.value;
+    if (typeof v === "string") {
+      const m = message(v);
+      if (m) out.push({ path: pathOf(n), message: m });
+    } else if (Array.isArray(v)) {
+      for (let i = v.length - 1; i >= 0; i--) stack.push({ value: v[i], key: String(i), parent: n });
+    } else if (v && typeof v === "object") {
+      const entries = Object.entries(v);
+      for (let i = entries.length - 1; i >= 0; i--) {
+        const [k, child] = entries[i]!;
+        const node: Node = { value: child, key: k, parent: n };
+        const m = message(k);
+        if (m) out.push({ path: pathOf(node), message: m });
+        stack.push(node);
+      }
+    }
   }
-  return [];
+  return out;
 }
 
 /**

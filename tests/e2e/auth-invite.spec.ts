@@ -90,7 +90,9 @@ test("an admin changes a role, and the change applies at the person's next reque
 
   await signInUi(page, email, "pick-up-point-3");
   await expect(page.getByTestId("user-role")).toHaveText("Viewer");
-  const { user } = (await invited.json()) as { user: { id: number } };
+  // The invitation's answer names no id (it must not tell an existing account from a new one): find it in the list.
+  const { users } = (await (await admin.get("/api/admin/users")).json()) as { users: { id: number; email: string }[] };
+  const user = users.find((u) => u.email === email)!;
   const changed = await admin.patch(`/api/admin/users/${user.id}`, { data: { role: "engineer" } });
   expect(changed.status()).toBe(200);
   await page.reload();
