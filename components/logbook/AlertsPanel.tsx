@@ -3,10 +3,12 @@ import Link from "next/link";
 import { Badge } from "@/components/ui/Badge";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import type { AlertJson } from "./types";
+import { alertMessageIn } from "@/lib/alerts/words";
+import type { UnitSystem } from "@/lib/client/units";
 
 const TONE = { limit: "fail", warning: "caution", forecast: "lamp" } as const;
 
-export function AlertsPanel({ alerts }: { alerts: AlertJson[] }) {
+export function AlertsPanel({ alerts, units }: { alerts: AlertJson[]; units: UnitSystem }) {
   return (
     <Card data-testid="alerts-panel">
       <CardHeader title="Logbook alerts" description="Readings past a level, or a trend that reaches one inside the horizon." />
@@ -24,7 +26,7 @@ export function AlertsPanel({ alerts }: { alerts: AlertJson[] }) {
                   <Link className="font-semibold text-ink-900 hover:underline" href={`/logbook?lift=${a.liftId}`}>
                     {a.liftName}
                   </Link>{" "}
-                  <span className="text-steel-700">{a.message.replace(`${a.liftName}: `, "")}</span>
+                  <span className="text-steel-700">{alertMessageIn(a.message, units).replace(`${a.liftName}: `, "")}</span>
                   <span className="block text-[12px] text-steel-500">
                     {new Date(a.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}
                     {a.emailedAt ? ` · e-mailed to ${a.recipients.length} engineer(s)` : " · not e-mailed"}

@@ -18,6 +18,7 @@ import { Reading } from "./Reading";
 import { SettingsForm } from "./SettingsForm";
 import { TrendCards } from "./TrendCards";
 import { KIND_LABELS, type AlertJson, type EntryJson, type TrendJson } from "./types";
+import { alertMessageIn } from "@/lib/alerts/words";
 
 const INCH = 0.0254;
 
@@ -89,7 +90,7 @@ export function LogbookView({
         <Alert tone="caution" title="This entry raised alerts" testId="raised-alerts">
           <ul>
             {raised.map((a) => (
-              <li key={a.id}>{a.message} {a.recipients.length ? `E-mailed to ${a.recipients.join(", ")}.` : ""}</li>
+              <li key={a.id}>{alertMessageIn(a.message, units)} {a.recipients.length ? `E-mailed to ${a.recipients.join(", ")}.` : ""}</li>
             ))}
           </ul>
         </Alert>

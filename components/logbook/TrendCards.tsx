@@ -6,6 +6,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { MIN_FORECAST_READINGS } from "@/lib/logbook/forecast";
 import { TrendChart } from "./TrendChart";
 import { day, type ForecastJson, type Len, type TrendJson } from "./types";
+import { alertMessageIn } from "@/lib/alerts/words";
 
 /** Why a trend has no date, in words (the minimum of readings and its reason are the forecast's own). */
 function noForecastWords(f: ForecastJson | null, readings: number): string {
@@ -53,7 +54,7 @@ export function TrendCards({ trend, len }: { trend: TrendJson; len: Len }) {
             <ul>
               {trend.alerts.map((a) => (
                 <li key={a.id}>
-                  <Badge tone={a.level === "limit" ? "fail" : "caution"}>{a.level}</Badge> {a.message}
+                  <Badge tone={a.level === "limit" ? "fail" : "caution"}>{a.level}</Badge> {alertMessageIn(a.message, len.unit === "in" ? "us" : "si")}
                 </li>
               ))}
             </ul>

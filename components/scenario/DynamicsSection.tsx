@@ -47,6 +47,8 @@ const enginePath = (p: string) => p.replace(/^dynamics\./, "");
 /** A field's message with its label and unit, so it reads alone (in the banner or beside the field). */
 export function labelledError(def: FieldDef, units: UnitSystem, message: string | undefined): string | undefined {
   if (!message) return undefined;
+  // Messages in words already start with the field's label; only a bare message gets it in front.
+  if (message.startsWith(def.label)) return message;
   const unit = unitOf(def.q, units).label;
   return `${def.label}${unit ? ` (${unit})` : ""}: ${message}`;
 }

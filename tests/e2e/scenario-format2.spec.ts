@@ -33,7 +33,8 @@ test.describe("scenario format 2", () => {
     await expect(section.getByText(/slip curve \(Kloss\)/)).toBeVisible();
     await page.locator("#f-dynamics-drive-motor-ratedSlip").fill("0.5");
     await expect(page.getByTestId("error-dynamics.drive.motor.ratedSlip")).toContainText("Rated slip");
-    await expect(page.getByTestId("error-dynamics.drive.motor.ratedSlip")).toContainText("drive.motor.ratedSlip must be at most");
+    // In words, with the label and the bound, never the internal path.
+    await expect(page.getByTestId("error-dynamics.drive.motor.ratedSlip")).toHaveText("Rated slip must be at most 0.2");
     await page.getByTestId("save-scenario").click();
     await expect(page.getByTestId("save-banner")).toContainText("Some fields need attention");
 

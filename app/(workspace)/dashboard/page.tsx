@@ -36,7 +36,7 @@ export default async function DashboardPage() {
         description="Tautline models a chain lift as spring segments with a weighted 2:1 gravity take-up, runs your load cases, and keeps the results beside the lift they belong to."
       />
       <div className="mb-5">
-        <AlertsPanel alerts={alerts} />
+        <AlertsPanel alerts={alerts} units={user.units} />
       </div>
       {can(user.role, "run:read") && (
         <div className="mb-5">
