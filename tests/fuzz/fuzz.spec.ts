@@ -1,3 +1,4 @@
+import http from "node:http";
 import fs from "node:fs";
 import path from "node:path";
 import { expect, request as playwrightRequest, test, type APIRequestContext } from "@playwright/test";
@@ -139,27 +140,38 @@ async function send(c: FuzzCase): Promise<void> {
 async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => number; text: () => Promise<string> }> {
   const cookie = (await api.storageState()).cookies.map((k) => `${k.name}=${k.value}`).join("; ");
   const target = new URL(c.url, baseURL);
-  let sent = 0;
-  const body = new ReadableStream<Uint8Array>({
-    pull(controller) {
-      if (sent >= bytes) return controller.close();
-      const n = Math.min(64 * 1024, bytes - sent);
-      const chunk = new Uint8Array(n).fill(0x20);
-      if (sent === 0) chunk[0] = 0x7b;
-      sent += n;
-      controller.enqueue(chunk);
-    },
+  // node:http rather than fetch: a server may answer 413 and close while the body is still being sent, and
+  // the answer it gave is what counts (fetch turns that into "fetch failed").
+  return new Promise((resolve, reject) => {
+    let answered = false;
+    const req = http.request(
+      target,
+      { method: c.method, headers: { ...c.headers, cookie, origin: target.origin, "transfer-encoding": "chunked" }, timeout: 15_000 },
+      (res) => {
+        answered = true;
+        const parts: Buffer[] = [];
+        res.on("data", (b: Buffer) => parts.push(b));
+        res.on("end", () => resolve({ status: () => res.statusCode ?? 0, text: async () => Buffer.concat(parts).toString("utf8") }));
+        res.on("error", reject);
+      },
+    );
+    req.on("error", (err) => {
+      if (!answered) reject(err);
+    });
+    req.on("timeout", () => req.destroy(new Error("timed out")));
+    let sent = 0;
+    const pump = () => {
+      while (sent < bytes && !answered && !req.destroyed) {
+        const n = Math.min(64 * 1024, bytes - sent);
+        const chunk = Buffer.alloc(n, 0x20);
+        if (sent === 0) chunk[0] = 0x7b;
+        sent += n;
+        if (!req.write(chunk)) return void req.once("drain", pump);
+      }
+      if (!req.destroyed) req.end();
+    };
+    pump();
   });
-  const res = await fetch(target, {
-    method: c.method,
-    headers: { ...c.headers, cookie, origin: target.origin },
-    body,
-    duplex: "half",
-    redirect: "manual",
-    signal: AbortSignal.timeout(15_000),
-  } as RequestInit);
-  const text = await res.text();
-  return { status: () => res.status, text: async () => text };
 }
 
 async function sendAll(cases: FuzzCase[]): Promise<void> {
