@@ -147,7 +147,8 @@ describe("a 22-case study through both execution modes", () => {
     });
     const known = operatingWindow(GRID, expected, { units: "si" });
     expect(view.window!.groups).toEqual(known.groups);
-    expect(view.window!.text).toBe(known.text);
+    // The study adds a sentence naming cases whose verdict is not settled on its coarse 16-segment mesh.
+    expect(view.window!.text.slice(0, known.text.length)).toBe(known.text);
     // The full train's cars weigh 1000 + 4 × 75 kg (Source: the test's own train, set in study-fixtures.ts).
     const full = expected.find((e) => e.values.loading === "full")!;
     const built = caseScenario(st.base, full.values, { chains: new Map(), train: st.train });
