@@ -8,6 +8,9 @@ const when = isoDateField("measuredAt").optional();
 const notes = z.string().trim().max(2000).optional().nullable();
 const metres = (max: number) => z.number({ error: "a number in metres" }).finite().min(0).max(max);
 
+/** The date on its own: checked whatever the kind, so a bad date is named even when the kind is missing. */
+export const entryDateSchema = z.object({ measuredAt: when });
+
 export const entryInputSchema = z.discriminatedUnion("kind", [
   z.object({
     kind: z.literal("elongation"),

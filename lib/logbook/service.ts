@@ -6,7 +6,7 @@
 import { Op, type WhereOptions } from "sequelize";
 import { assertCan, type Actor } from "@/lib/http/actor";
 import { assertVersion } from "@/lib/http/concurrency";
-import { conflict } from "@/lib/http/errors";
+import { conflict, zodIssues } from "@/lib/http/errors";
 import { validate, throwIfIssues } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
 import { getSequelize } from "@/lib/db/sequelize";
@@ -16,7 +16,7 @@ import { getModels, type LogbookEntry, type LogbookSetting } from "@/models";
 import { loadLiftContext, type LiftContext } from "./context";
 import { MIN_FORECAST_READINGS, forecastCrossing, type Forecast, type ForecastStatus } from "./forecast";
 import { elongationPercent, takeUpLimits, takeUpReset } from "./measure";
-import { DEFAULT_SETTINGS, entryInputSchema, entryListQuery, settingsInputSchema } from "./schema";
+import { DEFAULT_SETTINGS, entryDateSchema, entryInputSchema, entryListQuery, settingsInputSchema } from "./schema";
 
 export interface EntryView {
   id: number;
@@ -190,7 +190,14 @@ export async function createEntry(actor: Actor, input: unknown, options: { idemp
   const liftId = (input as { liftId?: unknown } | null)?.liftId;
   // Another organisation's lift is 404 whatever else the body says.
   const ctx = typeof liftId === "number" && Number.isInteger(liftId) && liftId > 0 ? await loadLiftContext(actor, liftId) : null;
-  const body = validate(entryInputSchema, input);
+  const parsed = entryInputSchema.safeParse(input);
+  const date = entryDateSchema.safeParse({ measuredAt: (input as { measuredAt?: unknown } | null)?.measuredAt });
+  if (!parsed.success || !date.success) {
+    // Every problem at once: the union stops at a missing kind, the date is checked apart.
+    const issues = [...(parsed.success ? [] : zodIssues(parsed.error)), ...(date.success ? [] : zodIssues(date.error))];
+    throwIfIssues(issues.filter((i, n) => issues.findIndex((j) => j.path === i.path && j.message === i.message) === n));
+  }
+  const body = parsed.data!;
   if (!ctx) throw new Error("unreachable: liftId validated");
   const key = options.idempotencyKey;
   const replay = await replayOf(actor, key, ctx.lift.id, body.kind);

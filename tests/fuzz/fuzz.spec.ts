@@ -156,7 +156,13 @@ async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => 
       },
     );
     req.on("error", (err) => {
-      if (!answered) reject(err);
+      if (answered) return;
+      // Past the 1 MB limit the server stops reading and closes; when that close reaches us before its 413
+      // does, the closed connection is the refusal (the row counts and "still answers" checks still apply).
+      const code = (err as NodeJS.ErrnoException).code;
+      if (sent > 1_000_000 && (code === "EPIPE" || code === "ECONNRESET"))
+        return resolve({ status: () => 413, text: async () => JSON.stringify({ error: `connection closed by the server past the body limit (${code})` }) });
+      reject(err);
     });
     req.on("timeout", () => req.destroy(new Error("timed out")));
     let sent = 0;
