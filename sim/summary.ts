@@ -57,7 +57,8 @@ export interface RiderAccelExposure {
   backwardPeak: number;
 }
 
-export interface Summary {
+/** The lift as a whole: the per-train keys hold peaks over all trains, counts summed, times of the first. */
+export interface Summary extends TrainSummary {
   peakTension: number;
   peakTensionTime: number;
   /** Loop position (m from the bottom idler, in the direction of travel) of the peak-tension segment's middle. */
@@ -66,18 +67,6 @@ export interface Summary {
   steadyTension: number | null;
   snatchFactor: number | null;
   steadyChainSpeed: number | null;
-  surgeAmplitude: number | null;
-  surgeDampingRatio: number | null;
-  surgePeriod: number | null;
-  engagementTime: number | null;
-  engagementSpeed: number | null;
-  pickupDelay: number | null;
-  timeToChainSpeed: number | null;
-  peakDogForce: number;
-  rollbackDistance: number;
-  ardCatches: number;
-  ardBounces: number;
-  peakArdForce: number;
   takeUpMaxDrop: number;
   takeUpMaxRise: number;
   takeUpCreepRate: number | null;
@@ -85,8 +74,6 @@ export interface Summary {
   slackSegments: number;
   peakDrivePower: number;
   peakDriveTorque: number;
-  peakRiderAccel: number;
-  riderAccelExposure: RiderAccelExposure;
   minSafetyFactor: number;
   energyResidual: number | null;
   steps: number;
@@ -99,17 +86,12 @@ export interface Summary {
   timeStep: number | null;
   steadyClimbDuration: number;
   steadyDrivePower: number | null;
-  dogClicks: number;
-  dogReleaseTime: number | null;
   trainReachedEnd: boolean;
-  maxTrainSpeed: number;
-  /** Largest compression of the ARD contact, m (peak ARD force / contact stiffness): part of rollbackDistance. */
-  peakArdCompression: number;
   /** The stop on the lift for the first train the chain carried then (see trains[i].stop for each). */
   stop: StopFigures | null;
   /** The first train's release at lift.dogRelease (see trains[i].release for each). */
   release: ReleaseFigures | null;
-  /** Per-train figures; the flat keys describe the lift as a whole (peaks over all trains, times of the first). */
+  /** Per-train figures. */
   trains: TrainSummary[];
 }
 
