@@ -2,6 +2,8 @@
 // zero / up again, seed, the mail fake on test ports, vitest (unit, sim, integration), next build and
 // Playwright e2e against `next start`. Prints `N passed, N failed` last; exits non-zero on any failure.
 // Developer option: npm test -- --only unit|sim|integration|e2e (repeatable or comma-separated).
+// Developer option: npm test -- --only e2e --files tests/e2e/foo.spec.ts,tests/integration/bar.test.ts runs
+// only those files (vitest or Playwright by folder) and skips the fuzz, database-kill and load steps.
 import fs from "node:fs";
 import path from "node:path";
 import { createSequelize } from "../lib/db/sequelize";
@@ -122,6 +124,13 @@ function fuzzOnly(argv: string[]): boolean {
 }
 
 /** A script that checks one thing and exits 0 when it holds: counted as one test. */
+/** `--files a,b` (or `--files=a,b`): only these test files; null when not given. */
+function filesOption(argv: string[]): string[] | null {
+  const named = argv.flatMap((a, i) => (a === "--files" ? (argv[i + 1] ?? "").split(",") : a.startsWith("--files=") ? a.slice(8).split(",") : []));
+  const list = named.map((f) => f.trim()).filter(Boolean);
+  return list.length ? list : null;
+}
+
 async function scriptStep(life: Lifecycle, env: NodeJS.ProcessEnv, file: string, args: string[] = []) {
   const code = await life.run(process.execPath, [path.join(repoRoot, "node_modules", "tsx", "dist", "cli.mjs"), file, ...args], { cwd: repoRoot, env });
   return { ok: code === 0, detail: code === 0 ? "" : `exit ${code}`, counts: code === 0 ? { passed: 1, failed: 0 } : { passed: 0, failed: 1 } };
@@ -129,6 +138,7 @@ async function scriptStep(life: Lifecycle, env: NodeJS.ProcessEnv, file: string,
 
 async function main(): Promise<boolean> {
   const onlyFuzz = fuzzOnly(process.argv.slice(2));
+  const files = filesOption(process.argv.slice(2));
   const parts = onlyFuzz ? new Set<Part>(["e2e"]) : parseParts(process.argv.slice(2));
   const life = new Lifecycle();
   life.watchLauncher();
@@ -198,7 +208,11 @@ async function main(): Promise<boolean> {
       } else {
         await h.step(`vitest (${names})`, async () => {
           fs.rmSync(vitestJson, { force: true });
-          const filters = vitestDirs.length === VITEST_DIRS.length ? [] : vitestDirs.map(([, dir]) => dir);
+          const filters = files
+            ? files.filter((f) => !f.startsWith("tests/e2e"))
+            : vitestDirs.length === VITEST_DIRS.length
+              ? []
+              : vitestDirs.map(([, dir]) => dir);
           const code = await life.run(
             process.execPath,
             [
@@ -239,7 +253,12 @@ async function main(): Promise<boolean> {
             fs.rmSync(playwrightJson, { force: true });
             const code = await life.run(
               process.execPath,
-              [path.join(repoRoot, "node_modules", "@playwright", "test", "cli.js"), "test", "--pass-with-no-tests"],
+              [
+                path.join(repoRoot, "node_modules", "@playwright", "test", "cli.js"),
+                "test",
+                "--pass-with-no-tests",
+                ...(files ? files.filter((f) => f.startsWith("tests/e2e")) : []),
+              ],
               { cwd: repoRoot, env: { ...env, PLAYWRIGHT_JSON_OUTPUT_FILE: playwrightJson } },
             );
             const counts = readPlaywrightCounts(playwrightJson);
@@ -247,7 +266,7 @@ async function main(): Promise<boolean> {
             return { ok: code === 0 && counts.failed === 0, detail: `${counts.passed} passed, ${counts.failed} failed`, counts };
           });
         }
-        if (built && !life.interrupted) {
+        if (built && !life.interrupted && !files) {
           const fuzzJson = path.join(artifacts, "playwright-fuzz.json");
           await h.step(onlyFuzz ? "malformed-request corpus (full)" : "malformed-request corpus (short)", async () => {
             fs.rmSync(fuzzJson, { force: true });
@@ -261,7 +280,7 @@ async function main(): Promise<boolean> {
             return { ok: code === 0 && counts.failed === 0, detail: `${counts.passed} passed, ${counts.failed} failed`, counts };
           });
         }
-        if (built && !onlyFuzz && !life.interrupted) {
+        if (built && !onlyFuzz && !files && !life.interrupted) {
           // Own MariaDB and server on their own ports: the kill never touches the shared test database.
           // Ports follow the test ports (+20, +30), so two checkouts with different TEST_* ports never collide.
           const faultEnv = {
@@ -271,7 +290,7 @@ async function main(): Promise<boolean> {
           };
           await h.step("database kill during writes (own MariaDB)", () => scriptStep(life, faultEnv, "tests/reliability/db-fault.ts"));
         }
-        if (built && !onlyFuzz && !life.interrupted) {
+        if (built && !onlyFuzz && !files && !life.interrupted) {
           const loadEnv = {
             ...env,
             LOAD_DB_PORT: process.env.LOAD_DB_PORT ?? String(stack.db.port + 30),

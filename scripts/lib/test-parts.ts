@@ -18,6 +18,8 @@ export function parseParts(argv: string[]): Set<Part> {
     const a = argv[i];
     if (a === "--only") chosen.push(...(argv[++i] ?? "").split(","));
     else if (a.startsWith("--only=")) chosen.push(...a.slice("--only=".length).split(","));
+    else if (a === "--files") i++; // read by filesOption in scripts/test.ts
+    else if (a.startsWith("--files=")) continue;
     else throw new Error(`unknown option "${a}" (use --only ${ALL_PARTS.join("|")})`);
   }
   const names = chosen.map((s) => s.trim()).filter(Boolean);
