@@ -100,7 +100,7 @@ export function CalibrationPanel({
   const job = data?.calibration ?? null;
   const active = job?.status === "queued" || job?.status === "running";
   // Each event carries what the status route answers; it replaces the read one.
-  const events = useJobEvents<{ calibration: Job | null }>(active ? `/api/recordings/${recordingId}/calibration/events${which}` : null, {
+  const events = useJobEvents<{ calibration: Job | null }>(active ? `/api/recordings/${recordingId}/calibration/events?calibrationId=${job.id}` : null, {
     onUpdate: (d) => void mutate(d, { revalidate: false }),
   });
   const statusError = readError ? errorText(readError) : events.error;

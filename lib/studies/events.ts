@@ -4,7 +4,8 @@
  * changes, then `end` once no case is left to run. Reading the study also settles cases whose runs have
  * finished (getStudy), as reading its status always did.
  */
-import type { Actor } from "@/lib/http/actor";
+import { getModels } from "@/models";
+import { assertCan, type Actor } from "@/lib/http/actor";
 import { jobEvents } from "@/lib/http/job-events";
 import { isFinished, type RunStatus } from "@/lib/runs/status";
 import type { UnitSystem } from "@/sim/units";
@@ -21,6 +22,36 @@ export async function studyEvents(actor: Actor, studyId: number, opts: { units?:
       read: async () => ({ study: await getStudy(actor, studyId, opts) }),
       finished: ({ study }) => isFinished(study.status as RunStatus),
       gone: { study: null },
+      intervalMs: STUDY_READ_MS,
+    },
+    signal,
+  );
+}
+
+/** A study's line in a list: its status and case counts (as GET /api/studies lists them). */
+export type StudyListLine = Pick<StudyView, "id" | "status" | "casesTotal" | "casesDone" | "casesFailed">;
+
+/**
+ * Follows the listed studies of the user's organisation (others' ids are left out, as a list filter would):
+ * `{ items }` with each one's status and counts whenever one changes, then `end` once none is queued or
+ * running. One stream for a whole list, so a page of studies holds one connection.
+ */
+export async function studyListEvents(actor: Actor, ids: number[], signal: AbortSignal): Promise<Response> {
+  assertCan(actor, "study:read");
+  const { Study } = getModels();
+  return jobEvents<{ items: StudyListLine[] }>(
+    {
+      label: `studies ${ids.join(",")}`,
+      read: async () => {
+        const rows = await Study.findAll({
+          where: { id: ids, organisationId: actor.organisationId },
+          attributes: ["id", "status", "casesTotal", "casesDone", "casesFailed"],
+          order: [["id", "DESC"]],
+        });
+        return { items: rows.map((s) => ({ id: s.id, status: s.status, casesTotal: s.casesTotal, casesDone: s.casesDone, casesFailed: s.casesFailed })) };
+      },
+      finished: ({ items }) => items.every((s) => isFinished(s.status as RunStatus)),
+      gone: { items: [] },
       intervalMs: STUDY_READ_MS,
     },
     signal,

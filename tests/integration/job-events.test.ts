@@ -14,7 +14,8 @@ import { jobEvents } from "@/lib/http/job-events";
 import { createRecording } from "@/lib/recordings/service";
 import { calibrationEvents } from "@/lib/calibration/events";
 import { getCalibration } from "@/lib/calibration/service";
-import { studyEvents } from "@/lib/studies/events";
+import { studyEvents, studyListEvents, type StudyListLine } from "@/lib/studies/events";
+import { studyIdsQuerySchema } from "@/lib/studies/http";
 import { createStudy, getStudy, type StudyView } from "@/lib/studies/service";
 import { runEvents } from "@/lib/runs/events";
 import { startRun } from "@/lib/runs/service";
@@ -141,10 +142,10 @@ describe("a calibration's event stream", () => {
     expect((rest[0] as { data: unknown }).data).toEqual({ calibration: await getCalibration(org.as.viewer, recordingId, row.id) });
   });
 
-  it("follows the recording's latest calibration when none is named, and ends at once when it has finished", async () => {
+  it("ends at once for a calibration that has already finished", async () => {
     const row = await handMadeCalibration();
     await getModels().Calibration.update({ status: "failed", error: "The fit did not converge." }, { where: { id: row.id } });
-    const frames = await events(await calibrationEvents(org.as.viewer, recordingId, undefined, new AbortController().signal)).rest();
+    const frames = await events(await calibrationEvents(org.as.viewer, recordingId, row.id, new AbortController().signal)).rest();
     expect(frames.map((f) => ("event" in f ? f.event : ":"))).toEqual(["progress", "end"]);
     expect(named(frames, "end")[0].data).toMatchObject({ calibration: { id: row.id, status: "failed", error: "The fit did not converge." } });
   });
@@ -157,11 +158,13 @@ describe("a calibration's event stream", () => {
     expect(await stream.rest()).toEqual([{ event: "end", data: { calibration: null } }]);
   });
 
-  it("answers 404 to another organisation and 403 to a role without the permission, before any stream", async () => {
+  it("answers 404 to another organisation, before any stream", async () => {
     const row = await handMadeCalibration();
     const signal = new AbortController().signal;
     await expectHttpError(() => calibrationEvents(other.as.engineer, recordingId, row.id, signal), 404);
-    await expectHttpError(() => calibrationEvents(other.as.engineer, recordingId, undefined, signal), 404);
+    await expectHttpError(() => calibrationEvents(other.as.engineer, recordingId, null, signal), 404);
+    // The recording's own: a stream follows one named calibration.
+    expect((await expectHttpError(() => calibrationEvents(org.as.viewer, recordingId, null, signal), 400)).issues[0].path).toBe("calibrationId");
     await expectHttpError(() => calibrationEvents(org.as.viewer, recordingId, row.id + 1_000_000, signal), 404);
     await getModels().Calibration.update({ status: "failed" }, { where: { id: row.id } });
   });
@@ -229,6 +232,26 @@ describe("a study's event stream", () => {
     expect(end.mode).toBe("pool");
     expect(end.status).toBe("done");
     expect(end.casesDone).toBe(3);
+  });
+
+  it("follows a list's running studies on one stream, leaving out another organisation's, to their end", { timeout: 60_000 }, async () => {
+    const created = await createStudy(org.as.engineer, { scenarioId: studyScenarioId, name: "Job events: list", parameters: [{ key: "entrySpeed", values: [4, 5] }] });
+    const theirs = events(await studyListEvents(other.as.viewer, [created.id], new AbortController().signal));
+    expect(await theirs.rest()).toEqual([
+      { event: "progress", data: { items: [] } },
+      { event: "end", data: { items: [] } },
+    ]);
+    const frames = await events(await studyListEvents(org.as.viewer, [created.id, created.id + 1_000_000], new AbortController().signal)).rest();
+    const lines = named(frames, "progress").map((f) => (f.data as { items: StudyListLine[] }).items);
+    expect(lines.every((items) => items.length === 1 && items[0].id === created.id)).toBe(true);
+    const counts = lines.map(([l]) => l.casesDone + l.casesFailed);
+    expect(counts).toEqual([...counts].sort((a, b) => a - b));
+    expect(named(frames, "end")[0].data).toEqual({ items: [{ id: created.id, status: "done", casesTotal: 2, casesDone: 2, casesFailed: 0 }] });
+    // The list's query names 1 to 100 ids.
+    expect(studyIdsQuerySchema.safeParse({ ids: "3,7,7" }).data).toEqual({ ids: [3, 7] });
+    for (const ids of [undefined, "", "3,,7", "seven", Array.from({ length: 101 }, (_, i) => i + 1).join(",")]) {
+      expect(studyIdsQuerySchema.safeParse({ ids }).success, String(ids)).toBe(false);
+    }
   });
 
   it("follows a study run by a BullMQ worker on Redis to its end", { timeout: 60_000 }, async () => {
