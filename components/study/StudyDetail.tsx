@@ -40,9 +40,10 @@ export function StudyDetail({
 }) {
   const { data, error, mutate } = useSWR<{ study: StudyView }>(`/api/studies/${id}?units=${units}`, getJson);
   const following = data?.study.status === "running" || data?.study.status === "queued";
-  // While it runs, each event carries the whole study as the route above answers it.
-  const events = useJobEvents<{ study: StudyView }>(following ? `/api/studies/${id}/events?units=${units}` : null, {
-    onUpdate: (d) => void mutate(d, { revalidate: false }),
+  // While it runs, each event carries the whole study as the route above answers it (null once deleted:
+  // reading it again then says so).
+  const events = useJobEvents<{ study: StudyView | null }>(following ? `/api/studies/${id}/events?units=${units}` : null, {
+    onUpdate: (d) => void (d.study ? mutate({ study: d.study }, { revalidate: false }) : mutate()),
   });
   const [sort, setSort] = useState<{ key: string; dir: 1 | -1 }>({ key: "idx", dir: 1 });
   const [busy, setBusy] = useState(false);
