@@ -1,8 +1,9 @@
 "use client";
 /**
  * Fit E·A and damping (optionally guide friction) to the recording; show the fit and save as a new lift
- * revision. The fit is a job in the engine pool: the panel starts it, polls its status (SWR) and shows
- * its progress, then the result or the job's error.
+ * revision. The fit is a job in the engine pool: the panel starts it, reads its status once (SWR), follows its
+ * event stream (useJobEvents) while it is queued or running and shows its progress, then the result or the
+ * job's error.
  */
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { useEffect, useRef, useState } from "react";
@@ -14,6 +15,7 @@ import { Field, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
+import { useJobEvents } from "@/lib/client/job-events";
 import type { CalibrationStatus } from "@/lib/calibration/status";
 import { fitVerdict } from "@/lib/calibration/gate";
 
@@ -62,8 +64,6 @@ interface Job {
   error: string | null;
 }
 
-const POLL_MS = 700;
-
 function errorText(err: unknown): string {
   if (!(err instanceof ApiError)) return err instanceof Error ? err.message : String(err);
   const retry = err.status === 503 ? err.headers?.get("retry-after") : null;
@@ -95,12 +95,15 @@ export function CalibrationPanel({
   const [jobId, setJobId] = useState<number | null>(null);
   const [starting, setStarting] = useState(false);
   const [msg, setMsg] = useState<{ tone: "error" | "success"; text: string } | null>(null);
-  const key = `/api/recordings/${recordingId}/calibration${jobId ? `?calibrationId=${jobId}` : ""}`;
-  const { data, error: pollError, mutate } = useSWR<{ calibration: Job | null }>(key, getJson, {
-    refreshInterval: (d) => (d?.calibration && (d.calibration.status === "queued" || d.calibration.status === "running") ? POLL_MS : 0),
-  });
+  const which = jobId ? `?calibrationId=${jobId}` : "";
+  const { data, error: readError, mutate } = useSWR<{ calibration: Job | null }>(`/api/recordings/${recordingId}/calibration${which}`, getJson);
   const job = data?.calibration ?? null;
   const active = job?.status === "queued" || job?.status === "running";
+  // Each event carries what the status route answers; it replaces the read one.
+  const events = useJobEvents<{ calibration: Job | null }>(active ? `/api/recordings/${recordingId}/calibration/events?calibrationId=${job.id}` : null, {
+    onUpdate: (d) => void mutate(d, { revalidate: false }),
+  });
+  const statusError = readError ? errorText(readError) : events.error;
   const fit = job?.status === "done" ? job.result : null;
 
   // Hand each finished fit's trace to the overlay once.
@@ -162,9 +165,9 @@ export function CalibrationPanel({
             {msg.text}
           </Alert>
         )}
-        {pollError && (
+        {statusError && (
           <Alert tone="error" testId="calibration-error">
-            Could not read the fit&apos;s status: {errorText(pollError)}
+            Could not read the fit&apos;s status: {statusError}
           </Alert>
         )}
         {job && active && (

@@ -9,6 +9,7 @@ import { Alert } from "@/components/ui/Alert";
 import { Badge } from "@/components/ui/Badge";
 import { Button } from "@/components/ui/Button";
 import { ApiError, sendJson } from "@/lib/client/fetch";
+import { useJobEvents } from "@/lib/client/job-events";
 import type { UnitSystem } from "@/lib/client/units";
 import { ProgressBar } from "./ProgressBar";
 import { RunResults } from "./RunResults";
@@ -25,28 +26,20 @@ export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { 
   const [progress, setProgress] = useState(0);
   const [error, setError] = useState<string | null>(null);
 
+  // Follows the run's event stream while it is queued or running; the end event reads the run again and
+  // opens the stored result.
+  const [follow, setFollow] = useState(false);
+  const [reads, setReads] = useState(0);
   useEffect(() => {
     let live = true;
-    let es: EventSource | null = null;
     const open = async () => {
       try {
         const r = await loadServerRun(runId);
         if (!live) return;
         setRun(r.run);
         setProgress(r.run.progress);
-        if (r.data) return setData(r.data);
-        if (r.run.status === "queued" || r.run.status === "running") {
-          es = new EventSource(`/api/runs/${runId}/events`);
-          es.addEventListener("progress", (e) => {
-            const m = JSON.parse((e as MessageEvent).data) as { status: RunJson["status"]; progress: number };
-            setProgress(m.progress);
-            setRun((x) => (x ? { ...x, status: m.status, progress: m.progress } : x));
-          });
-          es.addEventListener("end", () => {
-            es?.close();
-            void open();
-          });
-        }
+        if (r.data) setData(r.data);
+        setFollow(!r.data && (r.run.status === "queued" || r.run.status === "running"));
       } catch (err) {
         if (live) setError(err instanceof Error ? err.message : String(err));
       }
@@ -54,9 +47,19 @@ export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { 
     void open();
     return () => {
       live = false;
-      es?.close();
     };
-  }, [runId]);
+  }, [runId, reads]);
+  const events = useJobEvents<{ status: RunJson["status"]; progress: number }, unknown>(follow ? `/api/runs/${runId}/events` : null, {
+    onUpdate: (m) => {
+      setProgress(m.progress);
+      setRun((x) => (x ? { ...x, status: m.status, progress: m.progress } : x));
+    },
+    onEnd: () => {
+      setFollow(false);
+      setReads((n) => n + 1);
+    },
+  });
+  const shownError = error ?? events.error;
 
   const cancel = async () => {
     try {
@@ -101,7 +104,7 @@ export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { 
           <p className="text-[12px] text-steel-500">The scenario itself is unchanged; its other runs use its own values.</p>
         </Alert>
       )}
-      {error && <Alert tone="error" title={error} testId="saved-run-error" />}
+      {shownError && <Alert tone="error" title={shownError} testId="saved-run-error" />}
       {run?.status === "failed" && (
         <Alert tone="error" title="The run failed" testId="saved-run-failed">
           {run.error}
@@ -109,7 +112,7 @@ export function SavedRunView({ runId, units, canCancel, initialT, fileStem }: { 
       )}
       {run?.status === "cancelled" && <Alert tone="info" title="The run was cancelled before it finished." />}
       {data && <RunResults data={data} units={units} initialT={initialT} fileStem={fileStem} />}
-      {!run && !error && <div className="h-40 animate-pulse rounded-lg bg-steel-100" />}
+      {!run && !shownError && <div className="h-40 animate-pulse rounded-lg bg-steel-100" />}
     </div>
   );
 }

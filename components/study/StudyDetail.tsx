@@ -13,6 +13,7 @@ import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
 import { StudyLinePlots } from "./StudyCharts";
 import { OperatingMap } from "./OperatingMap";
 import { getJson } from "@/lib/client/fetch";
+import { useJobEvents } from "@/lib/client/job-events";
 
 function duration(s: number | null): string {
   if (s === null) return "estimating…";
@@ -37,8 +38,12 @@ export function StudyDetail({
   canReadReports: boolean;
   userId: number;
 }) {
-  const { data, error, mutate } = useSWR<{ study: StudyView }>(`/api/studies/${id}?units=${units}`, getJson, {
-    refreshInterval: (d) => (d && (d.study.status === "running" || d.study.status === "queued") ? 1000 : 0),
+  const { data, error, mutate } = useSWR<{ study: StudyView }>(`/api/studies/${id}?units=${units}`, getJson);
+  const following = data?.study.status === "running" || data?.study.status === "queued";
+  // While it runs, each event carries the whole study as the route above answers it (null once deleted:
+  // reading it again then says so).
+  const events = useJobEvents<{ study: StudyView | null }>(following ? `/api/studies/${id}/events?units=${units}` : null, {
+    onUpdate: (d) => void (d.study ? mutate({ study: d.study }, { revalidate: false }) : mutate()),
   });
   const [sort, setSort] = useState<{ key: string; dir: 1 | -1 }>({ key: "idx", dir: 1 });
   const [busy, setBusy] = useState(false);
@@ -119,6 +124,7 @@ export function StudyDetail({
             <div className="h-full bg-lamp-500 transition-all" style={{ width: `${pct}%` }} />
           </div>
           {actionError ? <p className="mt-2 text-sm text-fail">{actionError}</p> : null}
+          {events.error ? <p className="mt-2 text-sm text-fail">Could not follow the study&apos;s progress: {events.error}</p> : null}
         </CardBody>
       </Card>
 

@@ -6,10 +6,12 @@ import useSWR from "swr";
 import { fromDisplay, unitOf, type UnitSystem } from "@/lib/client/units";
 import { PARAMETER_LABELS, STUDY_LOADINGS, STUDY_PARAMETER_KEYS, type StudyParameterKey } from "@/lib/studies/schema";
 import type { StudyView } from "@/lib/studies/service";
+import type { StudyListLine } from "@/lib/studies/events";
 import { Badge } from "@/components/ui/Badge";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { getJson } from "@/lib/client/fetch";
+import { useJobEvents } from "@/lib/client/job-events";
 import { useSubmitOnce } from "@/components/ui/useSubmitOnce";
 import { parseNumber } from "@/lib/units/parse-number";
 
@@ -87,7 +89,15 @@ function ParamFields({ n, p, set, units }: { n: number; p: ParamDraft; set: (p: 
 
 export function StudyList({ units, canRun }: { units: UnitSystem; canRun: boolean }) {
   const router = useRouter();
-  const { data } = useSWR<{ items: StudyView[] }>("/api/studies?pageSize=50", getJson, { refreshInterval: 3000 });
+  const { data, mutate } = useSWR<{ items: StudyView[] }>("/api/studies?pageSize=50", getJson);
+  // The listed studies that are queued or running are followed by one event stream; its lines update the list.
+  const following = (data?.items ?? []).filter((s) => s.status === "queued" || s.status === "running").map((s) => s.id);
+  useJobEvents<{ items: StudyListLine[] }>(following.length ? `/api/studies/events?ids=${following.join(",")}` : null, {
+    onUpdate: ({ items }) => {
+      const lines = new Map(items.map((l) => [l.id, l]));
+      void mutate((d) => d && { ...d, items: d.items.map((s) => ({ ...s, ...lines.get(s.id) })) }, { revalidate: false });
+    },
+  });
   const { data: scenarios } = useSWR<{ items: { id: number; name: string }[] }>(canRun ? "/api/scenarios?pageSize=100" : null, getJson);
   const [scenarioId, setScenarioId] = useState<number | "">("");
   const [name, setName] = useState("");

@@ -145,6 +145,8 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   "/api/recordings/[id]/overlay": { methods: { GET: needs("logbook:read") }, rows: { id: "recordings" } },
   "/api/recordings/[id]/calibrate": { methods: { POST: needs("run:start") }, rows: { id: "recordings" } },
   "/api/recordings/[id]/calibration": { methods: { GET: needs("logbook:read"), POST: needs("calibration:save") }, rows: { id: "recordings" } },
+  // Follows one named calibration (?calibrationId=): without it the probe gets 400 at once.
+  "/api/recordings/[id]/calibration/events": { methods: { GET: needs("logbook:read") }, rows: { id: "recordings" } },
   // Trainers' replay sessions. The demo park's seeded session is shared, so viewers may open it.
   "/api/training/sessions": { methods: { GET: needs("training:watch"), POST: needs("training:manage") } },
   "/api/training/sessions/[id]": {
@@ -164,7 +166,10 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   // Studies and design-check reports (the demo park has one finished study and one draft report, lib/studies/seed.ts).
   // Probe bodies fail validation, so the access test starts no study and changes no report.
   "/api/studies": { methods: { GET: needs("study:read"), POST: needs("study:run") } },
+  // Without ?ids= the probe gets 400 at once; a study list names the running studies it follows.
+  "/api/studies/events": { methods: { GET: needs("study:read") } },
   "/api/studies/[id]": { methods: { GET: needs("study:read") }, rows: { id: "studies" } },
+  "/api/studies/[id]/events": { methods: { GET: needs("study:read") }, rows: { id: "studies" } },
   "/api/studies/[id]/export": { methods: { GET: needs("study:read") }, rows: { id: "studies" } },
   "/api/studies/[id]/cancel": { methods: { POST: needs("study:run") }, rows: { id: "studies" }, refusalsOnly: ["POST"] },
   "/api/studies/[id]/resume": { methods: { POST: needs("study:run") }, rows: { id: "studies" }, refusalsOnly: ["POST"] },

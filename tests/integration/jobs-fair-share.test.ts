@@ -4,7 +4,7 @@ import { closeJobPool } from "@/lib/jobs/pool";
 import { closeRunQueue } from "@/lib/jobs/bullmq";
 import { startEngineWorker, type QueueWorker } from "@/lib/engine/queue-worker";
 import { cancelRun, startRun } from "@/lib/runs/service";
-import { runEventStream } from "@/lib/runs/events";
+import { runEvents } from "@/lib/runs/events";
 import { cancelStudy, createStudy } from "@/lib/studies/service";
 import { waitForStudyDriver } from "@/lib/studies/driver";
 import type { Actor } from "@/lib/http/actor";
@@ -49,7 +49,7 @@ afterAll(async () => {
 
 /** Reads a run's server-sent events until its `end` event (the stream a browser follows), and returns it. */
 async function endOfStream(actor: Actor, runId: number): Promise<{ id: number; status: string }> {
-  const stream = await runEventStream(actor, runId, new AbortController().signal);
+  const stream = (await runEvents(actor, runId, new AbortController().signal)).body!;
   const reader = stream.getReader();
   const dec = new TextDecoder();
   let buf = "";

@@ -9,7 +9,7 @@ import type { RouteContext } from "@/lib/http/params";
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
-/** Status, progress, summary and the stored inputs of one run (poll this, or follow /events). */
+/** Status, progress, summary and the stored inputs of one run (its progress as it runs: /events). */
 export const GET = route<RouteContext>(async (req, ctx) => {
   const user = await requirePermission("run:read");
   const id = parseId((await ctx.params).id, "Run not found.");

@@ -10,7 +10,7 @@ export const runtime = "nodejs";
 
 /**
  * Starts fitting E·A and damping (optionally guide friction) to the recording: { scenarioId, fitFriction? }.
- * Answers 202 with the queued job at once (poll GET …/calibration?calibrationId=); 503 + Retry-After when
+ * Answers 202 with the queued job at once (follow GET …/calibration/events?calibrationId=); 503 + Retry-After when
  * the job queue is full. Saves nothing to the lift.
  */
 export const POST = route(async (req, ctx: RouteContext) => {
