@@ -107,7 +107,8 @@ function ReplayCanvasInner({ scenario, frames, layout, maxTension, height = 400,
     return (view.current = frameAt(frames, useReplayStore.getState().t, view.current));
   };
 
-  const drawStill = (c: Konva.Context) => drawShapes(nativeCtx(c), paintStatic(scene));
+  const still = useMemo(() => paintStatic(scene), [scene]);
+  const drawStill = (c: Konva.Context) => drawShapes(nativeCtx(c), still);
 
   const drawMoving = (c: Konva.Context) => {
     const t0 = clock();
