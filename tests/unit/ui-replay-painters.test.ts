@@ -12,7 +12,7 @@ import { paintScaleBar } from "@/components/replay/painters/labels";
 import type { CircleShape, LinesShape, Shape, TextShape } from "@/components/replay/painters/shapes";
 import { ALERT } from "@/components/replay/painters/shapes";
 import { paintChain } from "@/components/replay/painters/track";
-import { CAR_GAP, carHeightPx, paintTrains } from "@/components/replay/painters/trains";
+import { CAR_GAP, carHeightPx, paintTrains, TRAIN_LABEL_GAP } from "@/components/replay/painters/trains";
 import { viewTransform } from "@/components/replay/painters/view";
 import { BAND_COLOURS, SLACK_COLOUR, TENSION_BANDS } from "@/components/replay/palette";
 
@@ -119,7 +119,13 @@ describe("replay painters: trains and pawls", () => {
     const cars = of(shapes, "lines", "car");
     expect(cars.filter((c) => c.train === 0)).toHaveLength(6);
     expect(cars.filter((c) => c.train === 1)).toHaveLength(4);
-    expect(of(shapes, "text", "train-label").map((t) => t.text)).toEqual(["Train 1", "Train 2"]);
+    const names = of(shapes, "text", "train-label");
+    expect(names.map((t) => t.text)).toEqual(["Train 1", "Train 2"]);
+    // Each number stands above its nose, a car height and more off the track, along the normal (−sin 40°, −cos 40°).
+    const h = carHeightPx(sc) + TRAIN_LABEL_GAP;
+    const nose2 = onIncline(MID - 2);
+    expect(names[1].x).toBeCloseTo(sc.v.sx(nose2.x) - h * Math.sin(TH), 6);
+    expect(names[1].y).toBeCloseTo(sc.v.sy(nose2.z) - h * Math.cos(TH), 6);
     const pawls = of(shapes, "lines", "pawl");
     expect(pawls.map((p) => [p.train, p.index])).toEqual([
       [0, 0],

@@ -19,6 +19,8 @@ export const PAWL_HALF_WIDTH = 2;
 export const PAWL_TIP_BACK = 3;
 /** Ring round the carrying pawl's tooth, px, centred this far off the track. */
 export const CATCH_RING = 11;
+/** A pawl not carrying: pale with a grey outline, seen on the dark cars and on the background. */
+export const IDLE_PAWL = "#d5dde4";
 export const CATCH_RING_LIFT = 4;
 
 export function paintRatchet(scene: Scene): Shape[] {
@@ -66,7 +68,7 @@ export function paintPawls(scene: Scene, f: FrameView): Shape[] {
             { x: pivot.x + a.tx * PAWL_HALF_WIDTH, y: pivot.y + a.ty * PAWL_HALF_WIDTH },
             { x: p.x - a.tx * PAWL_TIP_BACK, y: p.y - a.ty * PAWL_TIP_BACK },
           ],
-          { fill: active ? ALERT : MUTED, part: "pawl", train: i, index: k, active },
+          { fill: active ? ALERT : IDLE_PAWL, stroke: active ? undefined : MUTED, width: 1, part: "pawl", train: i, index: k, active },
         ),
       );
       const tooth = ft.ardTeeth[k] ?? null;

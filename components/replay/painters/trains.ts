@@ -10,6 +10,8 @@ import { AMBER, FONT_BOLD, PALE, polygon, type Shape } from "./shapes";
 export const CAR_GAP = 0.1;
 /** Car height drawn, m (at least 6 px). */
 export const CAR_HEIGHT = 1.1;
+/** Train number this far beyond the car's top, px. */
+export const TRAIN_LABEL_GAP = 6;
 
 /**
  * The trains of a frame view. A frame saved before per-train frames existed holds train 1 only, in its flat
@@ -51,8 +53,23 @@ export function paintTrains(scene: Scene, f: FrameView): Shape[] {
       );
     }
     if (many) {
+      // Above the nose, beyond the car's height along the normal away from the ground (clear of the track),
+      // the text running back over the train on a slope.
       const nose = trackScreen(scene, front);
-      out.push({ kind: "text", x: nose.x + 6, y: nose.y - carH - 4, text: `Train ${i + 1}`, fill: "#2a4258", font: FONT_BOLD, align: "left", baseline: "alphabetic", part: "train-label", train: i });
+      const n = screenAxes(nose.phi);
+      const off = carH + TRAIN_LABEL_GAP;
+      out.push({
+        kind: "text",
+        x: nose.x + n.nx * off,
+        y: nose.y + n.ny * off,
+        text: `Train ${i + 1}`,
+        fill: "#2a4258",
+        font: FONT_BOLD,
+        align: n.nx < -0.05 ? "right" : "left",
+        baseline: "bottom",
+        part: "train-label",
+        train: i,
+      });
     }
     const dog = trackScreen(scene, front - tr.dogOffset);
     out.push(
