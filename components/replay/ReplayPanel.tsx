@@ -24,8 +24,8 @@ const EVENT_STYLE: Record<EventKind, { mark: string; colour: string }> = {
   ard: { mark: "◆", colour: "#c0392b" },
   pickup: { mark: "●", colour: "#1f6fb2" },
   peak: { mark: "★", colour: "#b86e00" },
-  stop: { mark: "⏹", colour: "#c0392b" },
-  restart: { mark: "▶", colour: "#2f7d4f" },
+  stop: { mark: "▮", colour: "#c0392b" },
+  restart: { mark: "▷", colour: "#2f7d4f" },
   release: { mark: "■", colour: "#5f7386" },
   reengage: { mark: "▼", colour: "#b86e00" },
 };
