@@ -24,7 +24,10 @@ const EVENT_STYLE: Record<EventKind, { mark: string; colour: string }> = {
   ard: { mark: "◆", colour: "#c0392b" },
   pickup: { mark: "●", colour: "#1f6fb2" },
   peak: { mark: "★", colour: "#b86e00" },
+  stop: { mark: "▮", colour: "#c0392b" },
+  restart: { mark: "▷", colour: "#2f7d4f" },
   release: { mark: "■", colour: "#5f7386" },
+  reengage: { mark: "▼", colour: "#b86e00" },
 };
 
 export const SHORTCUTS: [string, string][] = [
@@ -54,7 +57,7 @@ export function ReplayPanel({
   initialT?: number;
 }) {
   const duration = frames.length ? frames[frames.length - 1].t : 0;
-  const events = useMemo(() => runEvents(summary, series), [summary, series]);
+  const events = useMemo(() => runEvents(summary, series, scenario.drive), [summary, series, scenario.drive]);
   const playing = useReplayStore((s) => s.playing);
   const speed = useReplayStore((s) => s.speed);
   const magnify = useReplayStore((s) => s.magnify);
@@ -295,12 +298,15 @@ function Legend({ max, units }: { max: number; units: UnitSystem }) {
 
 function Timeline({ duration, t, events }: { duration: number; t: number; events: RunEvent[] }) {
   const pct = (x: number) => `${duration > 0 ? (x / duration) * 100 : 0}%`;
+  // With several trains, each train's marks carry its number.
+  const many = events.some((e) => e.train !== null && e.train > 0);
   return (
     <div className="space-y-1">
       <div className="relative h-5" aria-hidden>
         {events.map((e, i) => (
-          <span key={`${e.kind}-${i}`} className="absolute top-0 -translate-x-1/2 text-[12px] leading-none" style={{ left: pct(e.t), color: EVENT_STYLE[e.kind].colour }} title={`${e.label} at ${e.t.toFixed(2)} s`}>
+          <span key={`${e.kind}-${i}`} className="absolute top-0 -translate-x-1/2 whitespace-nowrap text-[12px] leading-none" style={{ left: pct(e.t), color: EVENT_STYLE[e.kind].colour }} title={`${e.label} at ${e.t.toFixed(2)} s`}>
             {EVENT_STYLE[e.kind].mark}
+            {e.train !== null && many ? <sub className="text-[9px]">{e.train + 1}</sub> : null}
           </span>
         ))}
       </div>
@@ -331,6 +337,7 @@ function Timeline({ duration, t, events }: { duration: number; t: number; events
             }}
             className="inline-flex items-center gap-1 rounded border border-steel-300/70 bg-white px-2 py-0.5 text-[12px] text-ink-800 hover:border-steel-500"
             data-testid={`event-${e.kind}`}
+            data-train={e.train === null ? undefined : e.train + 1}
           >
             <span style={{ color: EVENT_STYLE[e.kind].colour }} aria-hidden>
               {EVENT_STYLE[e.kind].mark}

@@ -15,7 +15,19 @@ export interface FrameView {
   ardForce: number;
   ardTooth: number | null;
   /** Every train (absent in frames saved before per-train frames existed). */
-  trains?: { position: number; present: boolean; dogEngaged: boolean }[];
+  trains?: FrameTrainView[];
+}
+
+/** One train at the replay clock. */
+export interface FrameTrainView {
+  position: number;
+  present: boolean;
+  dogEngaged: boolean;
+  ardForce: number;
+  /** Track position of the tooth under each pawl (null: none yet). */
+  ardTeeth: (number | null)[];
+  /** Index of the pawl carrying the ARD force, or null. */
+  ardPawl: number | null;
 }
 
 /** Index of the last frame at or before t. */
@@ -75,7 +87,11 @@ export function frameAt(frames: readonly Frame[], t: number, out?: FrameView): F
   v.trains = a.trains?.map((ta, j) => {
     const tb = b.trains?.[j] ?? ta;
     const tn = near.trains?.[j] ?? ta;
-    return { position: lerp(ta.position, tb.position), present: tn.present, dogEngaged: tn.dogEngaged };
+    // Frames saved before pawls were listed per train carry train 1's tooth in the flat keys only.
+    const teeth = tn.ardTeeth ?? (j === 0 ? [near.ardTooth] : []);
+    const ardForce = tn.ardForce ?? (j === 0 ? near.ardForce : 0);
+    const ardPawl = tn.ardPawl !== undefined ? tn.ardPawl : ardForce > 0 && teeth[0] != null ? 0 : null;
+    return { position: lerp(ta.position, tb.position), present: tn.present, dogEngaged: tn.dogEngaged, ardForce, ardTeeth: teeth, ardPawl };
   });
   return v;
 }

@@ -62,3 +62,45 @@ describe("pawls outside the train", () => {
     expect(byPath["trains.0.pawls.1"]).toBeUndefined();
   });
 });
+
+describe("the replay frames name the pawl that carries the train", () => {
+  /** A train coasting `d` m up off the chain, rolling back onto the ARD with the pawls given; its first frame on the ARD. */
+  function firstCatch(d: number, pawls: number[]) {
+    const s: Scenario = standingTrain({
+      lift: { chainTo: 30, dogRelease: 29 },
+      chain: { catchOffset: 10 },
+      train: { entrySpeed: Math.sqrt(2 * G * (Math.sin(Math.PI / 6) + 0.015 * Math.cos(Math.PI / 6)) * d) },
+      run: { duration: 1.6, segments: 20 },
+    });
+    s.trains[0].pawls = pawls;
+    const frames = simulate(s, { frameBudget: 1600, series: false }).frames;
+    const f = frames.find((fr) => fr.t > 0 && fr.trains[0].ardForce > 0);
+    expect(f).toBeDefined();
+    return { from: s.antiRollback.from, front: f!.trains[0].position, tr: f!.trains[0] };
+  }
+
+  // Pawl 1 starts on a tooth (standingTrain), pawl 2 half a spacing behind it. After coasting d the pawls sit
+  // d mod s and (d + s/2) mod s above the last tooth each passed: the smaller of the two meets its tooth first.
+  // Source: ratchet geometry (common practice, no source); coasting distance u²/(2a), a = g(sin θ + C_rr cos θ).
+  const cases: [number, number][] = [
+    [0.3 + 0.1125, 1], // pawl 2 is 0.0375 m above its tooth, pawl 1 0.1125 m: pawl 2 carries
+    [0.3 + 0.0375, 0], // pawl 1 is 0.0375 m above its tooth, pawl 2 0.1125 m: pawl 1 carries
+  ];
+  for (const [d, carrying] of cases) {
+    it(`after ${d.toFixed(4)} m of coasting: pawl ${carrying + 1}`, () => {
+      const pawls = [1.3, 1.3 + TOOTH / 2];
+      const { from, front, tr } = firstCatch(d, pawls);
+      expect(tr.ardPawl).toBe(carrying);
+      for (let k = 0; k < 2; k++) {
+        const tooth = tr.ardTeeth[k]!;
+        // Every tooth named lies on the ratchet's pitch, behind its pawl.
+        expect(Math.abs((tooth - from) / TOOTH - Math.round((tooth - from) / TOOTH))).toBeLessThan(1e-6);
+        const above = front - pawls[k] - tooth;
+        // The carrying pawl bears on its tooth (within the contact's compression); the other stands clear by
+        // about half a spacing.
+        if (k === carrying) expect(Math.abs(above)).toBeLessThan(2e-3);
+        else expect(above).toBeGreaterThan(TOOTH / 2 - 0.02);
+      }
+    });
+  }
+});
