@@ -147,7 +147,12 @@ export interface Frame {
   trains: FrameTrain[];
   /** True for the frame at the peak chain tension. */
   peak?: boolean;
+  /** True for a frame kept at the step a train's pawl lands on the ARD (so a jump to the catch shows it). */
+  ardCatch?: boolean;
 }
+
+/** At most this many ARD landings keep their own frame; a long settle-back bounces a few times, not hundreds. */
+const MAX_CATCH_FRAMES = 24;
 
 export class FrameRecorder {
   private frames: Frame[] = [];
@@ -161,6 +166,8 @@ export class FrameRecorder {
   private peakY: Float64Array;
   private peakTrains: { dogForce: number; ardForce: number; active: boolean; tooth: Float64Array; ardPawl: number }[];
   private peakSlack = 0;
+  private onArd: boolean[];
+  private catchFrames = 0;
   private readonly radius: number;
   constructor(
     private readonly sys: LiftSystem,
@@ -172,6 +179,7 @@ export class FrameRecorder {
     this.peakTensions = new Float64Array(sys.n);
     this.peakY = new Float64Array(sys.layout.size);
     this.peakTrains = sys.trains.map((tr) => ({ dogForce: 0, ardForce: 0, active: false, tooth: new Float64Array(tr.pawls.length), ardPawl: -1 }));
+    this.onArd = sys.trains.map(() => false);
   }
 
   private build(
@@ -217,7 +225,16 @@ export class FrameRecorder {
   step(t: number, Y: Float64Array): void {
     if (this.budget <= 0) return;
     const sys = this.sys;
-    if (t >= this.next) {
+    let landed = false;
+    sys.trains.forEach((tr, j) => {
+      const on = tr.ardForce > 0;
+      if (on && !this.onArd[j]) landed = true;
+      this.onArd[j] = on;
+    });
+    if (landed && this.catchFrames < MAX_CATCH_FRAMES) {
+      this.catchFrames++;
+      this.frames.push({ ...this.build(t, Y, sys.T, sys.slack, sys.trains), ardCatch: true });
+    } else if (t >= this.next) {
       this.frames.push(this.build(t, Y, sys.T, sys.slack, sys.trains));
       this.next = t + this.interval;
     }
@@ -256,17 +273,24 @@ export class FrameRecorder {
         else out.splice(at, 0, p);
       }
     }
-    // Keep within the budget: drop regular frames evenly, never the peak frame.
+    // Keep within the budget: drop regular frames evenly, never the peak frame or an ARD landing.
     if (out.length > this.budget) {
       const keep: Frame[] = [];
       const stride = out.length / this.budget;
       const chosen = new Set<number>();
       for (let i = 0; i < this.budget; i++) chosen.add(Math.floor(i * stride));
-      const pi = out.findIndex((f) => f.peak);
-      if (pi >= 0 && !chosen.has(pi)) {
+      const pinned = new Set<number>();
+      out.forEach((f, i) => {
+        if (f.peak || f.ardCatch) pinned.add(i);
+      });
+      for (const pi of pinned) {
+        if (chosen.has(pi)) continue;
         let nearest = -1;
-        for (const c of chosen) if (nearest < 0 || Math.abs(c - pi) < Math.abs(nearest - pi)) nearest = c;
-        chosen.delete(nearest);
+        for (const c of chosen) {
+          if (pinned.has(c)) continue;
+          if (nearest < 0 || Math.abs(c - pi) < Math.abs(nearest - pi)) nearest = c;
+        }
+        if (nearest >= 0) chosen.delete(nearest);
         chosen.add(pi);
       }
       [...chosen].sort((a, b) => a - b).forEach((i) => keep.push(out[i]));

@@ -104,3 +104,26 @@ describe("the replay frames name the pawl that carries the train", () => {
     });
   }
 });
+
+describe("replay frames at an ARD landing", () => {
+  it("keep the step the pawl lands, within the frame budget", () => {
+    const s: Scenario = standingTrain({
+      lift: { chainTo: 30, dogRelease: 29 },
+      chain: { catchOffset: 10 },
+      train: { entrySpeed: 2.2 },
+      run: { duration: 1.6, segments: 20 },
+    });
+    s.trains[0].pawls = [1.3];
+    // Five regular frames over 1.6 s are 0.4 s apart: far coarser than the landing.
+    const r = simulate(s, { frameBudget: 6, series: false });
+    const frames = r.frames ?? [];
+    expect(frames.length).toBeLessThanOrEqual(6);
+    const landing = frames.find((f) => f.ardCatch);
+    // Plumbing, not physics: the recorder keeps the first step with a pawl force as its own frame.
+    expect(landing).toBeDefined();
+    expect(landing!.trains[0].ardForce).toBeGreaterThan(0);
+    expect(landing!.trains[0].ardPawl).toBe(0);
+    const times = frames.map((f) => f.t);
+    expect([...times].sort((a, b) => a - b)).toEqual(times);
+  });
+});
