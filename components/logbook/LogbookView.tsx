@@ -12,6 +12,8 @@ import { Field, Input, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { getJson, queryString } from "@/lib/client/fetch";
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { RecordingView } from "@/lib/recordings/service";
 import type { UnitSystem } from "@/lib/client/units";
 import { EntryForm } from "./EntryForm";
 import { Reading } from "./Reading";
@@ -22,13 +24,7 @@ import { alertMessageIn } from "@/lib/alerts/words";
 
 const INCH = 0.0254;
 
-interface RecordingJson {
-  id: number;
-  name: string;
-  sampleCount: number;
-  duration: number;
-  createdAt: string;
-}
+type RecordingJson = Jsonify<RecordingView>;
 
 export function LogbookView({
   lifts,

@@ -5,16 +5,13 @@ import { Alert } from "@/components/ui/Alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Select } from "@/components/ui/Field";
 import { getJson } from "@/lib/client/fetch";
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { OverlaySeries } from "@/lib/recordings/align";
 import { CalibrationPanel } from "@/components/calibration/CalibrationPanel";
 import type { UnitSystem } from "@/lib/client/units";
 import { OverlayChart, type Trace } from "./OverlayChart";
 
-interface OverlayJson {
-  shift: number;
-  aligned: boolean;
-  recording: { t: number[]; takeUp: (number | null)[] };
-  run: { t: number[]; takeUp: number[] };
-}
+type OverlayJson = Jsonify<OverlaySeries>;
 
 export function RecordingView({
   recordingId,
