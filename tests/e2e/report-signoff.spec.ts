@@ -54,7 +54,7 @@ test("engineer submits, the author may not approve, the reviewer approves and th
   const parser = new PDFParse({ data: new Uint8Array(await pdf.body()) });
   const text = (await parser.getText()).text.replace(/\s+/g, " ");
   await parser.destroy();
-  // Source: the run's own summary as the API returns it, printed in kN with 2 decimals.
+  // Plumbing, not physics: the PDF prints the run's summary as the API returned it, in kN with 2 decimals.
   expect(text).toContain(`${(run.summary.peakTension / 1000).toFixed(2)} kN`);
 
   expect((await engineer.post(`/api/reports/${report.id}/submit`)).status()).toBe(200);

@@ -50,8 +50,8 @@ describe("a run from queued to done", () => {
     expect(run.resultBytes).toBeGreaterThan(0);
     expect(run.version).toBeGreaterThanOrEqual(2); // queued → running → done
 
-    // Source: the engine itself (sim/simulate.ts) is deterministic for the same inputs; the stored run
-    // must carry exactly its figures.
+    // Plumbing, not physics: the stored run carries exactly the figures the engine gives for its stored inputs
+    // (the engine is deterministic; its physics is checked against references in tests/sim).
     const direct = simulate(run.inputs);
     expect(deterministic(run.summary!)).toEqual(deterministic(direct.summary as unknown as Record<string, unknown>));
 
