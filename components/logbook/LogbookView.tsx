@@ -8,7 +8,7 @@ import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useState } from "react";
 import { Alert } from "@/components/ui/Alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-import { Field, Input, Select } from "@/components/ui/Field";
+import { Field, Input, Options, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { getJson, queryString } from "@/lib/client/fetch";
@@ -68,11 +68,7 @@ export function LogbookView({
       <div className="flex flex-wrap items-end gap-3">
         <Field label="Lift" name="lift" className="w-72">
           <Select id="lift" value={liftId} onChange={(e) => router.push(`/logbook?lift=${e.target.value}`)}>
-            {lifts.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.name}
-              </option>
-            ))}
+            <Options items={lifts} label={(l) => l.name} />
           </Select>
         </Field>
         {canUpload && (

@@ -33,6 +33,19 @@ export function Select({
   );
 }
 
+/** The options of a select: one per row, valued by its id, showing `label(row)`. */
+export function Options<T extends { id: number }>({ items, label }: { items: readonly T[]; label: (item: T) => ReactNode }) {
+  return (
+    <>
+      {items.map((it) => (
+        <option key={it.id} value={it.id}>
+          {label(it)}
+        </option>
+      ))}
+    </>
+  );
+}
+
 /**
  * A labelled form control with its hint and error text. The error carries a test id derived from the
  * field name (`error-email`) so tests and screen readers find it without guessing.
