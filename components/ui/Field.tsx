@@ -33,12 +33,16 @@ export function Select({
   );
 }
 
-/** The options of a select: one per row, valued by its id, showing `label(row)`. */
-export function Options<T extends { id: number }>({ items, label }: { items: readonly T[]; label: (item: T) => ReactNode }) {
+type OptionsProps<T> = { items: readonly T[]; label: (item: T) => ReactNode } & (T extends { id: number }
+  ? { value?: (item: T) => string | number }
+  : { value: (item: T) => string | number });
+
+/** The options of a select: one per row, valued by its id (or by `value(row)`), showing `label(row)`. */
+export function Options<T>({ items, label, value = (it) => (it as { id: number }).id }: OptionsProps<T>) {
   return (
     <>
       {items.map((it) => (
-        <option key={it.id} value={it.id}>
+        <option key={value(it)} value={value(it)}>
           {label(it)}
         </option>
       ))}

@@ -3,6 +3,7 @@
  * the count of what matched at the right.
  */
 import type { InputHTMLAttributes, ReactNode } from "react";
+import { Options } from "./Field";
 
 const control = "h-8 rounded border border-steel-300 px-2";
 
@@ -43,11 +44,7 @@ export function FilterSelect({
   return (
     <FilterLabel label={label}>
       <select className={control} value={value} onChange={(e) => onChange(e.target.value)} data-testid={testId}>
-        {options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
+        <Options items={options} value={(o) => o.value} label={(o) => o.label} />
       </select>
     </FilterLabel>
   );
