@@ -8,7 +8,7 @@ import { cancelRun, deleteRun, getRun, getRunResult, listRuns, startRun } from "
 import { decodeResult } from "@/lib/runs/result-format";
 import { recoverInterruptedRuns, INTERRUPTED_MESSAGE } from "@/lib/runs/recover";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
-import { finished, importForRuns, runCount, shortScenarioFile, waitForRow } from "./runs-fixtures";
+import { deterministic, finished, importForRuns, runCount, shortScenarioFile, waitForRow } from "./runs-fixtures";
 import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
@@ -25,13 +25,6 @@ afterAll(async () => {
   await closeJobPool();
   await closeDb();
 });
-
-/** Summary figures that depend only on the inputs (wall time differs from one call to the next). */
-function deterministic(summary: Record<string, unknown>) {
-  const { wallTimeMs: _w, ...rest } = summary;
-  void _w;
-  return rest;
-}
 
 describe("a run from queued to done", () => {
   it("answers queued at once, then stores the same summary as a direct engine call", async () => {

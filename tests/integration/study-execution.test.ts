@@ -14,6 +14,7 @@ import { storedSettings } from "@/lib/studies/driver";
 import type { StudyParameter } from "@/lib/studies/schema";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finishedStudy, studyScenario, waitForStudy } from "./study-fixtures";
+import { deterministic } from "./runs-fixtures";
 import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
@@ -62,13 +63,6 @@ afterAll(async () => {
   await closeJobPool();
   await closeDb();
 });
-
-/** Figures that depend only on the inputs (wall time differs between calls). */
-function deterministic(summary: Record<string, unknown>) {
-  const { wallTimeMs: _w, ...rest } = summary;
-  void _w;
-  return rest;
-}
 
 async function caseRunsSummaries(studyId: number) {
   const { StudyCase, Run } = getModels();
