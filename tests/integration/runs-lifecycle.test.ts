@@ -131,7 +131,7 @@ describe("budget", () => {
     const row = await finished(view.id);
     expect(row.status).toBe("failed");
     const run = await getRun(engineer, view.id);
-    // Source: sim/errors.ts names the wall-time budget failure "budget-time".
+    // Plumbing, not physics: the stored code is the engine's name for the wall-time budget failure (sim/errors.ts).
     expect(run.errorCode).toBe("budget-time");
     expect(run.error).toBeTruthy();
     expect(run.error!.length).toBeGreaterThan(10);
