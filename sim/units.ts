@@ -1,5 +1,6 @@
 /**
- * SI ↔ US customary conversions for display only (SI inside always).
+ * The engine's unit constants: exact SI values of the US customary units, and each unit's SI factor (SI inside
+ * always). Which unit a quantity is shown in is the display layer's business (lib/units/display.ts).
  * Exact definitions: 1 ft = 0.3048 m, 1 lb = 0.45359237 kg (international yard and pound agreement,
  * 1959; NIST SP 811), standard gravity g_n = 9.80665 m/s², so 1 lbf = 0.45359237 × 9.80665 N
  * = 4.4482216152605 N; 1 hp (mechanical) = 550 ft·lbf/s.
@@ -11,8 +12,6 @@ export const POUND_MASS = 0.45359237;
 export const STANDARD_GRAVITY = 9.80665;
 export const POUND_FORCE = POUND_MASS * STANDARD_GRAVITY;
 export const HORSEPOWER = 550 * FOOT * POUND_FORCE;
-
-export type UnitSystem = "si" | "us";
 
 export interface UnitDef {
   symbol: string;
@@ -60,27 +59,4 @@ export function fromUnit(value: number, unit: UnitName): number {
 
 export function convert(value: number, from: UnitName, to: UnitName): number {
   return (value * UNITS[from].factor) / UNITS[to].factor;
-}
-
-/** Quantities shown in the UI and the unit each system displays them in. */
-export const DISPLAY_UNITS = {
-  length: { si: "m", us: "ft" },
-  shortLength: { si: "mm", us: "in" },
-  mass: { si: "kg", us: "lb" },
-  force: { si: "kN", us: "kip" },
-  speed: { si: "m/s", us: "ft/s" },
-  power: { si: "kW", us: "hp" },
-  stiffness: { si: "N/strain", us: "lbf/strain" },
-  massPerLength: { si: "kg/m", us: "lb/ft" },
-  acceleration: { si: "g", us: "g" },
-  torque: { si: "N·m", us: "lbf·ft" },
-  time: { si: "s", us: "s" },
-} as const satisfies Record<string, Record<UnitSystem, UnitName>>;
-
-export type Quantity = keyof typeof DISPLAY_UNITS;
-
-/** An SI value in the display unit of a quantity for the chosen system. */
-export function display(si: number, quantity: Quantity, system: UnitSystem): { value: number; unit: string } {
-  const u = DISPLAY_UNITS[quantity][system];
-  return { value: toUnit(si, u), unit: UNITS[u].symbol };
 }

@@ -5,10 +5,12 @@ import type { AuditView } from "@/lib/audit/list";
 import { Badge } from "@/components/ui/Badge";
 import { Button } from "@/components/ui/Button";
 import { Card } from "@/components/ui/Card";
+import { countText, FilterBar, FilterInput, FilterSelect } from "@/components/ui/FilterBar";
 import { ApiError } from "@/lib/client/fetch";
+import type { Jsonify } from "@/lib/client/jsonify";
 import { useList } from "@/lib/client/hooks";
 
-type AuditJson = Omit<AuditView, "at"> & { at: string };
+type AuditJson = Jsonify<AuditView>;
 
 const ENTITY_WORDS: Record<string, string> = { lift: "Lift", scenario: "Scenario", run: "Run", report: "Report", train: "Train", chain_spec: "Chain", comment: "Comment" };
 const ACTION_TONE = { create: "pass", import: "pass", update: "lamp", archive: "caution", delete: "fail" } as const;
@@ -64,41 +66,12 @@ export function AuditTrail({ users, lifts }: { users: { id: number; name: string
   };
   return (
     <Card>
-      <div className="flex flex-wrap items-end gap-3 border-b border-steel-100 px-4 py-3 text-[13px]">
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">Lift</span>
-          <select className="h-8 rounded border border-steel-300 px-2" value={liftId} onChange={(e) => reset(setLiftId)(e.target.value)} data-testid="audit-lift">
-            <option value="">Every lift</option>
-            {lifts.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">Person</span>
-          <select className="h-8 rounded border border-steel-300 px-2" value={userId} onChange={(e) => reset(setUserId)(e.target.value)} data-testid="audit-user">
-            <option value="">Everyone</option>
-            {users.map((u) => (
-              <option key={u.id} value={u.id}>
-                {u.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">From (UTC)</span>
-          <input type="date" className="h-8 rounded border border-steel-300 px-2" value={from} onChange={(e) => reset(setFrom)(e.target.value)} data-testid="audit-from" />
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">To (UTC)</span>
-          <input type="date" className="h-8 rounded border border-steel-300 px-2" value={to} onChange={(e) => reset(setTo)(e.target.value)} data-testid="audit-to" />
-        </label>
-        <span className="ml-auto text-steel-500" data-testid="audit-total">
-          {list.data ? `${list.data.total} entr${list.data.total === 1 ? "y" : "ies"}` : "Loading…"}
-        </span>
-      </div>
+      <FilterBar total={countText(list.data?.total, "entry", "entries")} totalTestId="audit-total">
+        <FilterSelect label="Lift" value={liftId} onChange={reset(setLiftId)} options={[{ value: "", label: "Every lift" }, ...lifts.map((l) => ({ value: l.id, label: l.name }))]} testId="audit-lift" />
+        <FilterSelect label="Person" value={userId} onChange={reset(setUserId)} options={[{ value: "", label: "Everyone" }, ...users.map((u) => ({ value: u.id, label: u.name }))]} testId="audit-user" />
+        <FilterInput label="From (UTC)" type="date" value={from} onChange={reset(setFrom)} testId="audit-from" />
+        <FilterInput label="To (UTC)" type="date" value={to} onChange={reset(setTo)} testId="audit-to" />
+      </FilterBar>
       {list.error && <p className="px-4 py-2 text-[13px] text-fail">{list.error instanceof ApiError ? list.error.message : String(list.error)}</p>}
       <ul className="divide-y divide-steel-100" data-testid="audit-entries">
         {items.map((e) => (

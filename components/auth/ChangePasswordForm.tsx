@@ -2,13 +2,14 @@
 
 import { signOut } from "next-auth/react";
 import { useState, type FormEvent } from "react";
-import { changePasswordSchema, PASSWORD_MIN } from "@/lib/auth/schemas";
-import { Alert } from "@/components/ui/Alert";
+import { changePasswordSchema } from "@/lib/auth/schemas";
+import { FormError } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { validate, type FieldErrors } from "@/components/ui/form-errors";
 import { submitJson } from "@/lib/client/fetch";
+import { NewPasswordFields } from "./NewPasswordFields";
 
 export function ChangePasswordForm() {
   const [values, setValues] = useState({ currentPassword: "", newPassword: "", confirm: "" });
@@ -42,17 +43,8 @@ export function ChangePasswordForm() {
       <Field label="Current password" name="currentPassword" error={errors.currentPassword}>
         <Input id="currentPassword" type="password" autoComplete="current-password" value={values.currentPassword} invalid={!!errors.currentPassword} onChange={set("currentPassword")} />
       </Field>
-      <Field label="New password" name="newPassword" error={errors.newPassword} hint={`At least ${PASSWORD_MIN} characters.`}>
-        <Input id="newPassword" type="password" autoComplete="new-password" value={values.newPassword} invalid={!!errors.newPassword} onChange={set("newPassword")} />
-      </Field>
-      <Field label="New password again" name="confirm" error={errors.confirm}>
-        <Input id="confirm" type="password" autoComplete="new-password" value={values.confirm} invalid={!!errors.confirm} onChange={set("confirm")} />
-      </Field>
-      {error && (
-        <Alert tone="error" testId="form-error">
-          {error}
-        </Alert>
-      )}
+      <NewPasswordFields name="newPassword" label="New password" confirmLabel="New password again" password={values.newPassword} confirm={values.confirm} errors={errors} onPassword={set("newPassword")} onConfirm={set("confirm")} />
+      <FormError error={error} />
       <p className="text-[12.5px] text-steel-500">Changing the password signs you out everywhere, this browser included.</p>
       <Button type="submit" busy={busy}>
         Change password

@@ -2,7 +2,7 @@
 
 import { useState, type FormEvent } from "react";
 import { forgotPasswordSchema } from "@/lib/auth/schemas";
-import { Alert } from "@/components/ui/Alert";
+import { Alert, FormError } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
@@ -44,11 +44,7 @@ export function ForgotPasswordForm() {
       <Field label="E-mail" name="email" error={errors.email}>
         <Input id="email" type="email" autoComplete="username" autoFocus value={email} invalid={!!errors.email} onChange={(e) => setEmail(e.target.value)} />
       </Field>
-      {error && (
-        <Alert tone="error" testId="form-error">
-          {error}
-        </Alert>
-      )}
+      <FormError error={error} />
       <Button type="submit" busy={busy} className="w-full">
         Send reset link
       </Button>

@@ -2,13 +2,14 @@
 
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
-import { acceptInviteSchema, PASSWORD_MIN, resetPasswordSchema } from "@/lib/auth/schemas";
-import { Alert } from "@/components/ui/Alert";
+import { acceptInviteSchema, resetPasswordSchema } from "@/lib/auth/schemas";
+import { FormError } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { ClientForm } from "@/components/ui/ClientForm";
 import { Field, Input } from "@/components/ui/Field";
 import { validate, type FieldErrors } from "@/components/ui/form-errors";
 import { submitJson } from "@/lib/client/fetch";
+import { NewPasswordFields } from "./NewPasswordFields";
 
 /**
  * Chooses a password from a one-time link: the invitation form (with a name) or the reset form.
@@ -58,17 +59,18 @@ export function NewPasswordForm({ mode, token, email, name = "" }: { mode: "invi
           <Input id="name" autoComplete="name" value={values.name} invalid={!!errors.name} onChange={set("name")} />
         </Field>
       )}
-      <Field label={mode === "invite" ? "Choose a password" : "New password"} name="password" error={errors.password} hint={`At least ${PASSWORD_MIN} characters.`}>
-        <Input id="password" type="password" autoComplete="new-password" autoFocus value={values.password} invalid={!!errors.password} onChange={set("password")} />
-      </Field>
-      <Field label="Password again" name="confirm" error={errors.confirm}>
-        <Input id="confirm" type="password" autoComplete="new-password" value={values.confirm} invalid={!!errors.confirm} onChange={set("confirm")} />
-      </Field>
-      {error && (
-        <Alert tone="error" testId="form-error">
-          {error}
-        </Alert>
-      )}
+      <NewPasswordFields
+        name="password"
+        label={mode === "invite" ? "Choose a password" : "New password"}
+        confirmLabel="Password again"
+        password={values.password}
+        confirm={values.confirm}
+        errors={errors}
+        onPassword={set("password")}
+        onConfirm={set("confirm")}
+        autoFocus
+      />
+      <FormError error={error} />
       <Button type="submit" busy={busy} className="w-full">
         {mode === "invite" ? "Create my account" : "Set new password"}
       </Button>

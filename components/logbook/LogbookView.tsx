@@ -8,10 +8,12 @@ import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useState } from "react";
 import { Alert } from "@/components/ui/Alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-import { Field, Input, Select } from "@/components/ui/Field";
+import { Field, Input, Options, Select } from "@/components/ui/Field";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { getJson, queryString } from "@/lib/client/fetch";
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { RecordingView } from "@/lib/recordings/service";
 import type { UnitSystem } from "@/lib/client/units";
 import { EntryForm } from "./EntryForm";
 import { Reading } from "./Reading";
@@ -22,13 +24,7 @@ import { alertMessageIn } from "@/lib/alerts/words";
 
 const INCH = 0.0254;
 
-interface RecordingJson {
-  id: number;
-  name: string;
-  sampleCount: number;
-  duration: number;
-  createdAt: string;
-}
+type RecordingJson = Jsonify<RecordingView>;
 
 export function LogbookView({
   lifts,
@@ -72,11 +68,7 @@ export function LogbookView({
       <div className="flex flex-wrap items-end gap-3">
         <Field label="Lift" name="lift" className="w-72">
           <Select id="lift" value={liftId} onChange={(e) => router.push(`/logbook?lift=${e.target.value}`)}>
-            {lifts.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.name}
-              </option>
-            ))}
+            <Options items={lifts} label={(l) => l.name} />
           </Select>
         </Field>
         {canUpload && (

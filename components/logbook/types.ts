@@ -1,12 +1,12 @@
 /** Shapes of the logbook API answers, as the browser sees them (dates as ISO strings, SI values). */
+import type { Jsonify } from "@/lib/client/jsonify";
 import type { AlertView } from "@/lib/alerts/notify";
 import type { EntryView, ForecastView, Trend } from "@/lib/logbook/service";
 
-// The API answers are the lib's view types as they are (dates already ISO strings).
-export type ForecastJson = ForecastView;
-export type AlertJson = AlertView;
-export type TrendJson = Trend;
-export type EntryJson = EntryView;
+export type ForecastJson = Jsonify<ForecastView>;
+export type AlertJson = Jsonify<AlertView>;
+export type TrendJson = Jsonify<Trend>;
+export type EntryJson = Jsonify<EntryView>;
 
 /** How lengths are shown in the logbook: mm (SI) or inches (US customary), scale × SI metres. */
 export type Len = { unit: string; scale: number; digits: number };

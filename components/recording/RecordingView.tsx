@@ -3,18 +3,15 @@
 import { useEffect, useState } from "react";
 import { Alert } from "@/components/ui/Alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-import { Field, Select } from "@/components/ui/Field";
+import { Field, Options, Select } from "@/components/ui/Field";
 import { getJson } from "@/lib/client/fetch";
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { OverlaySeries } from "@/lib/recordings/align";
 import { CalibrationPanel } from "@/components/calibration/CalibrationPanel";
 import type { UnitSystem } from "@/lib/client/units";
 import { OverlayChart, type Trace } from "./OverlayChart";
 
-interface OverlayJson {
-  shift: number;
-  aligned: boolean;
-  recording: { t: number[]; takeUp: (number | null)[] };
-  run: { t: number[]; takeUp: number[] };
-}
+type OverlayJson = Jsonify<OverlaySeries>;
 
 export function RecordingView({
   recordingId,
@@ -69,11 +66,7 @@ export function RecordingView({
           ) : (
             <Field label="Run" name="overlay-run" className="w-96">
               <Select id="overlay-run" value={runId ?? ""} onChange={(e) => setRunId(Number(e.target.value))}>
-                {runs.map((r) => (
-                  <option key={r.id} value={r.id}>
-                    {r.label}
-                  </option>
-                ))}
+                <Options items={runs} label={(r) => r.label} />
               </Select>
             </Field>
           )}

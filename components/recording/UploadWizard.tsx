@@ -10,7 +10,7 @@ import Papa from "papaparse";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-import { Field, Input, Select } from "@/components/ui/Field";
+import { Field, Input, Options, Select } from "@/components/ui/Field";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { ApiError, sendJson, type FieldIssue } from "@/lib/client/fetch";
 import { formatQuantity, unitOf, type Quantity, type UnitSystem } from "@/lib/client/units";
@@ -109,11 +109,7 @@ export function UploadWizard({ lifts, liftId: initialLift, units: system }: { li
         <CardBody className="grid gap-3 md:grid-cols-3">
           <Field label="Lift" name="lift">
             <Select id="lift" value={liftId} onChange={(e) => setLiftId(Number(e.target.value))}>
-              {lifts.map((l) => (
-                <option key={l.id} value={l.id}>
-                  {l.name}
-                </option>
-              ))}
+              <Options items={lifts} label={(l) => l.name} />
             </Select>
           </Field>
           <Field label="Logger file" name="file">

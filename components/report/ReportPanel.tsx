@@ -2,7 +2,7 @@
 import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/units/display";
 import type { ReportView } from "@/lib/reports/service";
 import { Badge } from "@/components/ui/Badge";
 import { Button, buttonClass } from "@/components/ui/Button";

@@ -5,6 +5,7 @@ import { useState } from "react";
 import type { ReportView } from "@/lib/reports/service";
 import { Badge } from "@/components/ui/Badge";
 import { Card } from "@/components/ui/Card";
+import { countText, FilterBar, FilterInput, FilterSelect } from "@/components/ui/FilterBar";
 import { Table, Td, Th, THead, Tr } from "@/components/ui/Table";
 import { useList, useResource } from "@/lib/client/hooks";
 
@@ -20,34 +21,11 @@ export function ReportQueue({ initialStatus }: { initialStatus: string }) {
   const items = list.data?.items ?? [];
   return (
     <Card>
-      <div className="flex flex-wrap items-end gap-3 border-b border-steel-100 px-4 py-3 text-[13px]">
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">Status</span>
-          <select className="h-8 rounded border border-steel-300 px-2" value={status} onChange={(e) => setStatus(e.target.value)} data-testid="queue-status">
-            {Object.entries(STATUS_WORDS).map(([v, w]) => (
-              <option key={v} value={v}>
-                {w}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">Lift</span>
-          <select className="h-8 rounded border border-steel-300 px-2" value={liftId} onChange={(e) => setLiftId(e.target.value)} data-testid="queue-lift">
-            <option value="">Every lift</option>
-            {(lifts.data?.items ?? []).map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold text-steel-600">Title contains</span>
-          <input className="h-8 rounded border border-steel-300 px-2" value={q} onChange={(e) => setQ(e.target.value)} data-testid="queue-search" />
-        </label>
-        <span className="ml-auto text-steel-500">{list.data ? `${list.data.total} report${list.data.total === 1 ? "" : "s"}` : "Loading…"}</span>
-      </div>
+      <FilterBar total={countText(list.data?.total, "report", "reports")}>
+        <FilterSelect label="Status" value={status} onChange={setStatus} options={Object.entries(STATUS_WORDS).map(([value, label]) => ({ value, label }))} testId="queue-status" />
+        <FilterSelect label="Lift" value={liftId} onChange={setLiftId} options={[{ value: "", label: "Every lift" }, ...(lifts.data?.items ?? []).map((l) => ({ value: l.id, label: l.name }))]} testId="queue-lift" />
+        <FilterInput label="Title contains" value={q} onChange={setQ} testId="queue-search" />
+      </FilterBar>
       <Table>
         <THead>
           <tr>

@@ -2,12 +2,13 @@
 /** Review comments about one run (stored with its scenario): read, add, and remove your own. */
 import { useState } from "react";
 import type { CommentView } from "@/lib/comments/service";
+import type { Jsonify } from "@/lib/client/jsonify";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { ApiError, sendJson } from "@/lib/client/fetch";
 import { useList } from "@/lib/client/hooks";
 
-type CommentJson = Omit<CommentView, "createdAt" | "updatedAt"> & { createdAt: string; updatedAt: string };
+type CommentJson = Jsonify<CommentView>;
 
 export function RunComments({ scenarioId, runId, userId, canWrite, isAdmin }: { scenarioId: number; runId: number; userId: number; canWrite: boolean; isAdmin: boolean }) {
   const base = `/api/scenarios/${scenarioId}/comments`;

@@ -1,33 +1,14 @@
 /** A saved server run as RunData: the run (with its input scenario) and its stored result. */
 import type { Frame, Layout, Scenario, Series, Summary } from "@/sim";
 import { getJson } from "@/lib/client/fetch";
-import type { RunOverrides } from "@/lib/runs/overrides";
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { RunView } from "@/lib/runs/serialize";
 import { meshConfidenceOf } from "@/lib/runs/mesh";
 import { checksFor } from "./compute";
 import type { RunData } from "./types";
 
-export interface RunJson {
-  id: number;
-  scenarioId: number;
-  liftRevisionId: number;
-  status: "queued" | "running" | "done" | "failed" | "cancelled";
-  progress: number;
-  summary: Record<string, unknown> | null;
-  wallTimeMs: number | null;
-  error: string | null;
-  errorCode: string | null;
-  queuedAt: string;
-  startedAt: string | null;
-  finishedAt: string | null;
-  version: number;
-  solver: Record<string, unknown>;
-  /** What-if values the server ran instead of the scenario's (SI); null for a plain run. */
-  overrides?: RunOverrides | null;
-  /** The scenario's values those replaced when the run started (SI). */
-  overridesFrom?: RunOverrides | null;
-  inputs?: Record<string, unknown>;
-  diagnostics?: Record<string, unknown> | null;
-}
+/** A run as the API answers it (the inputs only when asked for). */
+export type RunJson = Jsonify<RunView>;
 
 interface ResultJson {
   runId: number;

@@ -7,7 +7,7 @@
  * units, so they print, zoom and read like text. Pointing at a cell names what fails there.
  */
 import { useEffect, useMemo, useRef, useState } from "react";
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/units/display";
 import { CAUTION_FRACTION } from "@/sim/checks";
 import { axisTitle, axisValue, type RegionCell, type StudyRegion } from "@/lib/studies/region";
 import type { ValueNamer } from "@/lib/studies/window";

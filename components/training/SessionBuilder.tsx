@@ -5,7 +5,7 @@ import { useCallback, useEffect, useState } from "react";
 import { Alert } from "@/components/ui/Alert";
 import { Button } from "@/components/ui/Button";
 import { Card, CardBody, CardHeader } from "@/components/ui/Card";
-import { Field, Input, Select } from "@/components/ui/Field";
+import { Field, Input, Options, Select } from "@/components/ui/Field";
 import { Table, THead, Td, Th, Tr } from "@/components/ui/Table";
 import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
 import { NumberInput } from "@/components/ui/NumberInput";
@@ -157,11 +157,7 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
               <div className="grid gap-3 md:grid-cols-2">
                 <Field label="Run" name={`run-${k}`}>
                   <Select id={`run-${k}`} value={it.runId} onChange={(e) => update(k, { runId: Number(e.target.value) })}>
-                    {runs.map((r) => (
-                      <option key={r.id} value={r.id}>
-                        {r.label}
-                      </option>
-                    ))}
+                    <Options items={runs} label={(r) => r.label} />
                   </Select>
                 </Field>
                 <Field label="Heading (optional)" name={`heading-${k}`}>

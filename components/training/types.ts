@@ -1,12 +1,8 @@
-export interface SessionJson {
-  id: number;
-  title: string;
-  description: string | null;
-  sharedAt: string | null;
-  version: number;
-  canEdit: boolean;
-  items: { id: number; runId: number; position: number; title: string | null; scenarioName: string; duration: number; captions: { id: number; at: number; text: string }[] }[];
-}
+import type { Jsonify } from "@/lib/client/jsonify";
+import type { SessionView } from "@/lib/training/service";
+
+/** A training session as the API answers it. */
+export type SessionJson = Jsonify<SessionView>;
 
 /** The caption showing at time t: the latest one reached, for 5 s (or until the next one). */
 export function activeCaption<T extends { at: number }>(captions: T[], t: number, hold = 5): T | null {

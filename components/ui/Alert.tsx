@@ -39,3 +39,12 @@ export function Alert({
     </div>
   );
 }
+
+/** A form's error in words (nothing when there is none). */
+export function FormError({ error }: { error: string | null }) {
+  return error ? (
+    <Alert tone="error" testId="form-error">
+      {error}
+    </Alert>
+  ) : null;
+}

@@ -33,6 +33,23 @@ export function Select({
   );
 }
 
+type OptionsProps<T> = { items: readonly T[]; label: (item: T) => ReactNode } & (T extends { id: number }
+  ? { value?: (item: T) => string | number }
+  : { value: (item: T) => string | number });
+
+/** The options of a select: one per row, valued by its id (or by `value(row)`), showing `label(row)`. */
+export function Options<T>({ items, label, value = (it) => (it as { id: number }).id }: OptionsProps<T>) {
+  return (
+    <>
+      {items.map((it) => (
+        <option key={value(it)} value={value(it)}>
+          {label(it)}
+        </option>
+      ))}
+    </>
+  );
+}
+
 /**
  * A labelled form control with its hint and error text. The error carries a test id derived from the
  * field name (`error-email`) so tests and screen readers find it without guessing.

@@ -1,3 +1,4 @@
+import type { Transaction } from "sequelize";
 import { getSequelize } from "@/lib/db/sequelize";
 import { badRequest, conflict, HttpError, notFound } from "@/lib/http/errors";
 import { sendMail } from "@/lib/mail/send";
@@ -101,20 +102,7 @@ export async function inviteUser(admin: CurrentUser, input: InviteUserInput, bas
         { email: input.email, name: input.name, role: input.role, organisationId: admin.organisationId, passwordHash: null },
         { transaction },
       );
-      const { token } = await issueToken(user.id, "invite", { createdByUserId: admin.id, transaction });
-      await sendMail(
-        user.email,
-        inviteMail({
-          inviteeName: user.name,
-          inviterName: admin.name,
-          organisationName,
-          role: input.role,
-          link: `${baseUrl}/accept-invite?token=${token}`,
-          validForMs: TOKEN_LIFETIME_MS.invite,
-        }),
-      ).catch((err) => {
-        throw mailFailed(err);
-      });
+      await sendInviteLink(admin, user, organisationName, baseUrl, transaction);
       return answer;
     });
   } catch (err) {
@@ -122,6 +110,30 @@ export async function inviteUser(admin: CurrentUser, input: InviteUserInput, bas
     if ((err as Error).name === "SequelizeUniqueConstraintError") throw alreadyInvited();
     throw err;
   }
+}
+
+/** Issues a fresh invite token for `user` and mails its link; a failed mail fails the caller's transaction. */
+async function sendInviteLink(
+  admin: CurrentUser,
+  user: { id: number; email: string; name: string; role: Role },
+  organisationName: string,
+  baseUrl: string,
+  transaction: Transaction,
+): Promise<void> {
+  const { token } = await issueToken(user.id, "invite", { createdByUserId: admin.id, transaction });
+  await sendMail(
+    user.email,
+    inviteMail({
+      inviteeName: user.name,
+      inviterName: admin.name,
+      organisationName,
+      role: user.role,
+      link: `${baseUrl}/accept-invite?token=${token}`,
+      validForMs: TOKEN_LIFETIME_MS.invite,
+    }),
+  ).catch((err) => {
+    throw mailFailed(err);
+  });
 }
 
 const alreadyInvited = () =>
@@ -138,20 +150,7 @@ export async function resendInvite(admin: CurrentUser, userId: number, baseUrl: 
   if (!user.active) throw conflict("Reactivate this user before sending a new invitation.");
   const org = await Organisation.findByPk(admin.organisationId);
   return getSequelize().transaction(async (transaction) => {
-    const { token } = await issueToken(user.id, "invite", { createdByUserId: admin.id, transaction });
-    await sendMail(
-      user.email,
-      inviteMail({
-        inviteeName: user.name,
-        inviterName: admin.name,
-        organisationName: org?.name ?? "your organisation",
-        role: user.role,
-        link: `${baseUrl}/accept-invite?token=${token}`,
-        validForMs: TOKEN_LIFETIME_MS.invite,
-      }),
-    ).catch((err) => {
-      throw mailFailed(err);
-    });
+    await sendInviteLink(admin, user, org?.name ?? "your organisation", baseUrl, transaction);
     return summary(user);
   });
 }

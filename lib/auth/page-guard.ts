@@ -1,4 +1,6 @@
 import { notFound, redirect } from "next/navigation";
+import { HttpError } from "@/lib/http/errors";
+import { toId } from "@/lib/http/ids";
 import { PAGE_ROUTES } from "./route-access";
 import { can } from "./permissions";
 import { isProductionInstance } from "./secret";
@@ -17,4 +19,19 @@ export async function pageUser(pattern: keyof typeof PAGE_ROUTES & string): Prom
   if (!user) redirect(`/sign-in?callbackUrl=${encodeURIComponent(pattern)}`);
   if (typeof entry.access === "object" && !can(user.role, entry.access.action)) notFound();
   return user;
+}
+
+/**
+ * The row a page shows, loaded by `load` for the path's id: a malformed id, or a row the user may not see
+ * (the domain function's 404), gives the not-found page.
+ */
+export async function pageRow<T>(params: Promise<{ id: string }>, load: (id: number) => Promise<T>): Promise<T> {
+  const id = toId((await params).id);
+  if (id === null) notFound();
+  try {
+    return await load(id);
+  } catch (err) {
+    if (err instanceof HttpError && err.status === 404) notFound();
+    throw err;
+  }
 }

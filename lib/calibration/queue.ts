@@ -2,12 +2,10 @@
  * A calibration fit as a job: fitted in the in-process pool, or queued in Redis and taken by a queue
  * worker (lib/jobs/bullmq.ts calls `calibrationQueueJob` for jobs named "calibration").
  */
-import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Slot } from "@/lib/jobs/pool";
-import { jobMode, QUEUE_RUNNER } from "@/lib/jobs/dispatch";
 import type { QueueJobContext, QueuedJobData } from "@/lib/jobs/bullmq";
-import { RUNNER_ID, runnerMayBeAlive } from "@/lib/jobs/runner-id";
+import { dispatchJob, takeQueuedRow } from "@/lib/jobs/queued-row";
 import { dispatchCalibration } from "./runner";
 
 export const CALIBRATION_JOB = "calibration";
@@ -25,28 +23,15 @@ export async function dispatchCalibrationJob(
   cal: { id: number; organisationId: number; inputs: Record<string, unknown> },
   slot: Slot,
 ): Promise<void> {
-  if (jobMode() === "pool") return dispatchCalibration(cal, slot);
-  slot.release();
-  const { Calibration } = getModels();
-  await Calibration.update({ runner: QUEUE_RUNNER }, { where: { id: cal.id } });
-  const { enqueueJob } = await import("@/lib/jobs/bullmq");
   const data: CalibrationJobData = { calibrationId: cal.id, organisationId: cal.organisationId };
-  await enqueueJob(CALIBRATION_JOB, cal.id, data);
+  await dispatchJob({ name: CALIBRATION_JOB, id: cal.id, rows: getModels().Calibration, data, slot, runHere: () => dispatchCalibration(cal, slot) });
 }
 
 /** Takes the calibration (if it still waits, or its worker died) and fits it in the local pool. */
 export async function calibrationQueueJob(job: QueuedJobData, ctx: QueueJobContext): Promise<void> {
   const data = job as CalibrationJobData;
   const { Calibration } = getModels();
-  const before = await Calibration.findByPk(data.calibrationId, { attributes: ["id", "status", "runner"] });
-  if (!before) return;
-  const takeOver = before.status === "running" && before.runner !== QUEUE_RUNNER && !runnerMayBeAlive(before.runner);
-  if (before.status !== "queued" && !takeOver) return;
-  const [taken] = await Calibration.update(
-    { runner: RUNNER_ID },
-    { where: { id: data.calibrationId, status: before.status, runner: before.runner ?? { [Op.is]: null } } },
-  );
-  if (!taken) return;
+  if (!(await takeQueuedRow(Calibration, data.calibrationId))) return;
   const cal = await Calibration.scope("withInputs").findByPk(data.calibrationId);
   if (!cal) return;
   await dispatchCalibration(cal, await ctx.localSlot());

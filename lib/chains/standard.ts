@@ -6,6 +6,7 @@
  * assumed values, and each row's note says so. Replace them with the chain manufacturer's data sheet
  * values in an organisation's own catalogue entry before relying on a result.
  */
+import type { ChainSpecView } from "./service";
 const IN = 0.0254; // m per inch, exact
 const LBF = 4.4482216152605; // N per lbf, exact
 const LB_PER_FT = 0.45359237 / 0.3048; // kg/m per lb/ft
@@ -19,15 +20,8 @@ const LB_PER_FT = 0.45359237 / 0.3048; // kg/m per lb/ft
  */
 export const ASSUMED_STIFFNESS_PER_STRENGTH = 30;
 
-export interface StandardChain {
-  designation: string;
-  pitch: number;
-  massPerLength: number;
-  axialStiffness: number;
-  breakingStrength: number;
-  source: string;
-  note: string;
-}
+/** A row of the shared standard catalogue (its note is always given). */
+export type StandardChain = Pick<ChainSpecView, "designation" | "pitch" | "massPerLength" | "axialStiffness" | "breakingStrength" | "source"> & { note: string };
 
 const STIFFNESS_NOTE = `Axial stiffness E·A assumed as ${ASSUMED_STIFFNESS_PER_STRENGTH} × breaking strength (no published table).`;
 

@@ -3,7 +3,7 @@
  * database: the seed stores exactly these, and the public/scenarios/*.json files are exactly these.
  */
 import { liftRevisionSchema, type LiftRevisionData } from "@/lib/lifts/schema";
-import { trainInputSchema, type TrainData } from "@/lib/trains/schema";
+import { trainFields, trainInputSchema, type TrainData } from "@/lib/trains/schema";
 import { engineScenarioInput } from "@/lib/scenarios/resolve";
 import { parseScenario, runSettingsSchema, type Scenario as EngineScenario } from "@/sim/schema";
 import { DEMO_SCENARIOS, demoLift, demoTrain, type DemoLift, type DemoScenario } from "./park";
@@ -38,19 +38,7 @@ export function demoRevisionData(lift: DemoLift, number: number): LiftRevisionDa
 
 export function demoTrainData(key: string): TrainData {
   const t = demoTrain(key);
-  const parsed = trainInputSchema.safeParse({
-    name: t.name,
-    notes: t.notes,
-    cars: t.cars,
-    carMassEmpty: t.carMassEmpty,
-    seatsPerCar: t.seatsPerCar,
-    riderMass: t.riderMass,
-    carLength: t.carLength,
-    dogOffset: t.dogOffset,
-    rollingResistance: t.rollingResistance,
-    dragArea: t.dragArea,
-    pawls: t.pawls ?? null,
-  });
+  const parsed = trainInputSchema.safeParse(trainFields(t));
   if (!parsed.success) fail(`train ${key}`, zodIssues(parsed.error));
   return parsed.data;
 }

@@ -21,6 +21,21 @@ export const queryId = (name: string) =>
     }),
   );
 
+/** A whole number from a query string within [min, max], `fallback` when absent (400 naming the parameter). */
+export const queryWholeNumber = (name: string, min: number, max: number, fallback: number) =>
+  z.coerce
+    .number({ error: `${name} must be a whole number` })
+    .int({ error: `${name} must be a whole number` })
+    .min(min, { error: `${name} must be at least ${min}` })
+    .max(max, { error: `${name} must be at most ${max}` })
+    .default(fallback);
+
+/** `page` (from 1) and `pageSize` (up to 100) of a list's query string. */
+export const pagingFields = {
+  page: queryWholeNumber("page", 1, 100_000, 1),
+  pageSize: queryWholeNumber("pageSize", 1, MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE),
+};
+
 /** Archived rows are hidden by default; `archived=true` shows only archived rows, `archived=all` both. */
 export const archivedFilter = z
   .enum(["false", "true", "all"], { error: "archived must be false, true or all" })
@@ -38,18 +53,7 @@ export function listQuerySchema<const S extends readonly [string, ...string[]], 
   filters: F;
 }) {
   return z.object({
-    page: z.coerce
-      .number({ error: "page must be a whole number" })
-      .int({ error: "page must be a whole number" })
-      .min(1, { error: "page must be at least 1" })
-      .max(100_000, { error: "page must be at most 100000" })
-      .default(1),
-    pageSize: z.coerce
-      .number({ error: "pageSize must be a whole number" })
-      .int({ error: "pageSize must be a whole number" })
-      .min(1, { error: "pageSize must be at least 1" })
-      .max(MAX_PAGE_SIZE, { error: `pageSize must be at most ${MAX_PAGE_SIZE}` })
-      .default(DEFAULT_PAGE_SIZE),
+    ...pagingFields,
     sort: z
       .enum(opts.sortFields, { error: `sort must be one of ${opts.sortFields.join(", ")}` })
       .default(opts.defaultSort as never),

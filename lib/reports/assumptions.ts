@@ -3,7 +3,7 @@
  * system. Limits this table does not know yet (the engine may add some) still read as words, from their
  * key, with the value as given.
  */
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/units/display";
 import { fmtQ } from "./format";
 
 type Formatter = (v: number, units: UnitSystem) => string;

@@ -41,9 +41,9 @@ export function headlineFigures(c: Pick<ReportContent, "run" | "units">): [strin
     ...(has("surgeDampingRatio")
       ? [["Surge damping ratio", typeof r.surgeDampingRatio === "number" ? `${(r.surgeDampingRatio * 100).toFixed(1)} %` : "not measured (fewer than three surge peaks)"] as [string, string]]
       : []),
-    ["Rollback distance", fmtQ(r.rollbackDistance, "shortLength", u, 1)],
+    ["Rollback distance", fmtQ(r.rollbackDistance, "smallLength", u, 1)],
     ["ARD catches", String(r.ardCatches ?? 0)],
-    ["Take-up excursion", `${fmtQ(r.takeUpMaxDrop, "shortLength", u, 0)} down, ${fmtQ(r.takeUpMaxRise, "shortLength", u, 0)} up`],
+    ["Take-up excursion", `${fmtQ(r.takeUpMaxDrop, "smallLength", u, 0)} down, ${fmtQ(r.takeUpMaxRise, "smallLength", u, 0)} up`],
     ["Peak drive power", fmtQ(r.peakDrivePower, "power", u, 1)],
     ["Peak rider acceleration", `${fmtN(r.peakRiderAccel)} g`],
   ];

@@ -1,6 +1,6 @@
 /** Numbers as the report prints them, in the reader's unit system (SI inside, converted only here). */
 import { reasonText, type ReasonKind, type ReasonPart } from "@/sim/checks";
-import { display, type Quantity, type UnitSystem } from "@/sim/units";
+import { display, type Quantity, type UnitSystem } from "@/lib/units/display";
 
 export function fmtQ(si: number | null | undefined, quantity: Quantity, units: UnitSystem, digits = 2): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return "—";
@@ -23,10 +23,10 @@ export function checkMargin(check: { key: string; value: number | boolean | null
 /** Each quantity a check reason quotes, as the report prints it in US customary units (decimals per unit). */
 const US_REASON: Record<ReasonKind, (si: number) => string> = {
   force: (v) => fmtQ(v, "force", "us", 2),
-  smallLength: (v) => fmtQ(v, "shortLength", "us", 2),
+  smallLength: (v) => fmtQ(v, "smallLength", "us", 2),
   length: (v) => fmtQ(v, "length", "us", 2),
   power: (v) => fmtQ(v, "power", "us", 1),
-  rate: (v) => `${fmtQ(v, "shortLength", "us", 3)}/s`,
+  rate: (v) => `${fmtQ(v, "smallLength", "us", 3)}/s`,
 };
 
 /** A check's reason in the report's units: the engine's SI line, or its parts converted to US customary. */

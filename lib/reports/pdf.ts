@@ -165,7 +165,7 @@ function checkValue(v: number | boolean | null, unit: string, units: "si" | "us"
   if (v === null) return "—";
   if (typeof v === "boolean") return v ? "yes" : "no";
   if (unit === "W") return fmtQ(v, "power", units, 1);
-  if (unit === "m") return fmtQ(v, "shortLength", units, 1);
+  if (unit === "m") return fmtQ(v, "smallLength", units, 1);
   if (unit === "fraction of room") return `${(v * 100).toFixed(0)} %`;
   return `${fmtN(v)}${unit ? ` ${unit}` : ""}`;
 }
@@ -250,7 +250,7 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
     ...(c.case ? ([["Case", c.case]] as [string, string][]) : []),
     ["Lift revision", `${c.lift.name}, revision ${c.lift.revision}${c.lift.changeSummary ? ` (${c.lift.changeSummary})` : ""}`],
     ["Lift geometry", `angle ${s.lift.angle}°, incline ${fmtQ(s.lift.inclineLength, "length", u)}, chain from ${fmtQ(s.lift.chainFrom, "length", u)} to ${fmtQ(s.lift.chainTo, "length", u)}`],
-    ["Chain", `pitch ${fmtQ(s.chain.pitch, "shortLength", u, 1)}, ${fmtQ(s.chain.massPerLength, "massPerLength", u)}, breaking strength ${fmtQ(s.chain.breakingStrength, "force", u, 1)}, axial stiffness E·A ${fmtQ(s.chain.axialStiffness, "force", u, 0)}`],
+    ["Chain", `pitch ${fmtQ(s.chain.pitch, "smallLength", u, 1)}, ${fmtQ(s.chain.massPerLength, "massPerLength", u)}, breaking strength ${fmtQ(s.chain.breakingStrength, "force", u, 1)}, axial stiffness E·A ${fmtQ(s.chain.axialStiffness, "force", u, 0)}`],
     ["Drive", `chain speed ${fmtQ(s.drive.speed, "speed", u)}, ${s.drive.sprocketTeeth}-tooth sprocket, efficiency ${Math.round(s.drive.efficiency * 100)} %`],
     ["Take-up", `mass ${fmtQ(s.takeUp.mass, "mass", u, 0)}, travel ${fmtQ(s.takeUp.travel, "length", u)}`],
     [
@@ -271,7 +271,7 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
   rows(doc, [
     ["Steady tension (worst position, drive)", fmtQ(st.steadyTension, "force", u)],
     ["Take-up tension", fmtQ(st.takeUpTension, "force", u)],
-    ["Static stretch of the loaded chain", fmtQ(st.loadedStretch, "shortLength", u, 1)],
+    ["Static stretch of the loaded chain", fmtQ(st.loadedStretch, "smallLength", u, 1)],
     ["Take-up travel budget", `${fmtQ(st.takeUp.required, "length", u)} required of ${fmtQ(st.takeUp.travel, "length", u)} (margin ${fmtQ(st.takeUp.margin, "length", u)}): elastic ${fmtQ(st.takeUp.elasticExcursion, "length", u)}, wear ${fmtQ(st.takeUp.wearAllowance, "length", u)}, thermal ${fmtQ(st.takeUp.thermal, "length", u)}`],
     ["Motor power (steady)", fmtQ(st.motorPower, "power", u, 1)],
     ["Drive pull / sprocket torque", `${fmtQ(st.drivePull, "force", u)} / ${fmtQ(st.torque, "torque", u, 0)}`],

@@ -56,6 +56,9 @@ export interface ReportView {
   links: { pdf: string; self: string };
 }
 
+/** What a new report has not yet: no reviewer, submission, approval, hash or stored PDF. */
+export const DRAFT_REPORT = { reviewerId: null, submittedAt: null, approvedAt: null, contentHash: null, pdf: null, pdfBytes: null } as const;
+
 export function toReportView(r: Report): ReportView {
   return {
     id: r.id,
@@ -112,12 +115,7 @@ export async function createReport(actor: Actor, raw: unknown): Promise<ReportVi
         title: body.title ?? `Design check: ${scenario.name}`,
         units: body.units ?? author?.units ?? "si",
         authorId: actor.id,
-        reviewerId: null,
-        submittedAt: null,
-        approvedAt: null,
-        contentHash: null,
-        pdf: null,
-        pdfBytes: null,
+        ...DRAFT_REPORT,
       },
       { transaction },
     );

@@ -2,13 +2,12 @@
  * A run as a job: handed to the in-process pool, or queued in Redis and taken by a queue worker
  * (lib/jobs/bullmq.ts calls `runQueueJob` for jobs named "run").
  */
-import { Op } from "sequelize";
 import { getModels } from "@/models";
 import type { Run } from "@/models/Run";
 import type { Slot } from "@/lib/jobs/pool";
-import { jobMode, QUEUE_RUNNER } from "@/lib/jobs/dispatch";
+import { jobMode } from "@/lib/jobs/dispatch";
 import type { QueueJobContext, QueuedJobData } from "@/lib/jobs/bullmq";
-import { RUNNER_ID, runnerMayBeAlive } from "@/lib/jobs/runner-id";
+import { dispatchJob, takeQueuedRow } from "@/lib/jobs/queued-row";
 import { abortRun, dispatchRun, type SolverSettings } from "./runner";
 
 export const RUN_JOB = "run";
@@ -33,13 +32,8 @@ export async function dispatchRunJob(
   slot: Slot,
   extra: { studyCaseId?: number } = {},
 ): Promise<void> {
-  if (jobMode() === "pool") return dispatchRun(run, solver, slot);
-  slot.release();
-  const { Run } = getModels();
-  await Run.update({ runner: QUEUE_RUNNER }, { where: { id: run.id } });
-  const { enqueueJob } = await import("@/lib/jobs/bullmq");
   const data: RunJobData = { runId: run.id, organisationId: run.organisationId, solver, ...extra };
-  await enqueueJob(RUN_JOB, run.id, data);
+  await dispatchJob({ name: RUN_JOB, id: run.id, rows: getModels().Run, data, slot, runHere: () => dispatchRun(run, solver, slot) });
 }
 
 /** Drops a cancelled run's job from the Redis queue if it still waits there. */
@@ -54,15 +48,7 @@ export async function runQueueJob(job: QueuedJobData, ctx: QueueJobContext): Pro
   const data = job as RunJobData;
   const { Run } = getModels();
   // A job whose run was cancelled or finished meanwhile is dropped; a run whose worker died is taken over.
-  const before = await Run.findByPk(data.runId, { attributes: ["id", "status", "runner"] });
-  if (!before) return;
-  const takeOver = before.status === "running" && before.runner !== QUEUE_RUNNER && !runnerMayBeAlive(before.runner);
-  if (before.status !== "queued" && !takeOver) return;
-  const [taken] = await Run.update(
-    { runner: RUNNER_ID },
-    { where: { id: data.runId, status: before.status, runner: before.runner ?? { [Op.is]: null } } },
-  );
-  if (!taken) return;
+  if (!(await takeQueuedRow(Run, data.runId))) return;
   const run = await Run.findByPk(data.runId);
   if (!run) return;
   const done = dispatchRun(run, data.solver, await ctx.localSlot());

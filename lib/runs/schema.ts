@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { driveSchema, runSettingsSchema, takeUpSchema, trainSchemaV1 } from "@/sim/schema";
 import { RUN_STATUSES } from "./status";
+import { pagingFields } from "@/lib/http/list-query";
 
 const run = runSettingsSchema.shape;
 
@@ -61,17 +62,8 @@ export type StartRunInput = z.output<typeof startRunSchema>;
 /** Overrides that belong to the scenario's `run` section (the rest are simulate() options). */
 export const RUN_SECTION_OVERRIDES = ["duration", "segments", "integrator", "stepFraction", "tolerance"] as const;
 
-const intParam = (name: string, min: number, max: number, fallback: number) =>
-  z.coerce
-    .number({ error: `${name} must be a whole number` })
-    .int({ error: `${name} must be a whole number` })
-    .min(min, { error: `${name} must be at least ${min}` })
-    .max(max, { error: `${name} must be at most ${max}` })
-    .default(fallback);
-
 export const listRunsQuerySchema = z.object({
-  page: intParam("page", 1, 100_000, 1),
-  pageSize: intParam("pageSize", 1, 100, 20),
+  ...pagingFields,
   status: z.enum(RUN_STATUSES, { error: `status must be one of ${RUN_STATUSES.join(", ")}` }).optional(),
   sort: z.enum(["newest", "oldest"], { error: "sort must be newest or oldest" }).default("newest"),
   /** own: the scenario's own runs (what-if runs included); study: cases of its studies; all: both. */

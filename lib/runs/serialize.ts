@@ -1,5 +1,6 @@
 import type { Run } from "@/models/Run";
 import type { RunOverrideKey } from "./schema";
+import type { RunStatus } from "./status";
 
 /** What-if values by key (SI). */
 export type OverrideValues = Partial<Record<RunOverrideKey, number>>;
@@ -10,7 +11,7 @@ export interface RunView {
   organisationId: number;
   scenarioId: number;
   liftRevisionId: number;
-  status: Run["status"];
+  status: RunStatus;
   progress: number;
   startedBy: number | null;
   solver: Record<string, unknown>;

@@ -3,16 +3,10 @@
  * Pure (no database): the chain catalogue rows and the train's masses are handed in.
  */
 import { parseScenario, type Scenario as EngineScenario, type FieldIssue } from "@/sim/schema";
+import type { ChainSpecView } from "@/lib/chains/service";
 import { LOADING_FRACTION, type StudyLoading } from "./schema";
 
-export interface ChainValues {
-  id: number;
-  designation: string;
-  pitch: number;
-  massPerLength: number;
-  axialStiffness: number;
-  breakingStrength: number;
-}
+export type ChainValues = Pick<ChainSpecView, "id" | "designation" | "pitch" | "massPerLength" | "axialStiffness" | "breakingStrength">;
 
 export interface TrainMasses {
   carMassEmpty: number;

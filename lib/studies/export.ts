@@ -3,7 +3,7 @@
  */
 import ExcelJS from "exceljs";
 import { toCsv } from "@/lib/csv/write";
-import { display, type Quantity, type UnitSystem } from "@/sim/units";
+import { display, type Quantity, type UnitSystem } from "@/lib/units/display";
 import { PARAMETER_LABELS, type StudyParameterKey } from "./schema";
 import type { StudyView } from "./service";
 
@@ -16,11 +16,11 @@ const HEADLINE_COLUMNS: { key: string; label: string; quantity: Quantity | null 
   { key: "peakTension", label: "Peak tension", quantity: "force" },
   { key: "snatchFactor", label: "Snatch factor", quantity: null },
   { key: "minSafetyFactor", label: "Lowest safety factor", quantity: null },
-  { key: "rollbackDistance", label: "Rollback distance", quantity: "shortLength" },
+  { key: "rollbackDistance", label: "Rollback distance", quantity: "smallLength" },
   { key: "ardCatches", label: "ARD catches", quantity: null },
   { key: "pickupDelay", label: "Pick-up delay (s)", quantity: null },
-  { key: "takeUpMaxDrop", label: "Take-up drop", quantity: "shortLength" },
-  { key: "takeUpMaxRise", label: "Take-up rise", quantity: "shortLength" },
+  { key: "takeUpMaxDrop", label: "Take-up drop", quantity: "smallLength" },
+  { key: "takeUpMaxRise", label: "Take-up rise", quantity: "smallLength" },
   { key: "peakDrivePower", label: "Peak drive power", quantity: "power" },
   { key: "peakRiderAccel", label: "Peak rider acceleration (g)", quantity: null },
 ];

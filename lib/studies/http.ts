@@ -1,17 +1,9 @@
 import { z } from "zod";
-
-const intParam = (name: string, min: number, max: number, fallback: number) =>
-  z.coerce
-    .number({ error: `${name} must be a whole number` })
-    .int({ error: `${name} must be a whole number` })
-    .min(min, { error: `${name} must be at least ${min}` })
-    .max(max, { error: `${name} must be at most ${max}` })
-    .default(fallback);
+import { pagingFields } from "@/lib/http/list-query";
 
 export const listStudiesQuerySchema = z.object({
   scenarioId: z.coerce.number({ error: "scenarioId must be a whole number" }).int().positive().optional(),
-  page: intParam("page", 1, 100_000, 1),
-  pageSize: intParam("pageSize", 1, 100, 20),
+  ...pagingFields,
 });
 
 export const unitsQuerySchema = z.object({

@@ -5,7 +5,7 @@
  * (4-neighbour connected cases where no check fails) with its margin, and the holes in it explained.
  * Pure: the study screen draws it, tests read it.
  */
-import { display, type UnitSystem } from "@/sim/units";
+import { display, type UnitSystem } from "@/lib/units/display";
 import { PARAMETER_LABELS, parameterValues, type StudyParameter, type StudyParameterKey } from "./schema";
 import { defaultNamer, type ValueNamer } from "./window";
 

@@ -19,6 +19,7 @@ import { caseScenario } from "./cases";
 import { expandGrid, type StudyParameter } from "./schema";
 import { headlineOf, judgeCase } from "./headline";
 import type { StoredStudySettings } from "./driver";
+import { DRAFT_REPORT } from "@/lib/reports/service";
 
 export const DEMO_STUDY_NAME = "Emberline: entry speed window, empty and full";
 const DEMO_SCENARIO = "Emberline: clean pick-up";
@@ -129,12 +130,7 @@ export async function seedDemoStudy(sequelize: Sequelize): Promise<void> {
       title,
       units: "si",
       authorId: engineer?.id ?? null,
-      reviewerId: null,
-      submittedAt: null,
-      approvedAt: null,
-      contentHash: null,
-      pdf: null,
-      pdfBytes: null,
+      ...DRAFT_REPORT,
     });
   }
 }

@@ -17,7 +17,7 @@ import { runnerMayBeAlive, RUNNER_ID } from "@/lib/jobs/runner-id";
 import { abortRun } from "@/lib/runs/runner";
 import { removeQueuedRun } from "@/lib/runs/queue";
 import { jobMode } from "@/lib/jobs/dispatch";
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/units/display";
 import { createStudySchema, type StudyParameter } from "./schema";
 import { planStudy } from "./plan";
 import { driveStudy, storedSettings } from "./driver";

@@ -3,7 +3,7 @@
  * grid values where every case is acceptable, for each value of the other parameter. Stated in words
  * ("entry speed 2.6–3.1 m/s with the full train") and numbers. Pure: screens, the PDF and exports use it.
  */
-import { display, type UnitSystem } from "@/sim/units";
+import { display, type UnitSystem } from "@/lib/units/display";
 import { NUMERIC_PARAMETERS, PARAMETER_LABELS, parameterValues, type StudyParameter, type StudyParameterKey } from "./schema";
 
 export interface WindowCase {

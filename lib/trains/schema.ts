@@ -69,3 +69,20 @@ export const trainInputSchema = z
 
 export type TrainInput = z.input<typeof trainInputSchema>;
 export type TrainData = z.output<typeof trainInputSchema>;
+
+/** A train's stored fields, picked from a row or a definition that holds them (no pawls given: null). */
+export function trainFields(t: Omit<TrainData, "pawls"> & { pawls?: TrainData["pawls"] }): TrainData {
+  return {
+    name: t.name,
+    notes: t.notes,
+    cars: t.cars,
+    carMassEmpty: t.carMassEmpty,
+    seatsPerCar: t.seatsPerCar,
+    riderMass: t.riderMass,
+    carLength: t.carLength,
+    dogOffset: t.dogOffset,
+    rollingResistance: t.rollingResistance,
+    dragArea: t.dragArea,
+    pawls: t.pawls ?? null,
+  };
+}

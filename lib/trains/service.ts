@@ -8,7 +8,7 @@ import { assertVersion, versionField } from "@/lib/http/concurrency";
 import { archivedFilter, likePattern, listQuerySchema, pageOptions, toPage, type Page } from "@/lib/http/list-query";
 import { validate } from "@/lib/http/validate";
 import { recordAudit } from "@/lib/audit/record";
-import { trainInputSchema, trainIssues, type TrainData } from "./schema";
+import { trainFields, trainInputSchema, trainIssues, type TrainData } from "./schema";
 import { badRequest } from "@/lib/http/errors";
 import { loadedCarMass } from "./mass";
 import { assertNotArchived, isRestoreRequest, type DeleteOutcome } from "@/lib/http/outcome";
@@ -30,26 +30,10 @@ export interface TrainView extends TrainData {
   updatedAt: Date;
 }
 
-function trainData(t: Train): TrainData {
-  return {
-    name: t.name,
-    notes: t.notes,
-    cars: t.cars,
-    carMassEmpty: t.carMassEmpty,
-    seatsPerCar: t.seatsPerCar,
-    riderMass: t.riderMass,
-    carLength: t.carLength,
-    dogOffset: t.dogOffset,
-    rollingResistance: t.rollingResistance,
-    dragArea: t.dragArea,
-    pawls: t.pawls ?? null,
-  };
-}
-
 export function trainView(t: Train): TrainView {
   return {
     id: t.id,
-    ...trainData(t),
+    ...trainFields(t),
     carMassLoaded: loadedCarMass(t),
     version: t.version,
     archivedAt: t.archivedAt,
@@ -119,7 +103,7 @@ export async function updateTrain(actor: Actor, id: number, input: unknown): Pro
     }
     const { version, ...changes } = validate(trainUpdateSchema, input);
     assertNotArchived(row, "train");
-    const data = validateTrain({ ...trainData(row), ...changes });
+    const data = validateTrain({ ...trainFields(row), ...changes });
     assertVersion(row.version, version, "train");
     const before = trainView(row);
     await keepTrainForApprovedScenarios(actor, row, transaction);
@@ -139,7 +123,7 @@ async function keepTrainForApprovedScenarios(actor: Actor, row: Train, transacti
   const frozen = await Scenario.findAll({ where: { trainId: row.id, frozenAt: { [Op.ne]: null } }, transaction, lock: transaction.LOCK.UPDATE });
   if (!frozen.length) return;
   const copy = await Train.create(
-    { ...trainData(row), name: `${row.name.slice(0, 170)} (as approved)`, organisationId: row.organisationId, archivedAt: new Date(), createdBy: actor.id },
+    { ...trainFields(row), name: `${row.name.slice(0, 170)} (as approved)`, organisationId: row.organisationId, archivedAt: new Date(), createdBy: actor.id },
     { transaction },
   );
   await recordAudit({ transaction, actor, entity: "train", entityId: copy.id, action: "create", before: null, after: { ...trainView(copy), copyOf: row.id } });

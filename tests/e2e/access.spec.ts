@@ -5,7 +5,6 @@ import { DEMO_ACCOUNTS, DEMO_ORGANISATIONS, type DemoAccount } from "@/lib/auth/
 import { can } from "@/lib/auth/permissions";
 import {
   API_ROUTES,
-  METHODS,
   PAGE_ROUTES,
   patternFromFile,
   type Access,
@@ -14,6 +13,7 @@ import {
 } from "@/lib/auth/route-access";
 import { apiAs, baseURL } from "./support/auth";
 import { query } from "./support/db";
+import { exportedMethods } from "../fuzz/routes";
 
 /**
  * Every route handler and page under app/, called anonymously, as every role of the demo park and as
@@ -28,16 +28,6 @@ function discover(fileName: "route.ts" | "page.tsx"): Map<string, string> {
     if (path.basename(rel) === fileName) found.set(patternFromFile(rel), path.join(APP, rel));
   }
   return found;
-}
-
-function exportedMethods(file: string): Method[] {
-  const src = fs.readFileSync(file, "utf8");
-  const names = new Set<string>();
-  for (const m of src.matchAll(/export\s+(?:const|let|async\s+function|function)\s+([A-Z]+)\b/g)) names.add(m[1]);
-  for (const m of src.matchAll(/export\s*\{([^}]*)\}/g)) {
-    for (const part of m[1].split(",")) names.add(part.trim().split(/\s+as\s+/).pop()!.trim());
-  }
-  return METHODS.filter((m) => names.has(m));
 }
 
 const routeFiles = discover("route.ts");

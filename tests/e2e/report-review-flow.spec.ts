@@ -1,8 +1,7 @@
-import fs from "node:fs";
-import path from "node:path";
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { apiAs, signInUi } from "./support/auth";
 import { linkIn, waitForMail } from "./support/mail";
+import { finishedRun } from "./support/runs";
 
 /**
  * The review flow in Chromium: the engineer creates a design-check report from the scenario page and
@@ -11,8 +10,6 @@ import { linkIn, waitForMail } from "./support/mail";
  * resubmits; the reviewer reads the approval summary, confirms it and approves; the scenario shows it is
  * frozen, with a way to copy it.
  */
-const example = JSON.parse(fs.readFileSync(path.join(__dirname, "..", "..", "sim", "examples", "lift-hill-example.json"), "utf8"));
-
 let engineerApi: APIRequestContext;
 
 test.beforeAll(async () => {
@@ -29,21 +26,10 @@ async function post(page: Page, testId: string, action: string): Promise<number>
   return (await answered).status();
 }
 
-async function finishedScenario(api: APIRequestContext, name: string): Promise<number> {
-  const imported = await api.post("/api/scenarios/import", { data: { ...example, name, run: { ...example.run, duration: 8, segments: 16 } } });
-  expect(imported.status()).toBe(201);
-  const scenarioId = (await imported.json()).scenario.id as number;
-  const started = await api.post(`/api/scenarios/${scenarioId}/runs`, { data: {} });
-  expect(started.status()).toBe(202);
-  const runId = (await started.json()).run.id as number;
-  await expect.poll(async () => (await (await api.get(`/api/runs/${runId}`)).json()).status, { timeout: 30_000 }).toBe("done");
-  return scenarioId;
-}
-
 test("engineer creates and submits a report; reviewer returns it from the queue with a comment; engineer resubmits; reviewer approves after the summary", async ({ browser }) => {
   test.setTimeout(240_000);
   const name = `Review flow ${Date.now()}`;
-  const scenarioId = await finishedScenario(engineerApi, name);
+  const { scenarioId } = await finishedRun(engineerApi, name);
 
   const engineerCtx = await browser.newContext();
   const reviewerCtx = await browser.newContext();

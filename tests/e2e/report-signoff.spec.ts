@@ -1,17 +1,14 @@
-import fs from "node:fs";
-import path from "node:path";
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import { PDFParse } from "pdf-parse";
 import { apiAs } from "./support/auth";
 import { waitForMail } from "./support/mail";
+import { finishedRun } from "./support/runs";
 
 /**
  * Sign-off over HTTP against next start: a design-check PDF of a fresh scenario's run, submitted by the
  * engineer, refused to the author and approved by the reviewer; the frozen scenario and run then refuse
  * changes with 409 and a clear message, and the author gets the e-mail.
  */
-const example = JSON.parse(fs.readFileSync(path.join(__dirname, "..", "..", "sim", "examples", "lift-hill-example.json"), "utf8"));
-
 let engineer: APIRequestContext;
 let reviewer: APIRequestContext;
 let admin: APIRequestContext;
@@ -25,23 +22,6 @@ test.afterAll(async () => {
   for (const c of [engineer, reviewer, admin]) await c?.dispose();
 });
 
-async function finishedRun(api: APIRequestContext, name: string) {
-  const imported = await api.post("/api/scenarios/import", { data: { ...example, name, run: { ...example.run, duration: 8, segments: 16 } } });
-  expect(imported.status()).toBe(201);
-  const scenarioId = (await imported.json()).scenario.id as number;
-  const started = await api.post(`/api/scenarios/${scenarioId}/runs`, { data: {} });
-  expect(started.status()).toBe(202);
-  const runId = (await started.json()).run.id as number;
-  let run: { status: string; summary: Record<string, number>; version: number } | undefined;
-  await expect
-    .poll(async () => {
-      run = await (await api.get(`/api/runs/${runId}`)).json(); // the run itself
-      return run!.status;
-    }, { timeout: 30_000 })
-    .toBe("done");
-  return { scenarioId, runId, run: run! };
-}
-
 test("engineer submits, the author may not approve, the reviewer approves and the scenario freezes", async () => {
   const { scenarioId, runId, run } = await finishedRun(engineer, `Sign-off over HTTP ${Date.now()}`);
   const created = await engineer.post("/api/reports", { data: { scenarioId, runId, title: `HTTP sign-off ${Date.now()}` } });
@@ -54,7 +34,7 @@ test("engineer submits, the author may not approve, the reviewer approves and th
   const parser = new PDFParse({ data: new Uint8Array(await pdf.body()) });
   const text = (await parser.getText()).text.replace(/\s+/g, " ");
   await parser.destroy();
-  // Source: the run's own summary as the API returns it, printed in kN with 2 decimals.
+  // Plumbing, not physics: the PDF prints the run's summary as the API returned it, in kN with 2 decimals.
   expect(text).toContain(`${(run.summary.peakTension / 1000).toFixed(2)} kN`);
 
   expect((await engineer.post(`/api/reports/${report.id}/submit`)).status()).toBe(200);

@@ -16,8 +16,8 @@ import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { opsFakes } from "./logbook-fixtures";
 import { importForRuns, shortScenarioFile } from "./runs-fixtures";
 
-// The recording is made by the engine itself with known E·A and damping (a self-consistency check: the
-// fit must find the values the engine was run with), coarse (12 segments), 7 s, every 0.04 s, 1 mm noise
+// The recording is made by the engine itself with known E·A and damping (a round trip: the fit must find the
+// values this test ran the engine with), coarse (12 segments), 7 s, every 0.04 s, 1 mm noise
 // (seeded Gaussian), uploaded as a logger CSV.
 const TRUE_EA = 1.5e7;
 const TRUE_DAMPING = 2e5;
@@ -136,7 +136,8 @@ describe("calibration as a job", () => {
     expect(done.progress).toBe(1);
     expect([...progress].some((p) => p > 0 && p < 1)).toBe(true);
     const fit = done.result!;
-    // Source: self-consistency with the engine (the recording was made with these values); the 5 % band
+    // A round trip, not physics: the recording was made with TRUE_EA and TRUE_DAMPING, set by this test, and the
+    // fit must find them back (the engine's physics is checked against references in tests/sim); the 5 % band
     // is Tautline's acceptance criterion for calibration (assumption).
     expect(Math.abs(fit.fitted.axialStiffness / TRUE_EA - 1)).toBeLessThan(0.05);
     expect(Math.abs(fit.fitted.damping / TRUE_DAMPING - 1)).toBeLessThan(0.05);
@@ -221,7 +222,7 @@ describe("calibration as a job", () => {
       worker = startEngineWorker({ concurrency: 1 });
       const done = await waitForState(view.id, (c) => c.status === "done" || c.status === "failed");
       expect(done.status).toBe("done");
-      // Source: self-consistency with the engine, as above.
+      // The round trip, as above: the values the recording was made with (5 %, assumption).
       expect(Math.abs(done.result!.fitted.axialStiffness / TRUE_EA - 1)).toBeLessThan(0.05);
     } finally {
       delete process.env.REDIS_URL;

@@ -42,7 +42,8 @@ describe("mesh confidence of saved runs and study cases", () => {
       // The comparison is against half the run's segments (the engine may round a mesh to the loop).
       const fineSegments = Number((run!.summary as Record<string, unknown>).segments);
       expect(mc!.fineSegments).toBe(fineSegments);
-      // Source: an independent run of the same stored inputs at half the segments gives the coarse figure compared.
+      // Plumbing, not physics: the stored coarse figure is the one an independent run of the same stored inputs
+      // at half the segments gives (the engine is deterministic).
       const coarse = simulate(run!.inputs as unknown as Scenario, { segments: Math.round(fineSegments / 2), series: false, frameBudget: 0 });
       expect(mc!.coarseSegments).toBe(coarse.summary.segments);
       const peak = mc!.figures.find((f) => f.key === "peakTension")!;

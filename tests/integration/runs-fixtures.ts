@@ -37,3 +37,10 @@ export async function finished(runId: number) {
 export async function runCount(organisationId: number): Promise<number> {
   return getModels().Run.count({ where: { organisationId } });
 }
+
+/** Summary figures that depend only on the inputs (wall time differs from one call to the next). */
+export function deterministic(summary: Record<string, unknown>) {
+  const { wallTimeMs: _w, ...rest } = summary;
+  void _w;
+  return rest;
+}

@@ -8,7 +8,7 @@ import { cancelRun, deleteRun, getRun, getRunResult, listRuns, startRun } from "
 import { decodeResult } from "@/lib/runs/result-format";
 import { recoverInterruptedRuns, INTERRUPTED_MESSAGE } from "@/lib/runs/recover";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
-import { finished, importForRuns, runCount, shortScenarioFile, waitForRow } from "./runs-fixtures";
+import { deterministic, finished, importForRuns, runCount, shortScenarioFile, waitForRow } from "./runs-fixtures";
 import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
@@ -25,13 +25,6 @@ afterAll(async () => {
   await closeJobPool();
   await closeDb();
 });
-
-/** Summary figures that depend only on the inputs (wall time differs from one call to the next). */
-function deterministic(summary: Record<string, unknown>) {
-  const { wallTimeMs: _w, ...rest } = summary;
-  void _w;
-  return rest;
-}
 
 describe("a run from queued to done", () => {
   it("answers queued at once, then stores the same summary as a direct engine call", async () => {
@@ -50,8 +43,8 @@ describe("a run from queued to done", () => {
     expect(run.resultBytes).toBeGreaterThan(0);
     expect(run.version).toBeGreaterThanOrEqual(2); // queued → running → done
 
-    // Source: the engine itself (sim/simulate.ts) is deterministic for the same inputs; the stored run
-    // must carry exactly its figures.
+    // Plumbing, not physics: the stored run carries exactly the figures the engine gives for its stored inputs
+    // (the engine is deterministic; its physics is checked against references in tests/sim).
     const direct = simulate(run.inputs);
     expect(deterministic(run.summary!)).toEqual(deterministic(direct.summary as unknown as Record<string, unknown>));
 
@@ -138,7 +131,7 @@ describe("budget", () => {
     const row = await finished(view.id);
     expect(row.status).toBe("failed");
     const run = await getRun(engineer, view.id);
-    // Source: sim/errors.ts names the wall-time budget failure "budget-time".
+    // Plumbing, not physics: the stored code is the engine's name for the wall-time budget failure (sim/errors.ts).
     expect(run.errorCode).toBe("budget-time");
     expect(run.error).toBeTruthy();
     expect(run.error!.length).toBeGreaterThan(10);

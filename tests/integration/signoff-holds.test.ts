@@ -1,11 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { mkdtemp, rm } from "node:fs/promises";
-import os from "node:os";
-import path from "node:path";
-import { PDFParse } from "pdf-parse";
 import { getModels } from "@/models";
-import { closeJobPool } from "@/lib/jobs/pool";
-import { startMailFake, type MailFake } from "@/lib/mail/fake-server";
 import { deleteRun, getRun, listRuns, startRun } from "@/lib/runs/service";
 import { exportScenario, getScenario } from "@/lib/scenarios/service";
 import { getTrain, updateTrain } from "@/lib/trains/service";
@@ -15,65 +9,27 @@ import { approveReport, MISSING_RETURN_COMMENT, returnReport, SUMMARY_CHANGED, s
 import { createComment } from "@/lib/comments/service";
 import { createStudy } from "@/lib/studies/service";
 import { listAudit } from "@/lib/audit/list";
-import { closeDb, expectHttpError, liftBody, makeOrganisation } from "./design-fixtures";
-import { finished, importForRuns, shortScenarioFile } from "./runs-fixtures";
+import { expectHttpError, liftBody } from "./design-fixtures";
+import { finished } from "./runs-fixtures";
+import { approveAsShown, finishedRunOf, mailTo as mailIn, pdfText, startSignoff, stopSignoff, type Mail, type SignoffEnv } from "./signoff-fixtures";
 import { finishedStudy, waitForStudy } from "./study-fixtures";
 import type { Actor } from "@/lib/http/actor";
 
-let org: Awaited<ReturnType<typeof makeOrganisation>>;
+let env: SignoffEnv;
+let org: SignoffEnv["org"];
 let engineer: Actor;
 let reviewer: Actor;
-let mail: MailFake;
-let mailDir: string;
 
-async function pdfText(buf: Buffer): Promise<string> {
-  const parser = new PDFParse({ data: new Uint8Array(buf) });
-  try {
-    return (await parser.getText()).text.replace(/\s+/g, " ");
-  } finally {
-    await parser.destroy();
-  }
-}
-
-async function finishedRunOf(actor: Actor, name: string) {
-  const ids = await importForRuns(actor, shortScenarioFile(name, { duration: 8, segments: 16 }));
-  const started = await startRun(actor, ids.scenarioId, {});
-  await finished(started.id);
-  return { ...ids, run: await getRun(actor, started.id) };
-}
-
-async function mailTo(pred: (m: { to: string[]; subject: string; text: string }) => boolean) {
-  // The mail fake answers over HTTP; poll it as the product's own tests do (no fixed sleep decides the outcome).
-  const until = Date.now() + 5000;
-  for (;;) {
-    const all = (await (await fetch(`http://127.0.0.1:${mail.httpPort}/messages`)).json()) as { to: string[]; subject: string; text: string }[];
-    const found = all.filter(pred);
-    if (found.length || Date.now() > until) return found;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-}
-
-async function approve(id: number) {
-  const hash = (await getReport(reviewer, id)).approvalSummary!.contentHash;
-  return approveReport(reviewer, id, { confirmedHash: hash });
-}
+const mailTo = (pred: (m: Mail) => boolean) => mailIn(env.mail, pred);
+const approve = (id: number) => approveAsShown(reviewer, id);
 
 beforeAll(async () => {
-  org = await makeOrganisation("holds");
-  engineer = org.as.engineer;
-  reviewer = org.as.reviewer;
-  mailDir = await mkdtemp(path.join(os.tmpdir(), "tautline-holds-mail-"));
-  mail = await startMailFake({ smtpPort: 0, httpPort: 0, dir: mailDir });
-  process.env.SMTP_URL = `smtp://127.0.0.1:${mail.smtpPort}`;
+  env = await startSignoff("holds");
+  ({ org, engineer, reviewer } = env);
   process.env.APP_URL = "http://tautline.test";
 });
 
-afterAll(async () => {
-  await mail.close();
-  await rm(mailDir, { recursive: true, force: true });
-  await closeJobPool();
-  await closeDb();
-});
+afterAll(() => stopSignoff(env));
 
 describe("an approved report holds", () => {
   it("editing the train of an approved scenario leaves the report, the scenario export and the PDF unchanged", async () => {

@@ -14,6 +14,7 @@ import { storedSettings } from "@/lib/studies/driver";
 import type { StudyParameter } from "@/lib/studies/schema";
 import { closeDb, expectHttpError, makeOrganisation } from "./design-fixtures";
 import { finishedStudy, studyScenario, waitForStudy } from "./study-fixtures";
+import { deterministic } from "./runs-fixtures";
 import type { Actor } from "@/lib/http/actor";
 
 let org: Awaited<ReturnType<typeof makeOrganisation>>;
@@ -62,13 +63,6 @@ afterAll(async () => {
   await closeJobPool();
   await closeDb();
 });
-
-/** Figures that depend only on the inputs (wall time differs between calls). */
-function deterministic(summary: Record<string, unknown>) {
-  const { wallTimeMs: _w, ...rest } = summary;
-  void _w;
-  return rest;
-}
 
 async function caseRunsSummaries(studyId: number) {
   const { StudyCase, Run } = getModels();
@@ -119,7 +113,7 @@ describe("a 22-case study through both execution modes", () => {
       const runs = await getModels().Run.findAll({ where: { id: cases.map((c) => c.runId!) } });
       expect(runs.every((r) => r.runner !== "redis-queue:0:0" && r.status === "done")).toBe(true);
 
-      // Source: the engine is deterministic for the same inputs (sim/simulate.ts); the two modes must agree.
+      // Plumbing, not physics: the pool and the queue store the same figures (the engine is deterministic).
       const a = await caseRunsSummaries(poolStudyId);
       const b = await caseRunsSummaries(created.id);
       expect(b).toEqual(a);
@@ -138,7 +132,8 @@ describe("a 22-case study through both execution modes", () => {
     const study = (await Study.findByPk(poolStudyId))!;
     const st = storedSettings(study);
     const view = await waitForStudy(engineer, poolStudyId, finishedStudy);
-    // Source: the engine's own single runs (simulate + evaluateChecks) of every grid point, outside the study machinery.
+    // Plumbing, not physics: the study's window equals the one single runs of every grid point give (simulate +
+    // evaluateChecks, outside the study machinery); the engine's physics is checked against references in tests/sim.
     const expected = view.cases!.map((c) => {
       const built = caseScenario(st.base, c.values, { chains: new Map(), train: st.train });
       if (!built.ok) throw new Error("case did not build");
@@ -149,7 +144,7 @@ describe("a 22-case study through both execution modes", () => {
     expect(view.window!.groups).toEqual(known.groups);
     // The study adds a sentence naming cases whose verdict is not settled on its coarse 16-segment mesh.
     expect(view.window!.text.slice(0, known.text.length)).toBe(known.text);
-    // The full train's cars weigh 1000 + 4 × 75 kg (Source: the test's own train, set in study-fixtures.ts).
+    // The full train's cars weigh 1000 + 4 × 75 kg (by hand from the test's own train, set in study-fixtures.ts).
     const full = expected.find((e) => e.values.loading === "full")!;
     const built = caseScenario(st.base, full.values, { chains: new Map(), train: st.train });
     expect(built.ok && built.scenario.trains[0]!.carMass).toBe(1300);

@@ -37,7 +37,7 @@ describe("calibration", () => {
     const started = Date.now();
     const r = calibrate(scenario(1.3e7, 1.4e5), { t, takeUp: y, engagementTime }, { duration: 7, maxEvaluations: 60 });
     const seconds = (Date.now() - started) / 1000;
-    // Source: self-consistency (the recording was made with these values); the 5 % band is Tautline's acceptance criterion (assumption).
+    // A round trip, not physics: the recording was made with these values, set by this test; the 5 % band is Tautline's acceptance criterion (assumption).
     expect(Math.abs(r.fitted.axialStiffness / TRUE_EA - 1)).toBeLessThan(0.05);
     expect(Math.abs(r.fitted.damping / TRUE_DAMPING - 1)).toBeLessThan(0.05);
     // The fitted trace matches to about the added noise (1 mm RMS) and far better than the start.

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { convert, display, fromUnit, toUnit } from "@/sim/units";
+import { convert, fromUnit, toUnit } from "@/sim/units";
+import { display } from "@/lib/units/display";
 
 // Source: NIST SP 811 / the 1959 international yard and pound agreement: 1 ft = 0.3048 m exactly,
 // 1 lb = 0.45359237 kg exactly; 1 lbf = 4.4482216152605 N (lb × standard gravity 9.80665 m/s²);

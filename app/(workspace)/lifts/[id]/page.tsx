@@ -1,30 +1,20 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { toId } from "@/lib/http/ids";
 import { LiftEditor } from "@/components/lift/LiftEditor";
 import { RevisionHistory } from "@/components/lift/RevisionHistory";
 import { NEW_LIFT, type LiftJson } from "@/components/lift/types";
 import { Badge } from "@/components/ui/Badge";
 import { PageHeader } from "@/components/ui/PageHeader";
-import { pageUser } from "@/lib/auth/page-guard";
+import { pageRow, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
-import { HttpError } from "@/lib/http/errors";
 import { getLift } from "@/lib/lifts/service";
+import { toJson } from "@/lib/client/jsonify";
 
 export const metadata: Metadata = { title: "Lift" };
 
 export default async function LiftPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/lifts/[id]");
-  const id = toId((await params).id);
-  if (id === null) notFound();
-  let lift: LiftJson;
-  try {
-    lift = JSON.parse(JSON.stringify(await getLift(user, id))) as LiftJson;
-  } catch (err) {
-    if (err instanceof HttpError && err.status === 404) notFound();
-    throw err;
-  }
+  const lift: LiftJson = await pageRow(params, (id) => getLift(user, id).then(toJson));
   const canWrite = can(user.role, "design:write") && !lift.archivedAt;
   return (
     <>

@@ -1,12 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { notFound } from "next/navigation";
-import { toId } from "@/lib/http/ids";
 import { RecordingView } from "@/components/recording/RecordingView";
 import { PageHeader } from "@/components/ui/PageHeader";
-import { pageUser } from "@/lib/auth/page-guard";
+import { pageRow, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
-import { HttpError } from "@/lib/http/errors";
 import { getRecording } from "@/lib/recordings/service";
 import { recordedSettleBack } from "@/lib/recordings/settle";
 import { getModels } from "@/models";
@@ -16,15 +13,7 @@ export const metadata: Metadata = { title: "Recording" };
 
 export default async function RecordingPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/logbook/recordings/[id]");
-  const id = toId((await params).id);
-  if (id === null) notFound();
-  let rec;
-  try {
-    rec = await getRecording(user, id);
-  } catch (err) {
-    if (err instanceof HttpError && err.status === 404) notFound();
-    throw err;
-  }
+  const rec = await pageRow(params, (id) => getRecording(user, id));
   const { Lift, LiftRevision, Scenario, Train } = getModels();
   const lift = await Lift.findByPk(rec.recording.liftId);
   const revisions = await LiftRevision.findAll({ where: { liftId: rec.recording.liftId }, attributes: ["id", "number"] });
@@ -75,7 +64,7 @@ export default async function RecordingPage({ params }: { params: Promise<{ id: 
         </aside>
       )}
       <RecordingView
-        recordingId={id}
+        recordingId={rec.recording.id}
         runs={runOptions}
         scenarios={scenarios.map((s) => ({ id: s.id, name: s.name }))}
         canCalibrate={can(user.role, "run:start")}

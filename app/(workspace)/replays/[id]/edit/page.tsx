@@ -1,10 +1,7 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { toId } from "@/lib/http/ids";
 import { SessionBuilder } from "@/components/training/SessionBuilder";
 import { PageHeader } from "@/components/ui/PageHeader";
-import { pageUser } from "@/lib/auth/page-guard";
-import { HttpError } from "@/lib/http/errors";
+import { pageRow, pageUser } from "@/lib/auth/page-guard";
 import { getSession } from "@/lib/training/service";
 import { runPickerOptions } from "@/lib/runs/picker";
 
@@ -12,15 +9,7 @@ export const metadata: Metadata = { title: "Edit replay session" };
 
 export default async function EditSessionPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/replays/[id]/edit");
-  const id = toId((await params).id);
-  if (id === null) notFound();
-  let session;
-  try {
-    session = await getSession(user, id);
-  } catch (err) {
-    if (err instanceof HttpError && err.status === 404) notFound();
-    throw err;
-  }
+  const session = await pageRow(params, (id) => getSession(user, id));
   const options = await runPickerOptions(user, { units: user.units });
   return (
     <>
