@@ -8,7 +8,7 @@ import { getModels } from "@/models";
 import { assertCan, type Actor } from "@/lib/http/actor";
 import { jobEvents } from "@/lib/http/job-events";
 import { isFinished, type RunStatus } from "@/lib/runs/status";
-import type { UnitSystem } from "@/sim/units";
+import type { UnitSystem } from "@/lib/units/display";
 import { getStudy, type StudyView } from "./service";
 
 /** How often the study is read: each read settles its open cases and builds the whole view. */
