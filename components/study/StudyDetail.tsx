@@ -118,6 +118,13 @@ export function StudyDetail({
           <div className="h-2 w-full overflow-hidden rounded bg-steel-100" role="progressbar" aria-valuenow={pct} aria-valuemin={0} aria-valuemax={100}>
             <div className="h-full bg-lamp-500 transition-all" style={{ width: `${pct}%` }} />
           </div>
+          <p className={`mt-2 text-[12.5px] ${study.mesh && !study.mesh.settled ? "font-semibold text-[#7a5400]" : "text-steel-600"}`} data-testid="study-mesh">
+            {study.mesh
+              ? study.mesh.reason
+              : active
+                ? "Choosing the mesh: the first and last case at the scenario's segments and at twice as many, until the check figures agree…"
+                : "Mesh not checked for this study: the cases ran at the scenario's segments."}
+          </p>
           {actionError ? <p className="mt-2 text-sm text-fail">{actionError}</p> : null}
         </CardBody>
       </Card>

@@ -17,7 +17,8 @@ test("an engineer reads the demo study and starts a new one", async ({ page }) =
   await expect(page.getByTestId("study-window")).toContainText(/entry speed/i);
   await expect(page.getByTestId("study-case-row")).toHaveCount(12);
   await expect(page.getByTestId("study-map")).toBeVisible();
-  await expect(page.getByTestId("study-line-plots").locator("svg").first()).toBeVisible();
+  await expect(page.getByTestId("study-line-plots").locator("canvas").first()).toBeVisible();
+  await expect(page.getByTestId("study-line-plots").locator(".u-legend").first()).toContainText("full");
   await expect(page.getByText("never replace, review by a qualified engineer").first()).toBeVisible();
 
   // Sort by peak tension, descending on the second click: the first row then holds the largest value.
