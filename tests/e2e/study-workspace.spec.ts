@@ -63,6 +63,8 @@ test("an engineer reads the demo study and starts a new one", async ({ page }) =
   await expect(page.getByTestId("study-progress")).toContainText("3 / 3 cases", { timeout: 60_000 });
   await expect(page.getByTestId("study-case-row")).toHaveCount(3);
   await expect(page.getByTestId("study-window")).not.toBeEmpty();
+  // The cases ran at the mesh the study chose first, and the page says which.
+  await expect(page.getByTestId("study-mesh")).toContainText(/Cases run at \d+ segments/);
 });
 
 test("a bad study definition is refused with the field named", async ({ page }) => {
