@@ -47,14 +47,31 @@ export interface FigureDifference {
   agree: boolean;
 }
 
+/** Absolute floors that replace STUDY_MESH_FIGURES' own for a study (see `takeUpFloors`). */
+export type FigureFloors = Partial<Record<keyof Summary, number>>;
+
+/**
+ * The take-up's check compares its drop and rise with the room it has (sim/checks.ts), so a change smaller than the
+ * tolerance times its travel cannot move that check by more than the tolerance: below it the meshes agree.
+ */
+export function takeUpFloors(travel: number, tolerance = MESH_TOLERANCE): FigureFloors {
+  return { takeUpMaxDrop: tolerance * travel, takeUpMaxRise: tolerance * travel };
+}
+
 /** Compares the figures of each probe case between two meshes; the worst figure first. */
-export function compareFigures(coarse: CheckFigures[], fine: CheckFigures[], tolerance = MESH_TOLERANCE): { agree: boolean; worst: FigureDifference | null } {
+export function compareFigures(
+  coarse: CheckFigures[],
+  fine: CheckFigures[],
+  tolerance = MESH_TOLERANCE,
+  floors: FigureFloors = {},
+): { agree: boolean; worst: FigureDifference | null } {
   let worst: FigureDifference | null = null;
   let agree = true;
   const rank = (d: FigureDifference) => (d.agree ? 0 : 1) * 1e9 + (d.relativeChange ?? (d.agree ? 0 : 1e6));
   fine.forEach((f, i) => {
     const c = coarse[i] ?? {};
-    for (const { key, label, floor } of STUDY_MESH_FIGURES) {
+    for (const { key, label, floor: own } of STUDY_MESH_FIGURES) {
+      const floor = Math.max(own, floors[key] ?? 0);
       const a = c[key] ?? null;
       const b = f[key] ?? null;
       let d: FigureDifference;
@@ -113,7 +130,11 @@ export function meshChoiceReason(c: Omit<MeshChoice, "reason">): string {
  * throw: the engine failed). Pairs (N, 2N) move up until they agree or N reaches `cap` (the last pair's finer mesh
  * is the cap). A start at or above the cap is compared with its coarser mesh (half) only.
  */
-export function chooseMesh(start: number, runAt: (segments: number) => CheckFigures[], opts: { cap?: number; tolerance?: number } = {}): MeshChoice {
+export function chooseMesh(
+  start: number,
+  runAt: (segments: number) => CheckFigures[],
+  opts: { cap?: number; tolerance?: number; floors?: FigureFloors } = {},
+): MeshChoice {
   const cap = opts.cap ?? STUDY_MESH_CAP;
   const tolerance = opts.tolerance ?? MESH_TOLERANCE;
   const trials: MeshTrial[] = [];
@@ -136,7 +157,7 @@ export function chooseMesh(start: number, runAt: (segments: number) => CheckFigu
     } catch (err) {
       return done(coarse, false, err instanceof Error ? err.message : String(err));
     }
-    const cmp = compareFigures(a, b, tolerance);
+    const cmp = compareFigures(a, b, tolerance, opts.floors);
     trials.push({ coarse, fine, agree: cmp.agree, worst: cmp.worst });
     if (cmp.agree) return done(fine, true);
     if (fine >= cap) return done(fine, false);
@@ -150,6 +171,7 @@ export function chooseMesh(start: number, runAt: (segments: number) => CheckFigu
 export function probeStudyMesh(probes: EngineScenario[], opts: { cap?: number; tolerance?: number; budgetMs?: number } = {}): MeshChoice {
   const t0 = Date.now();
   const start = probes[0].run.segments;
+  const floors = takeUpFloors(Math.min(...probes.map((p) => p.takeUp.travel)), opts.tolerance);
   return chooseMesh(
     start,
     (segments) =>
@@ -158,7 +180,7 @@ export function probeStudyMesh(probes: EngineScenario[], opts: { cap?: number; t
         if (left !== undefined && left <= 0) throw new Error(`no time left in the budget for ${segments} segments`);
         return checkFiguresOf(simulate(s, { segments, series: false, frameBudget: 0, budget: left !== undefined ? { wallTimeMs: left } : undefined }).summary);
       }),
-    opts,
+    { ...opts, floors },
   );
 }
 

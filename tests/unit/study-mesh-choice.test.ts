@@ -1,6 +1,6 @@
 /** The study's mesh choice on synthetic figures: doubling until the check figures agree, the cap, engine failures. */
 import { describe, expect, it } from "vitest";
-import { chooseMesh, compareFigures, type CheckFigures } from "@/lib/studies/mesh-choice";
+import { chooseMesh, compareFigures, takeUpFloors, type CheckFigures } from "@/lib/studies/mesh-choice";
 
 /**
  * Figures of a first-order method: f(N) = f∞ + C/N (Roache, Verification and Validation in Computational Science
@@ -81,6 +81,10 @@ describe("compareFigures", () => {
     // 1 mm of rollback against 0 is below the 2 mm floor (sim/confidence.ts): agreed.
     expect(compareFigures([{ rollbackDistance: 0 }], [{ rollbackDistance: 0.001 }]).agree).toBe(true);
     expect(compareFigures([{ snatchFactor: null }], [{ snatchFactor: 1.4 }]).agree).toBe(false);
+    // The take-up's check compares its excursion with the room it has: 1 cm on a 2.5 m travel is 0.4 % of it.
+    expect(compareFigures([{ takeUpMaxDrop: 0.3 }], [{ takeUpMaxDrop: 0.31 }]).agree).toBe(false);
+    expect(compareFigures([{ takeUpMaxDrop: 0.3 }], [{ takeUpMaxDrop: 0.31 }], 0.02, takeUpFloors(2.5)).agree).toBe(true);
+    expect(compareFigures([{ takeUpMaxDrop: 0.3 }], [{ takeUpMaxDrop: 0.36 }], 0.02, takeUpFloors(2.5)).agree).toBe(false);
     // Any probe case that disagrees decides.
     expect(compareFigures([{ peakTension: 100_000 }, { peakTension: 100_000 }], [{ peakTension: 100_500 }, { peakTension: 110_000 }]).agree).toBe(false);
   });
