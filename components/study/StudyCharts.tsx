@@ -27,7 +27,7 @@ interface Line {
 }
 
 /** Whether a dispatch case's second pick-up met the first train's release surge (lib/studies/dispatch.ts). */
-function meetsSurge(c: Case): boolean {
+export function meetsSurge(c: Case): boolean {
   const h = c.headline ?? {};
   return pickupMeetsReleaseSurge({ secondPickupTime: h.secondPickupTime ?? null, firstReleaseTime: h.firstReleaseTime ?? null, surgePeriod: h.surgePeriod ?? null }) === true;
 }

@@ -10,7 +10,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { SAFETY_CAUTION } from "@/components/ui/SafetyNote";
 import { ReportPanel } from "@/components/report/ReportPanel";
 import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
-import { StudyLinePlots } from "./StudyCharts";
+import { StudyLinePlots, meetsSurge } from "./StudyCharts";
 import { OperatingMap } from "./OperatingMap";
 import { getJson } from "@/lib/client/fetch";
 
@@ -67,6 +67,7 @@ export function StudyDetail({
   const finished = study.casesDone + study.casesFailed;
   const pct = study.casesTotal ? Math.round((100 * finished) / study.casesTotal) : 0;
   const active = study.status === "running" || study.status === "queued";
+  const dispatch = study.parameters.some((p) => p.key === "dispatchInterval");
 
   async function act(what: "cancel" | "resume") {
     setBusy(true);
@@ -187,6 +188,7 @@ export function StudyDetail({
                 {th("acceptable", "Acceptable")}
                 <th className="px-2 py-1.5 text-left font-medium">Failing check</th>
                 {FIGURES.map((f) => th(f.key, `${f.label}${unitLabel(f.quantity, units)}`))}
+                {dispatch ? <th className="px-2 py-1.5 text-left font-medium">Pick-up in release surge</th> : null}
                 <th className="px-2 py-1.5" />
               </tr>
             </thead>
@@ -224,6 +226,11 @@ export function StudyDetail({
                       {figure(c.headline?.[f.key], f.quantity, units, f.digits)}
                     </td>
                   ))}
+                  {dispatch ? (
+                    <td className="px-2 py-1" data-testid="case-surge">
+                      {c.status !== "done" || c.headline?.firstReleaseTime == null || c.headline?.secondPickupTime == null ? "—" : meetsSurge(c) ? "yes" : "no"}
+                    </td>
+                  ) : null}
                   <td className="px-2 py-1">
                     {c.runId ? (
                       <Link className="text-ink-800 underline" href={`/runs/${c.runId}`}>
