@@ -26,6 +26,9 @@ export const MESH_FIGURES: readonly { key: keyof Summary; floor: number }[] = [
   { key: "pickupDelay", floor: 0.02 },
 ];
 
+/** Largest relative change of a figure between meshes that counts as converged (an assumption). */
+export const MESH_TOLERANCE = 0.02;
+
 export interface MeshRun {
   segments: number;
   summary: Summary;
@@ -80,7 +83,7 @@ export function coarserSegments(segments: number): number {
 const num = (v: unknown): number | null => (typeof v === "number" && Number.isFinite(v) ? v : null);
 
 export function meshConfidence(fine: MeshRun, coarse: MeshRun, opts: MeshConfidenceOptions = {}): MeshConfidence {
-  const tolerance = opts.tolerance ?? 0.02;
+  const tolerance = opts.tolerance ?? MESH_TOLERANCE;
   const p = opts.order ?? 1;
   const r = fine.segments / Math.max(1, coarse.segments);
   const factor = r > 1 ? Math.pow(r, p) - 1 : 1;

@@ -1,90 +1,111 @@
 "use client";
+/**
+ * Line plots of a study's headline figures against its numeric parameter (uPlot, components/plot/UPlotChart),
+ * one line per value of the other parameter. A dispatch study plots the chain tension and the take-up's travel
+ * and marks the intervals where the following train's pick-up falls into the first train's release surge.
+ */
+import { useMemo } from "react";
+import type uPlot from "uplot";
 import type { UnitSystem } from "@/lib/client/units";
 import { NUMERIC_PARAMETERS } from "@/lib/studies/schema";
 import type { StudyView } from "@/lib/studies/service";
-import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
+import { pickupMeetsReleaseSurge } from "@/lib/studies/dispatch";
+import { UPlotChart, plotAxis } from "@/components/plot/UPlotChart";
+import { DISPATCH_FIGURES, FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
 
 const COLOURS = ["#e08a00", "#1a6fb5", "#1f7a3a", "#8a3fb0", "#b3261e", "#4c5d6e"];
+const MARK = "#b3261e";
+export const SURGE_MARK_LABEL = "pick-up in the release surge";
 
-type Cases = NonNullable<StudyView["cases"]>;
+type Case = NonNullable<StudyView["cases"]>[number];
 
-/** Line plots of headline figures against the study's numeric parameter, one line per value of the other. */
-export function StudyLinePlots({ study, units }: { study: StudyView; units: UnitSystem }) {
-  const axis = study.parameters.find((p) => (NUMERIC_PARAMETERS as readonly string[]).includes(p.key));
-  if (!axis) return null;
-  const other = study.parameters.find((p) => p !== axis);
-  const chains = new Map(study.chains.map((c) => [c.id, c.designation]));
-  const cases = (study.cases ?? []).filter((c) => c.status === "done" && c.headline);
-  const groups = new Map<string, Cases>();
-  for (const c of cases) {
-    const g = other ? String(c.values[other.key]) : "";
-    groups.set(g, [...(groups.get(g) ?? []), c]);
-  }
-  const plotted = FIGURES.filter((f) => ["peakTension", "snatchFactor", "rollbackDistance", "pickupDelay"].includes(f.key));
-  return (
-    <div className="grid gap-4 md:grid-cols-2" data-testid="study-line-plots">
-      {plotted.map((f) => (
-        <LinePlot
-          key={f.key}
-          title={`${f.label}${unitLabel(f.quantity, units)} against ${paramHeader(axis.key, units)}`}
-          series={[...groups.entries()].map(([g, cs], i) => ({
-            label: other ? paramValue(other.key, other.key === "chainSpec" ? Number(g) : g, units, chains) : "all cases",
-            colour: COLOURS[i % COLOURS.length],
-            points: cs
-              .map((c) => [Number(paramValue(axis.key, c.values[axis.key], units, chains)), Number(figure(c.headline![f.key], f.quantity, units, 6))] as [number, number])
-              .filter(([, y]) => Number.isFinite(y))
-              .sort((a, b) => a[0] - b[0]),
-          }))}
-        />
-      ))}
-    </div>
-  );
+interface Line {
+  label: string;
+  colour: string;
+  /** y on the shared x values (null where the line has no case). */
+  ys: (number | null)[];
 }
 
-function LinePlot({ title, series }: { title: string; series: { label: string; colour: string; points: [number, number][] }[] }) {
-  const W = 420;
-  const H = 200;
-  const pad = { l: 52, r: 10, t: 10, b: 28 };
-  const all = series.flatMap((s) => s.points);
-  if (!all.length) return null;
-  const xs = all.map((p) => p[0]);
-  const ys = all.map((p) => p[1]);
-  const [x0, x1] = [Math.min(...xs), Math.max(...xs) || 1];
-  let [y0, y1] = [Math.min(...ys), Math.max(...ys)];
-  if (y1 <= y0) [y0, y1] = [y0 - 1, y1 + 1];
-  const sx = (x: number) => pad.l + ((x - x0) / (x1 - x0 || 1)) * (W - pad.l - pad.r);
-  const sy = (y: number) => H - pad.b - ((y - y0) / (y1 - y0)) * (H - pad.t - pad.b);
+/** Whether a dispatch case's second pick-up met the first train's release surge (lib/studies/dispatch.ts). */
+export function meetsSurge(c: Case): boolean {
+  const h = c.headline ?? {};
+  return pickupMeetsReleaseSurge({ secondPickupTime: h.secondPickupTime ?? null, firstReleaseTime: h.firstReleaseTime ?? null, surgePeriod: h.surgePeriod ?? null }) === true;
+}
+
+export function StudyLinePlots({ study, units }: { study: StudyView; units: UnitSystem }) {
+  const axis = study.parameters.find((p) => (NUMERIC_PARAMETERS as readonly string[]).includes(p.key));
+  const charts = useMemo(() => {
+    if (!axis) return [];
+    const other = study.parameters.find((p) => p !== axis);
+    const chains = new Map(study.chains.map((c) => [c.id, c.designation]));
+    const cases = (study.cases ?? []).filter((c) => c.status === "done" && c.headline);
+    const xOf = (c: Case) => Number(paramValue(axis.key, c.values[axis.key], units, chains));
+    const xs = [...new Set(cases.map(xOf))].filter(Number.isFinite).sort((a, b) => a - b);
+    const groups = new Map<string, Case[]>();
+    for (const c of cases) {
+      const g = other ? String(c.values[other.key]) : "";
+      groups.set(g, [...(groups.get(g) ?? []), c]);
+    }
+    const dispatch = axis.key === "dispatchInterval";
+    const plotted = dispatch ? DISPATCH_FIGURES : FIGURES.filter((f) => ["peakTension", "snatchFactor", "rollbackDistance", "pickupDelay"].includes(f.key));
+    const xLabel = paramHeader(axis.key, units);
+    return plotted.map((f) => {
+      const yOf = (c: Case) => {
+        const v = Number(figure(c.headline![f.key], f.quantity, units, 6));
+        return Number.isFinite(v) ? v : null;
+      };
+      const lines: Line[] = [...groups.entries()].map(([g, cs], i) => ({
+        label: other ? paramValue(other.key, other.key === "chainSpec" ? Number(g) : g, units, chains) : "all cases",
+        colour: COLOURS[i % COLOURS.length],
+        ys: xs.map((x) => {
+          const c = cs.find((k) => xOf(k) === x);
+          return c ? yOf(c) : null;
+        }),
+      }));
+      // The surge mark sits on the line's point of each case whose second pick-up met the release surge.
+      const marks = dispatch
+        ? xs.map((x) => {
+            const c = cases.find((k) => xOf(k) === x && meetsSurge(k));
+            return c ? yOf(c) : null;
+          })
+        : null;
+      const yLabel = `${f.label}${unitLabel(f.quantity, units)}`;
+      const options: Omit<uPlot.Options, "width" | "height"> = {
+        legend: { show: true, live: true },
+        cursor: { drag: { x: false, y: false }, points: { size: 6 } },
+        scales: { x: { time: false } },
+        axes: [plotAxis(xLabel, 44), plotAxis(yLabel)],
+        series: [
+          { label: xLabel, value: (_u, v) => (v === null || v === undefined ? "—" : String(v)) },
+          ...lines.map((l) => ({ label: l.label, stroke: l.colour, width: 1.8, spanGaps: true, points: { show: true, size: 5, fill: l.colour } })),
+          ...(marks && marks.some((m) => m !== null)
+            ? [{ label: SURGE_MARK_LABEL, stroke: MARK, width: 0, paths: () => null, points: { show: true, size: 12, stroke: MARK, fill: "transparent", width: 2 } }]
+            : []),
+        ],
+      };
+      const data = [xs, ...lines.map((l) => l.ys), ...(marks && marks.some((m) => m !== null) ? [marks] : [])] as uPlot.AlignedData;
+      return { key: f.key, title: `${yLabel} against ${xLabel}`, options, data };
+    });
+  }, [axis, study.parameters, study.chains, study.cases, units]);
+  if (!axis || !charts.some((c) => c.data[0].length)) return null;
+  const dispatch = axis.key === "dispatchInterval";
+  const notCrested = dispatch ? (study.cases ?? []).filter((c) => c.status === "done" && c.headline?.lastTrainCrested === 0) : [];
   return (
-    <figure className="rounded-md border border-steel-200 bg-white p-3">
-      <figcaption className="mb-1 text-[12.5px] font-semibold text-ink-900">{title}</figcaption>
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={title}>
-        <rect x={pad.l} y={pad.t} width={W - pad.l - pad.r} height={H - pad.t - pad.b} fill="none" stroke="#cbd5dd" />
-        {[0, 0.5, 1].map((f) => (
-          <text key={f} x={pad.l - 4} y={sy(y0 + f * (y1 - y0)) + 3} textAnchor="end" fontSize="10" fill="#5f7386">
-            {(y0 + f * (y1 - y0)).toPrecision(3)}
-          </text>
-        ))}
-        {[0, 0.5, 1].map((f) => (
-          <text key={f} x={sx(x0 + f * (x1 - x0))} y={H - 10} textAnchor="middle" fontSize="10" fill="#5f7386">
-            {(x0 + f * (x1 - x0)).toPrecision(3)}
-          </text>
-        ))}
-        {series.map((s) => (
-          <g key={s.label}>
-            <polyline fill="none" stroke={s.colour} strokeWidth="1.8" points={s.points.map(([x, y]) => `${sx(x)},${sy(y)}`).join(" ")} />
-            {s.points.map(([x, y]) => (
-              <circle key={`${x}`} cx={sx(x)} cy={sy(y)} r="2.4" fill={s.colour} />
-            ))}
-          </g>
-        ))}
-      </svg>
-      <div className="mt-1 flex flex-wrap gap-3 text-[11.5px] text-steel-600">
-        {series.map((s) => (
-          <span key={s.label} className="inline-flex items-center gap-1">
-            <span className="inline-block h-0.5 w-4" style={{ background: s.colour }} /> {s.label}
-          </span>
+    <div className="space-y-3">
+      {dispatch ? (
+        <p className="text-[12.5px] text-steel-600" data-testid="study-surge-note">
+          A ring marks an interval where the following train&apos;s pick-up comes within one surge period of the first train&apos;s release at the crest ({SURGE_MARK_LABEL}): the two loads add on a chain that still rings.
+          {notCrested.length ? ` In ${notCrested.length} case(s) the run ended (a train reached the end of the track) before the last train's release: its crest is not in those figures.` : ""}
+        </p>
+      ) : null}
+      <div className="grid gap-4 md:grid-cols-2" data-testid="study-line-plots">
+        {charts.map((c) => (
+          <figure key={c.key} className="min-w-0 rounded-md border border-steel-200 bg-white p-3">
+            <figcaption className="mb-1 text-[12.5px] font-semibold text-ink-900">{c.title}</figcaption>
+            <UPlotChart options={c.options} data={c.data} label={c.title} testId={`study-plot-${c.key}`} />
+          </figure>
         ))}
       </div>
-    </figure>
+    </div>
   );
 }

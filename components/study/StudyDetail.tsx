@@ -10,7 +10,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { SAFETY_CAUTION } from "@/components/ui/SafetyNote";
 import { ReportPanel } from "@/components/report/ReportPanel";
 import { FIGURES, figure, paramHeader, paramValue, unitLabel } from "./format";
-import { StudyLinePlots } from "./StudyCharts";
+import { StudyLinePlots, meetsSurge } from "./StudyCharts";
 import { OperatingMap } from "./OperatingMap";
 import { getJson } from "@/lib/client/fetch";
 import { useJobEvents } from "@/lib/client/job-events";
@@ -72,6 +72,7 @@ export function StudyDetail({
   const finished = study.casesDone + study.casesFailed;
   const pct = study.casesTotal ? Math.round((100 * finished) / study.casesTotal) : 0;
   const active = study.status === "running" || study.status === "queued";
+  const dispatch = study.parameters.some((p) => p.key === "dispatchInterval");
 
   async function act(what: "cancel" | "resume") {
     setBusy(true);
@@ -123,6 +124,13 @@ export function StudyDetail({
           <div className="h-2 w-full overflow-hidden rounded bg-steel-100" role="progressbar" aria-valuenow={pct} aria-valuemin={0} aria-valuemax={100}>
             <div className="h-full bg-lamp-500 transition-all" style={{ width: `${pct}%` }} />
           </div>
+          <p className={`mt-2 text-[12.5px] ${study.mesh && !study.mesh.settled ? "font-semibold text-[#7a5400]" : "text-steel-600"}`} data-testid="study-mesh">
+            {study.mesh
+              ? study.mesh.reason
+              : active
+                ? "Choosing the mesh: the first and last case at the scenario's segments and at twice as many, until the check figures agree…"
+                : "Mesh not checked for this study: the cases ran at the scenario's segments."}
+          </p>
           {actionError ? <p className="mt-2 text-sm text-fail">{actionError}</p> : null}
           {events.error ? <p className="mt-2 text-sm text-fail">Could not follow the study&apos;s progress: {events.error}</p> : null}
         </CardBody>
@@ -186,6 +194,7 @@ export function StudyDetail({
                 {th("acceptable", "Acceptable")}
                 <th className="px-2 py-1.5 text-left font-medium">Failing check</th>
                 {FIGURES.map((f) => th(f.key, `${f.label}${unitLabel(f.quantity, units)}`))}
+                {dispatch ? <th className="px-2 py-1.5 text-left font-medium">Pick-up in release surge</th> : null}
                 <th className="px-2 py-1.5" />
               </tr>
             </thead>
@@ -223,6 +232,11 @@ export function StudyDetail({
                       {figure(c.headline?.[f.key], f.quantity, units, f.digits)}
                     </td>
                   ))}
+                  {dispatch ? (
+                    <td className="px-2 py-1" data-testid="case-surge">
+                      {c.status !== "done" || c.headline?.firstReleaseTime == null || c.headline?.secondPickupTime == null ? "—" : meetsSurge(c) ? "yes" : "no"}
+                    </td>
+                  ) : null}
                   <td className="px-2 py-1">
                     {c.runId ? (
                       <Link className="text-ink-800 underline" href={`/runs/${c.runId}`}>

@@ -12,6 +12,14 @@ export const FIGURES: { key: string; label: string; quantity: Quantity | null; d
   { key: "takeUpMaxRise", label: "Take-up rise", quantity: "smallLength", digits: 0 },
 ];
 
+/** Figures a dispatch study plots against the interval: the chain's tension and the take-up's travel. */
+export const DISPATCH_FIGURES: typeof FIGURES = [
+  { key: "peakDriveTension", label: "Peak drive tension", quantity: "force", digits: 1 },
+  { key: "peakTension", label: "Peak tension", quantity: "force", digits: 1 },
+  { key: "takeUpMaxDrop", label: "Take-up drop", quantity: "smallLength", digits: 0 },
+  { key: "takeUpMaxRise", label: "Take-up rise", quantity: "smallLength", digits: 0 },
+];
+
 export function figure(v: number | null | undefined, quantity: Quantity | null, units: UnitSystem, digits: number): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return "—";
   return quantity ? toDisplay(v, quantity, units).toFixed(digits) : v.toFixed(digits);

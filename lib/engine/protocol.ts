@@ -1,6 +1,7 @@
 /** The engine worker thread's tasks and answers (lib/engine/worker.ts); the pool carries them unread. */
 import type { CalibrationOptions, CalibrationResult, RecordedTrace } from "@/lib/calibration/fit";
 import type { TaskPort } from "@/lib/jobs/protocol";
+import type { MeshChoice } from "@/lib/studies/mesh-choice";
 
 /** What the main thread sends to a worker thread for one run. */
 export interface SimulationTask extends TaskPort {
@@ -31,7 +32,18 @@ export type CalibrationOutcome =
   | { ok: true; result: CalibrationResult; wallTimeMs: number }
   | { ok: false; code: string; message: string; wallTimeMs: number };
 
-export type WorkerTask = SimulationTask | CalibrationTask;
+/** A study's mesh choice (lib/studies/mesh-choice.ts) on its probe cases, before its grid runs. */
+export interface StudyMeshTask extends TaskPort {
+  kind: "study-mesh";
+  studyId: number;
+  /** Validated engine scenarios of the probe cases. */
+  probes: unknown[];
+  budgetMs?: number;
+}
+
+export type StudyMeshOutcome = { ok: true; choice: MeshChoice; wallTimeMs: number } | { ok: false; message: string; wallTimeMs: number };
+
+export type WorkerTask = SimulationTask | CalibrationTask | StudyMeshTask;
 
 /** The worker's answer. Engine failures come back as values: thrown errors lose their fields across threads. */
 export type SimulationOutcome =

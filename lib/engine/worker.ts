@@ -1,6 +1,6 @@
 /**
- * Worker-thread entry of the job pool: runs the engine for one run and packs its result, or runs one
- * calibration fit. Bundled into one .mjs file by lib/jobs/build-worker.mjs; piscina calls the default
+ * Worker-thread entry of the job pool: runs the engine for one run and packs its result, runs one
+ * calibration fit, or chooses a study's mesh. Bundled into one .mjs file by lib/jobs/build-worker.mjs; piscina calls the default
  * export once per task.
  */
 import os from "node:os";
@@ -10,8 +10,9 @@ import type { Scenario } from "@/sim/schema";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
 import { meshCheck } from "@/lib/runs/mesh-check";
 import { calibrate } from "@/lib/calibration/fit";
+import { probeStudyMesh } from "@/lib/studies/mesh-choice";
 import type { WorkerMessage } from "@/lib/jobs/protocol";
-import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, WorkerTask } from "./protocol";
+import type { CalibrationOutcome, CalibrationTask, SimulationOutcome, SimulationTask, StudyMeshOutcome, StudyMeshTask, WorkerTask } from "./protocol";
 
 // Engine threads yield the CPU to the request thread: on Linux a thread's nice value is its own, so this
 // lowers only this worker thread (JOB_NICE, default 10; 0 keeps the normal priority). Where the platform
@@ -30,8 +31,24 @@ function lowerThreadPriority(nice: number): void {
 // Progress messages at most this often: the main thread writes them to the database, throttled again.
 const PROGRESS_EVERY_MS = 100;
 
-export default async function runTask(task: WorkerTask): Promise<SimulationOutcome | CalibrationOutcome> {
-  return task.kind === "calibration" ? runCalibrationTask(task) : runSimulationTask(task);
+export default async function runTask(task: WorkerTask): Promise<SimulationOutcome | CalibrationOutcome | StudyMeshOutcome> {
+  if (task.kind === "calibration") return runCalibrationTask(task);
+  if (task.kind === "study-mesh") return runStudyMeshTask(task);
+  return runSimulationTask(task);
+}
+
+/** A study's mesh choice: its probe cases at doubling meshes (no series, no frames). */
+function runStudyMeshTask(task: StudyMeshTask): StudyMeshOutcome {
+  const t0 = performance.now();
+  task.port.postMessage({ type: "started" } satisfies WorkerMessage);
+  try {
+    const choice = probeStudyMesh(task.probes as Scenario[], { budgetMs: task.budgetMs });
+    return { ok: true, choice, wallTimeMs: Math.round(performance.now() - t0) };
+  } catch (err) {
+    return { ok: false, message: err instanceof Error ? err.message : String(err), wallTimeMs: Math.round(performance.now() - t0) };
+  } finally {
+    task.port.close();
+  }
 }
 
 /** One fit: pure compute on the trace and scenario it was given (about 60 coarse engine runs). */

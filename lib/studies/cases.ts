@@ -1,10 +1,12 @@
 /**
- * One study case's engine scenario: the study's base scenario with the case's parameter values put in.
+ * One study case's engine scenario: the study's base scenario with the case's parameter values put in (a
+ * dispatch interval adds the following train and lengthens the run: lib/studies/dispatch.ts).
  * Pure (no database): the chain catalogue rows and the train's masses are handed in.
  */
 import { parseScenario, type Scenario as EngineScenario, type FieldIssue } from "@/sim/schema";
 import type { ChainSpecView } from "@/lib/chains/service";
 import { LOADING_FRACTION, type StudyLoading } from "./schema";
+import { dispatchScenario } from "./dispatch";
 
 export type ChainValues = Pick<ChainSpecView, "id" | "designation" | "pitch" | "massPerLength" | "axialStiffness" | "breakingStrength">;
 
@@ -27,7 +29,7 @@ export function caseScenario(
   values: CaseValues,
   ctx: CaseContext,
 ): { ok: true; scenario: EngineScenario } | { ok: false; issues: FieldIssue[] } {
-  const s = structuredClone(base) as EngineScenario;
+  let s = structuredClone(base) as EngineScenario;
   for (const [key, v] of Object.entries(values)) {
     // Entry speed and loading apply to every train of the scenario.
     if (key === "entrySpeed") for (const t of s.trains) t.entrySpeed = Number(v);
@@ -44,6 +46,12 @@ export function caseScenario(
       s.chain.axialStiffness = c.axialStiffness;
       s.chain.breakingStrength = c.breakingStrength;
     }
+  }
+  // Last, so the following trains copy the first train with the case's other values already in.
+  if (values.dispatchInterval !== undefined) {
+    const d = dispatchScenario(s, Number(values.dispatchInterval));
+    if (!d.ok) return d;
+    s = d.scenario;
   }
   const parsed = parseScenario(s);
   return parsed.ok ? { ok: true, scenario: parsed.scenario } : { ok: false, issues: parsed.issues };

@@ -18,6 +18,8 @@ import type { SolverSettings } from "@/lib/runs/runner";
 import { RUNNER_ID } from "@/lib/jobs/runner-id";
 import { caseScenario, type ChainValues, type TrainMasses } from "./cases";
 import { settleCase, refreshStudy } from "./progress";
+import { unprobedMeshChoice, type MeshChoice } from "./mesh-choice";
+import type { StudyMeshOutcome, StudyMeshTask } from "@/lib/engine/protocol";
 
 /** What a study stores beside its definition so every case can be rebuilt exactly (pinned like a run). */
 export interface StoredStudySettings {
@@ -27,6 +29,8 @@ export interface StoredStudySettings {
   base: EngineScenario;
   chains: ChainValues[];
   train: TrainMasses;
+  /** The mesh every case runs at, chosen before the grid (lib/studies/mesh-choice.ts); absent until then. */
+  mesh?: MeshChoice;
 }
 
 export function storedSettings(study: Pick<Study, "settings">): StoredStudySettings {
@@ -45,6 +49,7 @@ export async function createCaseRun(study: Study, c: StudyCase, runner: string):
     );
     return null;
   }
+  if (st.mesh) built.scenario.run.segments = st.mesh.segments;
   return Run.sequelize!.transaction(async (transaction) => {
     const run = await Run.create(
       {
@@ -84,6 +89,44 @@ async function reserveWithWait(organisationId: number): Promise<Slot> {
       await new Promise((r) => setTimeout(r, 250));
     }
   }
+}
+
+/**
+ * Chooses the study's mesh once, before its first case runs: its first and last case (opposite corners of the
+ * grid) at doubling meshes in a worker thread, the choice stored in the study's settings. A study that already
+ * holds a choice (resumed, recovered) keeps it.
+ */
+async function chooseStudyMesh(studyId: number): Promise<void> {
+  const { Study, StudyCase } = getModels();
+  const study = await Study.findByPk(studyId);
+  if (!study || storedSettings(study).mesh) return;
+  const st = storedSettings(study);
+  const first = await StudyCase.findOne({ where: { studyId }, order: [["idx", "ASC"]] });
+  const last = await StudyCase.findOne({ where: { studyId }, order: [["idx", "DESC"]] });
+  const ctx = { chains: new Map(st.chains.map((x) => [x.id, x])), train: st.train };
+  const probes = [first, last === null || last.id === first?.id ? null : last]
+    .filter((c): c is StudyCase => c !== null)
+    .map((c) => caseScenario(st.base, c.values, ctx))
+    .flatMap((r) => (r.ok ? [r.scenario] : []));
+  let choice: MeshChoice;
+  if (!probes.length) choice = unprobedMeshChoice(st.base.run.segments, "no case makes a valid scenario");
+  else {
+    const slot = await reserveWithWait(study.organisationId);
+    try {
+      const outcome = await getJobPool().run<StudyMeshOutcome, StudyMeshTask>(
+        { kind: "study-mesh", studyId, probes, budgetMs: st.solver.budgetSeconds * 1000 * probes.length },
+        { organisationId: study.organisationId },
+      );
+      choice = outcome.ok ? outcome.choice : unprobedMeshChoice(probes[0].run.segments, outcome.message);
+    } catch (err) {
+      choice = unprobedMeshChoice(probes[0].run.segments, err instanceof Error ? err.message : String(err));
+    } finally {
+      slot.release();
+    }
+  }
+  const fresh = await Study.findByPk(studyId, { attributes: ["id", "settings"] });
+  if (!fresh) return;
+  await Study.update({ settings: { ...fresh.settings, mesh: choice } }, { where: { id: studyId } });
 }
 
 const driverState = globalThis as unknown as { tautlineStudyDrivers?: Map<number, Promise<void>> };
@@ -168,6 +211,7 @@ export function driveStudy(studyId: number): Promise<void> {
       { status: "running", mode, driver: mode === "pool" ? RUNNER_ID : null, startedAt: new Date(), finishedAt: null },
       { where: { id: studyId, status: { [Op.in]: ["queued", "running"] } } },
     );
+    if (await stillRunning(studyId)) await chooseStudyMesh(studyId);
     if (mode === "pool") await drivePool(studyId);
     else await driveQueue(studyId);
   })()

@@ -7,6 +7,7 @@ import { designStatics } from "@/sim/statics";
 import type { Summary } from "@/sim/summary";
 import type { Scenario as EngineScenario } from "@/sim/schema";
 import { meshConfidence, type MeshConfidence } from "@/sim/confidence";
+import { dispatchTimes } from "./dispatch";
 
 /** Mesh confidence of a case, with whether its acceptability verdict is the same on the coarser mesh. */
 export type CaseMeshConfidence = MeshConfidence & { verdictSettled: boolean; coarseAcceptable: boolean };
@@ -22,14 +23,21 @@ export const HEADLINE_KEYS = [
   "takeUpMaxRise",
   "peakDrivePower",
   "peakRiderAccel",
+  "peakDriveTension",
+  // Dispatch cases (two trains or more; null otherwise): lib/studies/dispatch.ts.
+  "secondPickupTime",
+  "firstReleaseTime",
+  "surgePeriod",
+  "lastTrainCrested",
 ] as const;
 export type HeadlineKey = (typeof HEADLINE_KEYS)[number];
 export type Headline = Record<HeadlineKey, number | null>;
 
 export function headlineOf(summary: Record<string, unknown>): Headline {
   const out = {} as Headline;
+  const times = dispatchTimes(summary as unknown as Pick<Summary, "trains">) as unknown as Record<string, unknown>;
   for (const k of HEADLINE_KEYS) {
-    const v = summary[k];
+    const v = times[k] ?? summary[k];
     out[k] = typeof v === "number" && Number.isFinite(v) ? v : typeof v === "boolean" ? Number(v) : null;
   }
   return out;

@@ -3,13 +3,14 @@ import { nameField } from "@/lib/http/text";
 import { startRunSchema } from "@/lib/runs/schema";
 
 /**
- * What a study may vary. Numbers are SI (m/s, kg). `chainSpec` takes catalogue ids, `loading` the
- * train's loading cases. Plain values only: screens import this file too.
+ * What a study may vary. Numbers are SI (m/s, kg, s). `chainSpec` takes catalogue ids, `loading` the
+ * train's loading cases, `dispatchInterval` the time between trains on the lift (lib/studies/cases.ts adds
+ * the following train). Plain values only: screens import this file too.
  */
-export const STUDY_PARAMETER_KEYS = ["entrySpeed", "chainSpeed", "takeUpMass", "chainSpec", "loading"] as const;
+export const STUDY_PARAMETER_KEYS = ["entrySpeed", "chainSpeed", "takeUpMass", "dispatchInterval", "chainSpec", "loading"] as const;
 export type StudyParameterKey = (typeof STUDY_PARAMETER_KEYS)[number];
 
-export const NUMERIC_PARAMETERS = ["entrySpeed", "chainSpeed", "takeUpMass"] as const;
+export const NUMERIC_PARAMETERS = ["entrySpeed", "chainSpeed", "takeUpMass", "dispatchInterval"] as const;
 export type NumericParameterKey = (typeof NUMERIC_PARAMETERS)[number];
 
 export const STUDY_LOADINGS = ["empty", "part", "full"] as const;
@@ -17,13 +18,21 @@ export type StudyLoading = (typeof STUDY_LOADINGS)[number];
 /** Share of the seats taken for each loading case ("part" = half the seats: an assumption). */
 export const LOADING_FRACTION: Record<StudyLoading, number> = { empty: 0, part: 0.5, full: 1 };
 
-export const PARAMETER_LABELS: Record<StudyParameterKey, { label: string; quantity: "speed" | "mass" | null }> = {
+export const PARAMETER_LABELS: Record<StudyParameterKey, { label: string; quantity: "speed" | "mass" | "time" | null }> = {
   entrySpeed: { label: "Entry speed", quantity: "speed" },
   chainSpeed: { label: "Chain speed", quantity: "speed" },
   takeUpMass: { label: "Take-up mass", quantity: "mass" },
+  dispatchInterval: { label: "Dispatch interval", quantity: "time" },
   chainSpec: { label: "Chain", quantity: null },
   loading: { label: "Train loading", quantity: null },
 };
+
+/**
+ * Bounds of the dispatch interval, s (assumption): below 5 s no lift dispatches a second train, and past 300 s
+ * the two trains no longer meet on the lift; a case's own lower bound (the train clearing its length at chain
+ * speed) is checked in lib/studies/cases.ts.
+ */
+export const DISPATCH_INTERVAL_BOUNDS = { min: 5, max: 300 } as const;
 
 /** Most cases one study may hold. */
 export const MAX_STUDY_CASES = 400;
@@ -47,7 +56,20 @@ const numericParameter = z
     values: z.array(num("each value").min(0, { error: "values must be at least 0" })).min(1).max(MAX_STUDY_CASES).optional(),
   })
   .strict()
-  .refine((p) => (p.range ? 1 : 0) + (p.values ? 1 : 0) === 1, { error: "give either range or values", path: ["values"] });
+  .refine((p) => (p.range ? 1 : 0) + (p.values ? 1 : 0) === 1, { error: "give either range or values", path: ["values"] })
+  .superRefine((p, ctx) => {
+    if (p.key !== "dispatchInterval") return;
+    const { min, max } = DISPATCH_INTERVAL_BOUNDS;
+    const check = (v: number, path: (string | number)[]) => {
+      if (v < min) ctx.addIssue({ code: "custom", path, message: `Dispatch interval must be at least ${min} s` });
+      else if (v > max) ctx.addIssue({ code: "custom", path, message: `Dispatch interval must be at most ${max} s` });
+    };
+    if (p.range) {
+      check(p.range.from, ["range", "from"]);
+      check(p.range.to, ["range", "to"]);
+    }
+    p.values?.forEach((v, i) => check(v, ["values", i]));
+  });
 
 const chainParameter = z
   .object({

@@ -64,6 +64,8 @@ export interface StudyView {
   startedAt: string | null;
   finishedAt: string | null;
   version: number;
+  /** The mesh the cases run at and why (null until it is chosen, before the first case runs). */
+  mesh: { segments: number; settled: boolean; capped: boolean; reason: string } | null;
   cases?: StudyCaseView[];
   window?: OperatingWindow;
   /** Two-parameter studies: the grid as a region (states, governing check, recommended window, holes). */
@@ -156,6 +158,7 @@ function toView(study: Study, cases: StudyCase[] | null, units: UnitSystem = "si
     startedAt: study.startedAt?.toISOString() ?? null,
     finishedAt: study.finishedAt?.toISOString() ?? null,
     version: study.version,
+    mesh: st.mesh ? { segments: st.mesh.segments, settled: st.mesh.settled, capped: st.mesh.capped, reason: st.mesh.reason } : null,
   };
   if (cases) {
     view.cases = cases.map((c) => caseView(c, mesh.get(c.id) ?? null));

@@ -7,6 +7,8 @@ import { apiAs, signInUi } from "./support/auth";
  * and a small new study started from the form and followed to the end.
  */
 test("an engineer reads the demo study and starts a new one", async ({ page }) => {
+  // The new study first chooses its mesh (its first and last case at doubling meshes), then runs its cases at it.
+  test.setTimeout(150_000);
   await signInUi(page, "engineer@lanternfell.example");
   await page.goto("/studies");
   const demo = page.getByRole("link", { name: "Emberline: entry speed window, empty and full" });
@@ -17,7 +19,8 @@ test("an engineer reads the demo study and starts a new one", async ({ page }) =
   await expect(page.getByTestId("study-window")).toContainText(/entry speed/i);
   await expect(page.getByTestId("study-case-row")).toHaveCount(12);
   await expect(page.getByTestId("study-map")).toBeVisible();
-  await expect(page.getByTestId("study-line-plots").locator("svg").first()).toBeVisible();
+  await expect(page.getByTestId("study-line-plots").locator("canvas").first()).toBeVisible();
+  await expect(page.getByTestId("study-line-plots").locator(".u-legend").first()).toContainText("full");
   await expect(page.getByText("never replace, review by a qualified engineer").first()).toBeVisible();
 
   // Sort by peak tension, descending on the second click: the first row then holds the largest value.
@@ -59,9 +62,11 @@ test("an engineer reads the demo study and starts a new one", async ({ page }) =
   await page.getByLabel("duration").fill("12");
   await page.getByTestId("study-start").click();
   await page.waitForURL(/\/studies\/\d+$/);
-  await expect(page.getByTestId("study-progress")).toContainText("3 / 3 cases", { timeout: 60_000 });
+  await expect(page.getByTestId("study-progress")).toContainText("3 / 3 cases", { timeout: 120_000 });
   await expect(page.getByTestId("study-case-row")).toHaveCount(3);
   await expect(page.getByTestId("study-window")).not.toBeEmpty();
+  // The cases ran at the mesh the study chose first, and the page says which.
+  await expect(page.getByTestId("study-mesh")).toContainText(/Cases run at \d+ segments/);
 });
 
 test("a bad study definition is refused with the field named", async ({ page }) => {

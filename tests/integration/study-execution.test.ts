@@ -129,20 +129,22 @@ describe("a 22-case study through both execution modes", () => {
 
   it("states the window that single engine runs of each grid point give", async () => {
     const { Study } = getModels();
+    const view = await waitForStudy(engineer, poolStudyId, finishedStudy);
     const study = (await Study.findByPk(poolStudyId))!;
     const st = storedSettings(study);
-    const view = await waitForStudy(engineer, poolStudyId, finishedStudy);
-    // Plumbing, not physics: the study's window equals the one single runs of every grid point give (simulate +
-    // evaluateChecks, outside the study machinery); the engine's physics is checked against references in tests/sim.
+    // The cases ran at the mesh the study chose before its grid.
+    expect(st.mesh!.segments).toBe(view.mesh!.segments);
+    // Plumbing, not physics: the study's window equals the one single runs of every grid point at that mesh give
+    // (simulate + evaluateChecks, outside the study machinery); the engine's physics is checked in tests/sim.
     const expected = view.cases!.map((c) => {
       const built = caseScenario(st.base, c.values, { chains: new Map(), train: st.train });
       if (!built.ok) throw new Error("case did not build");
-      const r = simulate(built.scenario);
+      const r = simulate(built.scenario, { segments: st.mesh!.segments });
       return { values: c.values, status: "done", acceptable: judgeCase(built.scenario, r.summary as never, true).acceptable };
     });
     const known = operatingWindow(GRID, expected, { units: "si" });
     expect(view.window!.groups).toEqual(known.groups);
-    // The study adds a sentence naming cases whose verdict is not settled on its coarse 16-segment mesh.
+    // The study adds a sentence naming cases whose verdict is not settled on its mesh.
     expect(view.window!.text.slice(0, known.text.length)).toBe(known.text);
     // The full train's cars weigh 1000 + 4 × 75 kg (by hand from the test's own train, set in study-fixtures.ts).
     const full = expected.find((e) => e.values.loading === "full")!;
