@@ -177,8 +177,9 @@ export function buildLiftDrawing(lift: LiftSettings, takeUp?: TakeUpSettingsLike
     chainPoint,
     chainPath,
     trackAt: (s) => {
-      const p = track.at(Math.max(0, Math.min(track.length, s)));
-      return { x: s < 0 ? s : s > track.length ? end.x + (s - track.length) : p.x, z: p.z, phi: p.phi };
+      // Before the station the track runs level, past its end straight on at its end slope (sim/track).
+      const p = track.at(s);
+      return { x: p.x, z: p.z, phi: p.phi };
     },
     drive: { x: (A.x + E.x) / 2 + 0.0, z: A.z },
     topIdler: top,
