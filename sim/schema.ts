@@ -71,7 +71,8 @@ export const liftSchema = z.object({
   inclineLength: num("lift.inclineLength", "m", { min: 1, max: 2000 }).optional(),
   crestRadius: num("lift.crestRadius", "m", { min: 1, max: 1000 }).optional(),
   exitLength: num("lift.exitLength", "m", { min: 1, max: 1000 }).optional(),
-  profile: profileSchema.optional(),
+  /** null or absent: the parametric fields build the track. */
+  profile: profileSchema.nullable().optional(),
   chainFrom: num("lift.chainFrom", "m", { min: 0, max: 5000 }),
   chainTo: num("lift.chainTo", "m", { min: 0, max: 5000 }),
   dogRelease: num("lift.dogRelease", "m", { min: 0, max: 5000 }),
@@ -443,7 +444,7 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
   // The track length: from a valid profile when one is given, else from the parametric fields (then required).
   const rawProfile = get(data, "lift", "profile");
   let L: number | undefined;
-  if (rawProfile !== undefined) {
+  if (rawProfile !== undefined && rawProfile !== null) {
     if (profileIssues(rawProfile).length === 0) L = profileLength(rawProfile as ProfilePiece[]);
   } else {
     const lift = PARAMETRIC_FIELDS.map((k) => n("lift", k));

@@ -11,7 +11,7 @@ import { trackOfPieces } from "@/sim/track";
 
 export interface SettleBackInput {
   /** The incline's slope: `angle` (degrees) of a parametric lift, or the main incline of `profile` (see Track). */
-  lift: { angle?: number; profile?: ProfilePiece[]; chainFrom: number; chainTo: number };
+  lift: { angle?: number; profile?: ProfilePiece[] | null; chainFrom: number; chainTo: number };
   chain: { axialStiffness: number };
   drive: { speed: number };
   train: { cars: number; carMass: number; dogOffset: number; rollingResistance: number; entrySpeed: number };
