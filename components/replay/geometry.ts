@@ -71,7 +71,14 @@ export function buildLiftDrawing(lift: LiftSettings, takeUp?: TakeUpSettingsLike
 
   const trackPoints: Pt[] = [];
   const tStart = -Math.min(10, track.length * 0.05);
-  for (let s = tStart; s < track.length; s += step) {
+  // Regular samples plus every piece joint and the highest point, so the drawing has the profile's corners and top.
+  const sampleAt: number[] = [];
+  for (let s = tStart; s < track.length; s += step) sampleAt.push(s);
+  for (const p of track.pieces) if (p.start > 0) sampleAt.push(p.start);
+  sampleAt.push(track.highest.s);
+  sampleAt.sort((a, b) => a - b);
+  for (const s of sampleAt) {
+    if (s >= track.length) continue;
     const p = track.at(Math.max(0, s));
     trackPoints.push(s < 0 ? { x: s, z: 0 } : { x: p.x, z: p.z });
   }
