@@ -8,6 +8,7 @@ import { parseScenario } from "@/sim/schema";
 import { simulate } from "@/sim/simulate";
 import { designStatics } from "@/sim/statics";
 import { buildTrack } from "@/sim/track";
+import { standingTrain } from "./scenarios";
 
 const RAD = Math.PI / 180;
 
@@ -159,5 +160,62 @@ describe("checks of a profile", () => {
     delete s.lift.sagRadius;
     const r = parseScenario(s);
     expect(r.ok ? [] : r.issues).toEqual([{ path: "lift.sagRadius", message: "lift.sagRadius is required when lift.profile is not given (m)" }]);
+  });
+});
+
+describe("the release check on a profile with a first drop", () => {
+  // The standing train's lift (level 10 m, arc R 20 m to 30°) as pieces, then 40 m at 30°, arc R 30 m to 45°,
+  // 20 m at 45°, crest arc R 20 m over the top to −50°, 20 m drop at −50°. The dog lets go on the 45° straight.
+  const TH = 30 * RAD;
+  const pieces = [
+    { kind: "straight", length: 10, angle: 0 },
+    { kind: "arc", radius: 20, toAngle: 30 },
+    { kind: "straight", length: 40, angle: 30 },
+    { kind: "arc", radius: 30, toAngle: 45 },
+    { kind: "straight", length: 20, angle: 45 },
+    { kind: "arc", radius: 20, toAngle: -50 },
+    { kind: "straight", length: 20, angle: -50 },
+  ];
+  /** Elevation by hand. Source: elementary plane geometry (from memory), as in the two-slope test above. */
+  function z(s: number): number {
+    const a = 10;
+    const b = a + 20 * TH;
+    const c = b + 40;
+    const d = c + 30 * 15 * RAD;
+    const e = d + 20;
+    const f = e + 20 * 95 * RAD;
+    const zb = 20 * (1 - Math.cos(TH));
+    const zc = zb + 40 * Math.sin(TH);
+    const zd = zc + 30 * (Math.cos(TH) - Math.cos(45 * RAD));
+    const ze = zd + 20 * Math.sin(45 * RAD);
+    if (s <= a) return 0;
+    if (s <= b) return 20 * (1 - Math.cos((s - a) / 20));
+    if (s <= c) return zb + (s - b) * Math.sin(TH);
+    if (s <= d) return zc + 30 * (Math.cos(TH) - Math.cos(TH + (s - c) / 30));
+    if (s <= e) return zd + (s - d) * Math.sin(45 * RAD);
+    if (s <= f) return ze + 20 * (Math.cos(45 * RAD - (s - e) / 20) - Math.cos(45 * RAD));
+    return ze + 20 * (Math.cos(50 * RAD) - Math.cos(45 * RAD)) - (s - f) * Math.sin(50 * RAD);
+  }
+
+  it("takes the rise from the release to the train's highest point ahead, not to the end of the track", () => {
+    const s = standingTrain({
+      lift: { profile: pieces, chainTo: 86, dogRelease: 85 },
+      antiRollback: { to: 80 },
+      drive: { speed: 3, rampTime: 2 },
+      run: { duration: 20 },
+    });
+    expect(s.lift.profile).toEqual(pieces);
+    const r = simulate(s, { frameBudget: 0, series: false });
+    const rel = r.summary.release!;
+    expect(rel).not.toBeNull();
+    const t = s.trains[0];
+    // Source: work–energy (Meriam & Kraige, Engineering Mechanics: Dynamics, from memory): the train's weight
+    // rises from its place at release to where its cars stand highest (every car's centre on the profile).
+    const mean = (x: number) => Array.from({ length: t.cars }, (_, k) => z(x - (k + 0.5) * t.carLength)).reduce((a, b) => a + b, 0) / t.cars;
+    let best = mean(rel.position);
+    for (let x = rel.position; x <= buildTrack({ profile: pieces as never }).length; x += 0.01) best = Math.max(best, mean(x));
+    expect(rel.rise).toBeCloseTo(best - mean(rel.position), 2);
+    expect(rel.rise).toBeGreaterThan(1); // the crest is still ahead: a real rise to overcome
+    expect(rel.margin).not.toBeNull();
   });
 });
