@@ -84,7 +84,7 @@ export function profileFieldDefs(i: number, kind: "straight" | "arc"): FieldDef[
 
 /** Labels of the pieces' fields for messages in words ("Piece 3 slope must be at most 80 (degrees)"). */
 export function profileLabels(count: number): FieldLabel[] {
-  const out: FieldLabel[] = [{ path: "lift.profile", label: "Profile" }];
+  const out: FieldLabel[] = [];
   for (let i = 0; i < count; i++)
     out.push({ path: `lift.profile.${i}`, label: `Piece ${i + 1}` }, { path: `lift.profile.${i}.kind`, label: `Piece ${i + 1} kind` }, ...profileFieldDefs(i, "straight"), ...profileFieldDefs(i, "arc"));
   return out;
@@ -109,6 +109,7 @@ const OTHER_LABELS: Record<string, string> = {
   "chain.chainSpecId": "Catalogue chain",
   "antiRollback.enabled": "ARD fitted",
   "limits.allowRollback": "Settling back onto the ARD allowed",
+  "lift.profile": "Profile (pieces)",
 };
 
 /** Every field of the lift form with its label (and quantity), for messages in words. */
