@@ -128,11 +128,12 @@ export function trackOfPieces(profile: readonly ProfilePiece[]): Track {
 
   // Piece lookup: the last piece found is tried first (the right-hand side asks about nearby positions in turn),
   // then a binary search over the starts.
+  const ends = new Float64Array(n);
+  for (let i = 0; i < n; i++) ends[i] = i + 1 < n ? starts[i + 1] : Infinity;
   let last = 0;
   function pieceOf(q: number): number {
     const l = last;
-    if (q >= starts[l] && (l + 1 >= n || q < starts[l + 1])) return l;
-    if (l + 1 < n && q >= starts[l + 1] && (l + 2 >= n || q < starts[l + 2])) return (last = l + 1);
+    if (q >= starts[l] && q < ends[l]) return l;
     let lo = 0;
     let hi = n - 1;
     while (lo < hi) {
@@ -171,7 +172,7 @@ export function trackOfPieces(profile: readonly ProfilePiece[]): Track {
     if (q <= 0) return 0;
     if (q >= length) return phiEnd;
     const i = pieceOf(q);
-    return kind[i] === 0 ? P0[i] : P0[i] + K[i] * (q - starts[i]);
+    return P0[i] + K[i] * (q - starts[i]); // K = 0 on a straight
   }
 
   function curvature(q: number): number {
