@@ -4,7 +4,7 @@
  * table of straights and arcs with add, remove and reorder), and an import of survey points from CSV that fits
  * pieces (sim/profile-fit.ts) and shows them with the residual before they are applied.
  */
-import { useRef, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import { Button } from "@/components/ui/Button";
 import { Select } from "@/components/ui/Field";
 import { NumberInput } from "@/components/ui/NumberInput";
@@ -14,7 +14,7 @@ import { formatQuantity, unitOf, type UnitSystem } from "@/lib/client/units";
 import { getPath } from "@/components/ui/form-draft";
 import { readSurveyCsv } from "@/lib/lifts/survey-csv";
 import { parametricProfile, PARAMETRIC_FIELDS, type ProfilePiece } from "@/sim/profile";
-import { fitProfile, type ProfileFit } from "@/sim/profile-fit";
+import { fitProfile, type SurveyPoint } from "@/sim/profile-fit";
 import { profileFieldDefs } from "./fields";
 
 type Piece = Record<string, unknown>;
@@ -39,8 +39,20 @@ export function ProfileSection({
   const shown = (path: string) => form.shown(path) ?? (edited ? errors[path] : undefined);
   const raw = getPath(draft, "lift.profile");
   const pieces: Piece[] | null = Array.isArray(raw) ? (raw as Piece[]) : null;
-  const [fit, setFit] = useState<{ fit: ProfileFit; file: string } | null>(null);
+  const [survey, setSurvey] = useState<{ points: SurveyPoint[]; file: string } | null>(null);
+  const [tolerance, setTolerance] = useState<number | undefined>(0.1); // m, Douglas–Peucker tolerance of the fit
   const [importError, setImportError] = useState<string | null>(null);
+  const toleranceOk = typeof tolerance === "number" && Number.isFinite(tolerance) && tolerance > 0;
+  // The fit of the loaded points, again whenever the tolerance changes.
+  const fitted = useMemo(() => {
+    if (!survey || !toleranceOk) return null;
+    try {
+      return { fit: fitProfile(survey.points, { tolerance }), file: survey.file, error: null };
+    } catch (err) {
+      return { fit: null, file: survey.file, error: err instanceof Error ? err.message : String(err) };
+    }
+  }, [survey, tolerance, toleranceOk]);
+  const fit = fitted?.fit ? { fit: fitted.fit, file: fitted.file } : null;
   const fileRef = useRef<HTMLInputElement>(null);
 
   const setPieces = (next: Piece[] | null) => {
@@ -79,14 +91,10 @@ export function ProfileSection({
 
   async function importCsv(file: File) {
     setImportError(null);
-    setFit(null);
+    setSurvey(null);
     const read = readSurveyCsv(await file.text(), units);
     if (read.issues.length) return setImportError(read.issues.join("; "));
-    try {
-      setFit({ fit: fitProfile(read.points), file: file.name });
-    } catch (err) {
-      setImportError(err instanceof Error ? err.message : String(err));
-    }
+    setSurvey({ points: read.points, file: file.name });
   }
 
   const len = (v: number, digits?: number) => formatQuantity(v, "length", units, digits);
@@ -180,10 +188,23 @@ export function ProfileSection({
           Import survey points (CSV)
         </Button>
         <p className="text-[11.5px] text-steel-500">Two columns: horizontal distance and height ({unitOf("length", units).label}), from the station, an optional header row.</p>
-        {importError && (
+        {(importError ?? fitted?.error) && (
           <p className="text-[12px] font-medium text-fail" data-testid="survey-error">
-            {importError}
+            {importError ?? fitted?.error}
           </p>
+        )}
+        {survey && (
+          <div className="max-w-[14rem]">
+            <NumberInput
+              key={`survey-tolerance-${units}`}
+              def={{ path: "survey.tolerance", label: "Fit tolerance", q: "smallLength", hint: "Deviations below it start no new straight" }}
+              units={units}
+              value={tolerance}
+              onChange={setTolerance}
+              error={toleranceOk ? undefined : "Fit tolerance must be a number greater than 0"}
+              disabled={disabled}
+            />
+          </div>
         )}
         {fit && (
           <div className="rounded-md border border-steel-300/70 bg-paper px-3 py-2 text-[12.5px]" data-testid="survey-fit">
@@ -203,13 +224,13 @@ export function ProfileSection({
                 disabled={disabled}
                 onClick={() => {
                   setPieces(fit.fit.pieces);
-                  setFit(null);
+                  setSurvey(null);
                 }}
                 data-testid="apply-fit"
               >
                 Use these pieces
               </Button>
-              <Button type="button" size="sm" variant="ghost" onClick={() => setFit(null)}>
+              <Button type="button" size="sm" variant="ghost" onClick={() => setSurvey(null)}>
                 Discard
               </Button>
             </div>
