@@ -35,6 +35,10 @@ test.describe("lift editor: profile", () => {
     await expect(fit).toContainText("121 points");
     await expect(fit).toContainText("residual RMS");
     await expect(fit).toContainText("30°");
+    // The fit's tolerance in the reader's units (100 mm by default); a coarser one refits at once.
+    await expect(page.locator("#f-survey-tolerance")).toHaveValue("100");
+    await page.locator("#f-survey-tolerance").fill("250");
+    await expect(fit).toContainText("121 points");
     await page.getByTestId("apply-fit").click();
     await expect(page.getByTestId("survey-fit")).toHaveCount(0);
     await expect(page.getByTestId("preview-figures")).not.toHaveText(previewBefore ?? "");
