@@ -9,7 +9,9 @@ test.describe("lift editor: profile", () => {
     await signInUi(page, demoAccount("engineer").email);
     await page.goto("/lifts");
     await page.getByTestId("lift-table-search").fill("Thornwick");
-    await page.getByTestId("lift-table").getByRole("link").first().click();
+    const table = page.getByTestId("lift-table");
+    await expect(table.getByTestId("lift-table-row")).toHaveCount(1);
+    await table.getByRole("link", { name: /Thornwick two-slope lift/ }).click();
     await expect(page.getByTestId("lift-form")).toBeVisible();
     await expect(page.getByTestId("profile-mode")).toHaveValue("pieces");
     await expect(page.getByTestId("profile-pieces").locator("[data-testid^=profile-piece-]")).toHaveCount(9);
