@@ -118,7 +118,7 @@ export function ProfileSection({
           {pieces.map((p, i) => {
             const defs = profileFieldDefs(i, p.kind === "arc" ? "arc" : "straight");
             return (
-              <div key={i} className="grid grid-cols-[7rem_1fr_1fr_auto] items-start gap-2" data-testid={`profile-piece-${i}`}>
+              <div key={i} className="grid grid-cols-[8.5rem_1fr_1fr_auto] items-start gap-2" data-testid={`profile-piece-${i}`}>
                 <div>
                   <label htmlFor={`f-lift-profile-${i}-kind`} className="mb-1 block text-[12.5px] font-semibold text-ink-800">
                     Piece {i + 1}

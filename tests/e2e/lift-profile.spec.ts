@@ -41,6 +41,7 @@ test.describe("lift editor: profile", () => {
     await expect(page.locator("#f-survey-tolerance")).toHaveValue("100");
     await page.locator("#f-survey-tolerance").fill("250");
     await expect(fit).toContainText("121 points");
+    await page.locator("fieldset", { has: page.getByTestId("profile-mode") }).screenshot({ path: "tests/artifacts/lift-profile-section.png" });
     await page.getByTestId("apply-fit").click();
     await expect(page.getByTestId("survey-fit")).toHaveCount(0);
     await expect(page.getByTestId("preview-figures")).not.toHaveText(previewBefore ?? "");
