@@ -8,6 +8,7 @@
 import { z } from "zod";
 import { meshCounts } from "./loop";
 import { elongationDrop } from "./wear";
+import { PARAMETRIC_FIELDS, parametricProfile, profileIssues, profileLength, type ProfilePiece } from "./profile";
 
 export const SCENARIO_FORMAT = "tautline-scenario/2";
 export const SCENARIO_FORMAT_V1 = "tautline-scenario/1";
@@ -42,13 +43,36 @@ function bool(path: string) {
   return z.boolean({ error: `${path} must be true or false` });
 }
 
+/**
+ * `lift.profile`: the track as pieces from the station (see sim/profile.ts). Each piece's numbers and each join
+ * are checked by profileIssues, whose messages name the piece's path and unit.
+ */
+export const profileSchema = z
+  .array(z.unknown(), { error: 'lift.profile must be a list of pieces ({ kind: "straight", length, angle } or { kind: "arc", radius, toAngle })' })
+  .superRefine((list, ctx) => {
+    for (const i of profileIssues(list))
+      ctx.addIssue({
+        code: "custom",
+        path: i.path.split(".").slice(2).map((p) => (/^\d+$/.test(p) ? Number(p) : p)),
+        message: i.message,
+      });
+  })
+  .transform((list) => list as ProfilePiece[]);
+
+/**
+ * The lift's geometry and chain extent. `profile` (pieces) defines the track when given; otherwise the six
+ * parametric fields build the 5-piece shortcut (they are then required, see crossFieldIssues). With a profile the
+ * parametric fields are optional and ignored.
+ */
 export const liftSchema = z.object({
-  approachLength: num("lift.approachLength", "m", { min: 0, max: 1000 }),
-  sagRadius: num("lift.sagRadius", "m", { min: 1, max: 1000 }),
-  angle: num("lift.angle", "degrees", { min: 2, max: 80 }),
-  inclineLength: num("lift.inclineLength", "m", { min: 1, max: 2000 }),
-  crestRadius: num("lift.crestRadius", "m", { min: 1, max: 1000 }),
-  exitLength: num("lift.exitLength", "m", { min: 1, max: 1000 }),
+  approachLength: num("lift.approachLength", "m", { min: 0, max: 1000 }).optional(),
+  sagRadius: num("lift.sagRadius", "m", { min: 1, max: 1000 }).optional(),
+  angle: num("lift.angle", "degrees", { min: 2, max: 80 }).optional(),
+  inclineLength: num("lift.inclineLength", "m", { min: 1, max: 2000 }).optional(),
+  crestRadius: num("lift.crestRadius", "m", { min: 1, max: 1000 }).optional(),
+  exitLength: num("lift.exitLength", "m", { min: 1, max: 1000 }).optional(),
+  /** null or absent: the parametric fields build the track. */
+  profile: profileSchema.nullable().optional(),
   chainFrom: num("lift.chainFrom", "m", { min: 0, max: 5000 }),
   chainTo: num("lift.chainTo", "m", { min: 0, max: 5000 }),
   dogRelease: num("lift.dogRelease", "m", { min: 0, max: 5000 }),
@@ -385,9 +409,8 @@ export interface FieldIssue {
 }
 
 const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
-const rad = (deg: number) => (deg * Math.PI) / 180;
 
-/** Total track length: approach + sag arc + incline + crest arc + exit. */
+/** Total track length: approach + sag arc + incline + crest arc + exit (the parametric lift's five pieces). */
 export function trackLength(l: {
   approachLength: number;
   sagRadius: number;
@@ -396,8 +419,7 @@ export function trackLength(l: {
   crestRadius: number;
   exitLength: number;
 }): number {
-  const a = rad(l.angle);
-  return l.approachLength + l.sagRadius * a + l.inclineLength + l.crestRadius * a + l.exitLength;
+  return profileLength(parametricProfile(l));
 }
 
 function get(obj: unknown, section: string, key: string): unknown {
@@ -419,19 +441,29 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
     const field = (SECTION_SHAPES[sec] as Record<string, z.ZodType>)[key];
     return isNum(v) && field && field.safeParse(v).success ? v : undefined;
   };
-  const lift = ["approachLength", "sagRadius", "angle", "inclineLength", "crestRadius", "exitLength"].map(
-    (k) => n("lift", k),
-  );
-  const L = lift.every(isNum)
-    ? trackLength({
+  // The track length: from a valid profile when one is given, else from the parametric fields (then required).
+  const rawProfile = get(data, "lift", "profile");
+  let L: number | undefined;
+  if (rawProfile !== undefined && rawProfile !== null) {
+    if (profileIssues(rawProfile).length === 0) L = profileLength(rawProfile as ProfilePiece[]);
+  } else {
+    const lift = PARAMETRIC_FIELDS.map((k) => n("lift", k));
+    const liftSection = data && typeof data === "object" ? (data as Record<string, unknown>).lift : undefined;
+    if (liftSection && typeof liftSection === "object" && !Array.isArray(liftSection))
+      PARAMETRIC_FIELDS.forEach((k) => {
+        if (get(data, "lift", k) === undefined)
+          out.push({ path: `lift.${k}`, message: `lift.${k} is required when lift.profile is not given (${k === "angle" ? "degrees" : "m"})` });
+      });
+    if (lift.every(isNum))
+      L = trackLength({
         approachLength: lift[0]!,
         sagRadius: lift[1]!,
         angle: lift[2]!,
         inclineLength: lift[3]!,
         crestRadius: lift[4]!,
         exitLength: lift[5]!,
-      })
-    : undefined;
+      });
+  }
   const Ls = L !== undefined ? L.toFixed(2) : "";
   const from = n("lift", "chainFrom");
   const to = n("lift", "chainTo");

@@ -4,7 +4,7 @@
  * schema, the chain picked from the catalogue, a live side elevation, and a save that sends the version
  * it edits (a stale save answers 409 and is shown as such; nothing is lost from the form).
  */
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import { useSWRConfig } from "swr";
 import { Alert } from "@/components/ui/Alert";
@@ -16,7 +16,7 @@ import type { UnitSystem } from "@/lib/client/units";
 import { liftRevisionSchema } from "@/lib/lifts/schema";
 import { crossFieldIssues } from "@/sim/schema";
 import { bodyOf, draftOf, type Mode } from "./draft";
-import { LIFT_FORM_LABELS } from "./fields";
+import { LIFT_FORM_LABELS, profileLabels } from "./fields";
 import type { Draft } from "@/components/ui/form-draft";
 import { LiftFormSections } from "./LiftFormSections";
 import { LiftPreview } from "./LiftPreview";
@@ -38,8 +38,14 @@ export function LiftEditor({
 }) {
   const router = useRouter();
   const { mutate } = useSWRConfig();
-  const form = useSchemaForm({ schema: liftRevisionSchema, initial: () => draftOf(mode, template), fields: LIFT_FORM_LABELS, units, also: crossFieldIssues });
+  const [pieceCount, setPieceCount] = useState(() => 30 + (mode.kind === "edit" && Array.isArray(mode.lift.currentRevision.lift.profile) ? mode.lift.currentRevision.lift.profile.length : 0));
+  // Labels for the pieces of lift.profile, so their messages name "Piece 3 slope" rather than a path.
+  const fields = useMemo(() => [...LIFT_FORM_LABELS, ...profileLabels(pieceCount)], [pieceCount]);
+  const form = useSchemaForm({ schema: liftRevisionSchema, initial: () => draftOf(mode, template), fields, units, also: crossFieldIssues });
   const { draft, setDraft, set, shown, errors, busy } = form;
+  const profile = (draft.lift as { profile?: unknown } | undefined)?.profile;
+  const count = Array.isArray(profile) ? profile.length : 0;
+  if (count > pieceCount) setPieceCount(count + 30); // labels a little ahead of the pieces added
   const [baseVersion, setBaseVersion] = useState(mode.kind === "edit" ? mode.lift.version : 0);
   const [banner, setBanner] = useState<{ tone: "success" | "error" | "caution"; title: string; text?: string } | null>(null);
   const [conflict, setConflict] = useState<{ current: string | null } | null>(null);

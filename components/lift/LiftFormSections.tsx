@@ -7,7 +7,8 @@ import type { SchemaForm } from "@/components/ui/useSchemaForm";
 import { useList } from "@/lib/client/hooks";
 import { formatQuantity, type UnitSystem } from "@/lib/client/units";
 import { getPath, setPath, type FieldDef } from "@/components/ui/form-draft";
-import { ARD_FIELDS, CHAIN_ROUTING_FIELDS, CHAIN_VALUE_FIELDS, DRIVE_FIELDS, GEOMETRY_FIELDS, LIMIT_FIELDS, TAKEUP_FIELDS } from "./fields";
+import { ARD_FIELDS, CHAIN_ROUTING_FIELDS, CHAIN_VALUE_FIELDS, DRIVE_FIELDS, EXTENT_FIELDS, GEOMETRY_FIELDS, LIMIT_FIELDS, TAKEUP_FIELDS } from "./fields";
+import { ProfileSection } from "./ProfileSection";
 import type { ChainSpecJson } from "./types";
 
 export function LiftFormSections({ form, units, disabled }: { form: SchemaForm; units: UnitSystem; disabled: boolean }) {
@@ -38,9 +39,7 @@ export function LiftFormSections({ form, units, disabled }: { form: SchemaForm; 
 
   return (
     <>
-      <Section title="Lift hill geometry" description="Track positions are measured along the track from its start.">
-        {GEOMETRY_FIELDS.map((f) => field(f))}
-      </Section>
+      <ProfileSection form={form} units={units} disabled={disabled} parametric={GEOMETRY_FIELDS.map((f) => field(f))} extent={EXTENT_FIELDS.map((f) => field(f))} />
 
       <Section title="Chain" description="Pick a catalogue chain, or type the chain's own values.">
         <div className="col-span-2 sm:col-span-3">

@@ -51,7 +51,6 @@ export function LiftPreview({ input, units, stale }: { input: PreviewInput | nul
           : null;
       const release = d.trackAt(l.dogRelease);
       const bar = niceLength((d.bounds.maxX - d.bounds.minX) / 6);
-      const crest = d.trackAt(l.approachLength + l.sagRadius * ((l.angle * Math.PI) / 180) + l.inclineLength);
       return {
         track: path(d.trackPoints),
         carry: path(d.chainPath(0, Lc)),
@@ -65,7 +64,7 @@ export function LiftPreview({ input, units, stale }: { input: PreviewInput | nul
         takeUp: [v.sx(d.takeUp.x), v.sy(d.takeUp.z)] as const,
         guide: [v.sy(d.guideTop), v.sy(d.guideBottom)] as const,
         bar: { px: bar * v.k, m: bar },
-        height: crest.z,
+        height: d.track.highest.z,
         length: d.track.length,
       };
     } catch {

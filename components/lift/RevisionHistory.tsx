@@ -18,6 +18,7 @@ function shownValue(path: string, v: unknown, units: UnitSystem): string {
     return `${editText(v, def.q, units)}${u ? ` ${u}` : ""}`;
   }
   if (typeof v === "boolean") return v ? "yes" : "no";
+  if (path === "lift.profile" && Array.isArray(v)) return `${v.length} piece${v.length === 1 ? "" : "s"}`;
   return typeof v === "object" ? JSON.stringify(v) : String(v);
 }
 

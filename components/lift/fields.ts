@@ -10,6 +10,10 @@ export const GEOMETRY_FIELDS: FieldDef[] = [
   { path: "lift.inclineLength", label: "Incline length", q: "length", hint: "Straight part of the hill" },
   { path: "lift.crestRadius", label: "Crest radius", q: "length" },
   { path: "lift.exitLength", label: "Exit length", q: "length" },
+];
+
+/** Chain extent along the track (with either profile). */
+export const EXTENT_FIELDS: FieldDef[] = [
   { path: "lift.chainFrom", label: "Chain starts at", q: "length", hint: "Track position (bottom idler)" },
   { path: "lift.chainTo", label: "Chain ends at", q: "length", hint: "Track position (top idler)" },
   { path: "lift.dogRelease", label: "Dog release at", q: "length" },
@@ -64,8 +68,31 @@ export const LIMIT_FIELDS: FieldDef[] = [
   { path: "limits.thermalExpansion", label: "Thermal expansion", q: "perKelvin", hint: src("thermalExpansion") },
 ];
 
+/** Number fields of piece i of `lift.profile` (a straight: length and slope; an arc: radius and end slope). */
+export function profileFieldDefs(i: number, kind: "straight" | "arc"): FieldDef[] {
+  const p = `lift.profile.${i}`;
+  return kind === "arc"
+    ? [
+        { path: `${p}.radius`, label: `Piece ${i + 1} radius`, q: "length" },
+        { path: `${p}.toAngle`, label: `Piece ${i + 1} turns to`, q: "angle" },
+      ]
+    : [
+        { path: `${p}.length`, label: `Piece ${i + 1} length`, q: "length" },
+        { path: `${p}.angle`, label: `Piece ${i + 1} slope`, q: "angle" },
+      ];
+}
+
+/** Labels of the pieces' fields for messages in words ("Piece 3 slope must be at most 80 (degrees)"). */
+export function profileLabels(count: number): FieldLabel[] {
+  const out: FieldLabel[] = [];
+  for (let i = 0; i < count; i++)
+    out.push({ path: `lift.profile.${i}`, label: `Piece ${i + 1}` }, { path: `lift.profile.${i}.kind`, label: `Piece ${i + 1} kind` }, ...profileFieldDefs(i, "straight"), ...profileFieldDefs(i, "arc"));
+  return out;
+}
+
 export const ALL_NUMBER_FIELDS = [
   ...GEOMETRY_FIELDS,
+  ...EXTENT_FIELDS,
   ...CHAIN_VALUE_FIELDS,
   ...CHAIN_ROUTING_FIELDS,
   ...DRIVE_FIELDS,
@@ -82,6 +109,7 @@ const OTHER_LABELS: Record<string, string> = {
   "chain.chainSpecId": "Catalogue chain",
   "antiRollback.enabled": "ARD fitted",
   "limits.allowRollback": "Settling back onto the ARD allowed",
+  "lift.profile": "Profile (pieces)",
 };
 
 /** Every field of the lift form with its label (and quantity), for messages in words. */

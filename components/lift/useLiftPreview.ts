@@ -2,6 +2,7 @@
 /** The side elevation's input: follows the draft while its geometry is valid, else keeps the last valid drawing. */
 import { useMemo, useState } from "react";
 import { liftSchema } from "@/sim/schema";
+import { buildTrack } from "@/sim/track";
 import type { PreviewInput } from "./LiftPreview";
 import { getPath, type Draft } from "@/components/ui/form-draft";
 
@@ -12,6 +13,11 @@ export function useLiftPreview(draft: Draft): { previewInput: PreviewInput | nul
     if (!g.success) return null;
     const l = g.data;
     if (!(l.chainTo > l.chainFrom)) return null;
+    try {
+      buildTrack(l); // the parametric fields are all there when no profile is given
+    } catch {
+      return null;
+    }
     const num = (p: string) => (typeof getPath(draft, p) === "number" && Number.isFinite(getPath(draft, p)) ? (getPath(draft, p) as number) : undefined);
     return {
       lift: l,

@@ -71,7 +71,14 @@ export function buildLiftDrawing(lift: LiftSettings, takeUp?: TakeUpSettingsLike
 
   const trackPoints: Pt[] = [];
   const tStart = -Math.min(10, track.length * 0.05);
-  for (let s = tStart; s < track.length; s += step) {
+  // Regular samples plus every piece joint and the highest point, so the drawing has the profile's corners and top.
+  const sampleAt: number[] = [];
+  for (let s = tStart; s < track.length; s += step) sampleAt.push(s);
+  for (const p of track.pieces) if (p.start > 0) sampleAt.push(p.start);
+  sampleAt.push(track.highest.s);
+  sampleAt.sort((a, b) => a - b);
+  for (const s of sampleAt) {
+    if (s >= track.length) continue;
     const p = track.at(Math.max(0, s));
     trackPoints.push(s < 0 ? { x: s, z: 0 } : { x: p.x, z: p.z });
   }
@@ -177,8 +184,9 @@ export function buildLiftDrawing(lift: LiftSettings, takeUp?: TakeUpSettingsLike
     chainPoint,
     chainPath,
     trackAt: (s) => {
-      const p = track.at(Math.max(0, Math.min(track.length, s)));
-      return { x: s < 0 ? s : s > track.length ? end.x + (s - track.length) : p.x, z: p.z, phi: p.phi };
+      // Before the station the track runs level, past its end straight on at its end slope (sim/track).
+      const p = track.at(s);
+      return { x: p.x, z: p.z, phi: p.phi };
     },
     drive: { x: (A.x + E.x) / 2 + 0.0, z: A.z },
     topIdler: top,

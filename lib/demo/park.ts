@@ -16,6 +16,7 @@ import type {
 } from "@/sim/schema";
 import type { Loading } from "@/models/Scenario";
 import type { Dynamics } from "@/lib/scenarios/dynamics";
+import { THORNWICK_LIFT, THORNWICK_SCENARIO } from "./thornwick";
 
 export const DEMO_PARK = DEMO_ORGANISATIONS.park;
 
@@ -257,6 +258,8 @@ export const DEMO_LIFTS: DemoLift[] = [
       },
     ],
   },
+  // A lift given as a profile (lib/demo/thornwick.ts).
+  THORNWICK_LIFT,
 ];
 
 // Trains ----------------------------------------------------------------------------------------------
@@ -421,6 +424,8 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
       { field: "minSafetyFactor", op: "<", value: 5, why: "the snatch load takes the chain below the required safety factor of 5" },
     ],
   },
+  // A two-slope lift with a first drop, given as a profile (lib/demo/thornwick.ts).
+  THORNWICK_SCENARIO,
 ];
 
 export function demoLift(key: string): DemoLift {

@@ -54,7 +54,7 @@ const withinRange = (v: number, max: number) => Number.isFinite(v) && Math.abs(v
  * A decimal comma is only possible when the separator is not a comma: then it is the file's convention
  * if the mapped columns' first rows hold numbers written with one comma and none with a point.
  */
-function usesDecimalComma(rows: string[][], columns: number[], delimiter: string): boolean {
+export function usesDecimalComma(rows: string[][], columns: number[], delimiter: string): boolean {
   if (delimiter === ",") return false;
   const cells = rows.slice(1, 201).flatMap((r) => columns.map((i) => String(r[i] ?? "").trim()));
   return cells.some((c) => /^[+-]?\d*,\d+(e[+-]?\d+)?$/i.test(c)) && !cells.some((c) => /^[+-]?\d*\.\d+/.test(c));

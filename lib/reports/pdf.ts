@@ -8,6 +8,7 @@ import PDFDocument from "pdfkit";
 import type { ReportCheck, ReportContent } from "./content";
 import { headlineDefinitions, headlineFigures } from "./figures";
 import { checkMargin, fmtN, fmtQ } from "./format";
+import { buildTrack } from "@/sim/track";
 
 /**
  * DejaVu (npm dejavu-fonts-ttf, free licence) has every glyph the report prints (≥ ≈ · ² √ × ⁻ °), which
@@ -249,7 +250,7 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
   rows(doc, [
     ...(c.case ? ([["Case", c.case]] as [string, string][]) : []),
     ["Lift revision", `${c.lift.name}, revision ${c.lift.revision}${c.lift.changeSummary ? ` (${c.lift.changeSummary})` : ""}`],
-    ["Lift geometry", `angle ${s.lift.angle}°, incline ${fmtQ(s.lift.inclineLength, "length", u)}, chain from ${fmtQ(s.lift.chainFrom, "length", u)} to ${fmtQ(s.lift.chainTo, "length", u)}`],
+    ["Lift geometry", `${liftShape(s.lift, u)}, chain from ${fmtQ(s.lift.chainFrom, "length", u)} to ${fmtQ(s.lift.chainTo, "length", u)}`],
     ["Chain", `pitch ${fmtQ(s.chain.pitch, "smallLength", u, 1)}, ${fmtQ(s.chain.massPerLength, "massPerLength", u)}, breaking strength ${fmtQ(s.chain.breakingStrength, "force", u, 1)}, axial stiffness E·A ${fmtQ(s.chain.axialStiffness, "force", u, 0)}`],
     ["Drive", `chain speed ${fmtQ(s.drive.speed, "speed", u)}, ${s.drive.sprocketTeeth}-tooth sprocket, efficiency ${Math.round(s.drive.efficiency * 100)} %`],
     ["Take-up", `mass ${fmtQ(s.takeUp.mass, "mass", u, 0)}, travel ${fmtQ(s.takeUp.travel, "length", u)}`],
@@ -335,4 +336,11 @@ export function drawReportPdf(c: ReportContent, stamp: ReportStamp): Promise<Buf
   }
   doc.end();
   return finished;
+}
+
+/** The lift's shape in a few words: the parametric angle and incline, or a profile's pieces, main incline and height. */
+function liftShape(lift: ReportContent["inputs"]["lift"], u: Parameters<typeof fmtQ>[2]): string {
+  if (!lift.profile?.length) return `angle ${lift.angle}°, incline ${fmtQ(lift.inclineLength, "length", u)}`;
+  const t = buildTrack(lift);
+  return `profile of ${lift.profile.length} pieces, main incline ${fmtN((t.angle * 180) / Math.PI, 1)}° over ${fmtQ(t.crestStart - t.inclineStart, "length", u)}, height ${fmtQ(t.highest.z, "length", u)}`;
 }

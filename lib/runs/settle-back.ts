@@ -6,9 +6,12 @@
  * the reader's unit system from the one display table (lib/client/units.ts).
  */
 import { formatQuantity, type Quantity, type UnitSystem } from "@/lib/client/units";
+import type { ProfilePiece } from "@/sim/profile";
+import { trackOfPieces } from "@/sim/track";
 
 export interface SettleBackInput {
-  lift: { angle: number; chainFrom: number; chainTo: number };
+  /** The incline's slope: `angle` (degrees) of a parametric lift, or the main incline of `profile` (see Track). */
+  lift: { angle?: number; profile?: ProfilePiece[] | null; chainFrom: number; chainTo: number };
   chain: { axialStiffness: number };
   drive: { speed: number };
   train: { cars: number; carMass: number; dogOffset: number; rollingResistance: number; entrySpeed: number };
@@ -51,7 +54,7 @@ export function settleBackAccount(x: SettleBackInput, units: UnitSystem = "si"):
   const catchTime = t[i];
   const mass = x.train.cars * x.train.carMass;
   const weight = mass * x.gravity;
-  const th = (x.lift.angle * Math.PI) / 180;
+  const th = x.lift.profile?.length ? trackOfPieces(x.lift.profile).angle : ((x.lift.angle ?? 0) * Math.PI) / 180;
   const pull = weight * (Math.sin(th) + x.train.rollingResistance * Math.cos(th));
   const dogAt = trainPosition[i] - x.train.dogOffset;
   const carrying = Math.max(0, x.lift.chainTo - Math.max(x.lift.chainFrom, dogAt));

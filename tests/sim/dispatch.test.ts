@@ -21,7 +21,7 @@ describe("a dispatch case: two trains on the incline", () => {
   const s = dispatched(base, 20);
   const r = simulate(s, { frameBudget: 0 });
   const t1 = s.trains[0];
-  const th = (s.lift.angle * Math.PI) / 180;
+  const th = (s.lift.angle! * Math.PI) / 180;
   const F = t1.cars * t1.carMass * G * (Math.sin(th) + t1.rollingResistance * Math.cos(th));
 
   it("has the second train one interval later and a run long enough for its crest", () => {

@@ -38,7 +38,7 @@ describe("induction drive", () => {
       takeUp: { ...s.takeUp, damping: 2e4 },
     }));
     const r = simulate(s, { frameBudget: 0, sampleInterval: 0.01 });
-    const th = (s.lift.angle * Math.PI) / 180;
+    const th = (s.lift.angle! * Math.PI) / 180;
     const tr = s.trains[0];
     // Steady pull at the sprocket: the train's load (chain weight cancels round the loop, no guide friction).
     const F = tr.cars * tr.carMass * G * (Math.sin(th) + tr.rollingResistance * Math.cos(th));
@@ -151,7 +151,7 @@ describe("pick-up with the drive at the top", () => {
     const s: Scenario = { ...base, drive: { ...base.drive, location: "top" } };
     const r = simulate(s, { frameBudget: 0, series: false });
     const EA = s.chain.axialStiffness;
-    const th = (s.lift.angle * Math.PI) / 180;
+    const th = (s.lift.angle! * Math.PI) / 180;
     const tr = s.trains[0];
     const F = tr.cars * tr.carMass * G * (Math.sin(th) + tr.rollingResistance * Math.cos(th));
     const k = s.contacts.ardStiffness;
@@ -203,7 +203,7 @@ describe("start state", () => {
     const s = hangingTrain((s) => ({ ...s, run: { ...s.run, duration: 0.5 } }));
     const r = simulate(s, { frameBudget: 0, sampleInterval: 0.01 });
     expect(r.notes.some((n) => n.includes("starts engaged"))).toBe(true);
-    const th = (s.lift.angle * Math.PI) / 180;
+    const th = (s.lift.angle! * Math.PI) / 180;
     const tr = s.trains[0];
     const F = tr.cars * tr.carMass * G * Math.sin(th); // at rest: no rolling resistance engaged
     // Source: statics; the dog carries the weight component (1 %).
@@ -222,7 +222,7 @@ describe("start state", () => {
     const t2 = { ...t1, startPosition: t1.startPosition + 40 }; // 40 m further up: a whole number of catch spacings
     const empty = simulate({ ...base, trains: [{ ...t1, startTime: 599 }] }, { frameBudget: 0, sampleInterval: 0.01 });
     const two = simulate({ ...base, trains: [t1, t2] }, { frameBudget: 0, sampleInterval: 0.01 });
-    const th = (base.lift.angle * Math.PI) / 180;
+    const th = (base.lift.angle! * Math.PI) / 180;
     const F = t1.cars * t1.carMass * G * Math.sin(th);
     // Source: statics of the loop: the tight side at the drive carries the slack side plus both loads.
     const dT = two.series.driveTension[0] - empty.series.driveTension[0];

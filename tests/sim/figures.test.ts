@@ -8,7 +8,7 @@ import { G, standingTrain } from "./scenarios";
 
 /** Load at the dog of the standing train on its incline: m·g·(sin θ + C_rr·cos θ) (no drag, no guide friction). */
 function dogLoad(s: ReturnType<typeof standingTrain>): number {
-  const th = (s.lift.angle * Math.PI) / 180;
+  const th = (s.lift.angle! * Math.PI) / 180;
   return s.trains[0].cars * s.trains[0].carMass * G * (Math.sin(th) + s.trains[0].rollingResistance * Math.cos(th));
 }
 

@@ -14,7 +14,7 @@ describe("scenario schema", () => {
     expect(r.scenario.run.integrator).toBe("verlet");
     // Source: geometry of the format: approach + R_sag·θ + incline + R_crest·θ + exit.
     const th = (40 * Math.PI) / 180;
-    expect(trackLength(r.scenario.lift)).toBeCloseTo(15 + 30 * th + 50 + 25 * th + 40, 9);
+    expect(trackLength(r.scenario.lift as Parameters<typeof trackLength>[0])).toBeCloseTo(15 + 30 * th + 50 + 25 * th + 40, 9);
   });
 
   it("lists every problem at once with dotted field paths", () => {

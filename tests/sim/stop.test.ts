@@ -27,7 +27,7 @@ function springMass(s: Scenario, x: number) {
   // Source: Gere & Goodno, Mechanics of Materials — axial stiffness E·A/L; springs in series add compliances.
   const k = 1 / (L / s.chain.axialStiffness + 1 / s.contacts.dogStiffness);
   const m = t.cars * t.carMass;
-  const th = (s.lift.angle * Math.PI) / 180;
+  const th = (s.lift.angle! * Math.PI) / 180;
   const F = m * G * (Math.sin(th) + t.rollingResistance * Math.cos(th));
   return { k, m, F, L };
 }

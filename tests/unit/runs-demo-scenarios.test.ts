@@ -17,7 +17,7 @@ describe("the demo scenario files in public/scenarios", () => {
   it("are one per demo scenario", () => {
     expect(files.sort()).toEqual(DEMO_SCENARIOS.map((s) => `${s.key}.json`).sort());
     expect(DEMO_SCENARIOS.length).toBeGreaterThanOrEqual(6);
-    expect(DEMO_LIFTS).toHaveLength(2);
+    expect(DEMO_LIFTS).toHaveLength(3);
     expect(DEMO_TRAINS).toHaveLength(2);
   });
 
