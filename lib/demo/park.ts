@@ -16,6 +16,7 @@ import type {
 } from "@/sim/schema";
 import type { Loading } from "@/models/Scenario";
 import type { Dynamics } from "@/lib/scenarios/dynamics";
+import { OPERATIONS_DEMO_SCENARIOS } from "./operations-scenarios";
 
 export const DEMO_PARK = DEMO_ORGANISATIONS.park;
 
@@ -85,6 +86,8 @@ export interface DemoScenario {
   startTime?: number;
   /** The scenario's own drive model and damping over the revision (lib/scenarios/dynamics.ts). */
   dynamics?: Dynamics;
+  /** Trains after the lead train on the lift (scenario followers), each a demo train by key. */
+  followers?: { train: string; loading: Loading; riderCount?: number; entrySpeed: number; startPosition: number; startTime: number }[];
   runSettings: In<RunSettings>;
   notes: string;
   /** One line for the README: what to look at in this run. */
@@ -421,6 +424,8 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
       { field: "minSafetyFactor", op: "<", value: 5, why: "the snatch load takes the chain below the required safety factor of 5" },
     ],
   },
+  // Lift operations: several trains, a stop and a restart (lib/demo/operations-scenarios.ts).
+  ...OPERATIONS_DEMO_SCENARIOS,
 ];
 
 export function demoLift(key: string): DemoLift {
