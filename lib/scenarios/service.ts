@@ -363,9 +363,27 @@ export async function copyScenario(actor: Actor, id: number, input: unknown = {}
   assertCan(actor, "design:write");
   const { scenario } = await loadScenarioParts(actor, id);
   const { name } = validate(scenarioCopySchema, input);
+  return getSequelize().transaction((transaction) =>
+    deriveScenarioIn(actor, scenario, { name: name ?? `${clipText(scenario.name, 193)} (copy)` }, "create", transaction),
+  );
+}
+
+/**
+ * A new scenario from a stored one (same revision, train, followers and inputs) with a new name and, if
+ * given, dynamics merged over its own field by field; validated like any save (400 with every problem,
+ * nothing stored) and audited. The caller checks the permission: copyScenario (design) and the logbook's
+ * run with today's chain.
+ */
+export async function deriveScenarioIn(
+  actor: Actor,
+  scenario: Scenario,
+  changes: { name: string; notes?: string | null; dynamics?: unknown },
+  action: "create",
+  transaction: Transaction,
+): Promise<ScenarioView> {
   const raw: Record<string, unknown> = {
-    name: name ?? `${clipText(scenario.name, 193)} (copy)`,
-    notes: scenario.notes,
+    name: changes.name,
+    notes: changes.notes === undefined ? scenario.notes : changes.notes,
     liftId: scenario.liftId,
     liftRevisionId: scenario.liftRevisionId,
     trainId: scenario.trainId,
@@ -375,15 +393,16 @@ export async function copyScenario(actor: Actor, id: number, input: unknown = {}
     startPosition: scenario.startPosition,
     startTime: scenario.startTime ?? 0,
     runSettings: scenario.runSettings,
-    dynamics: compactDynamics(scenario.dynamics),
+    dynamics: changes.dynamics === undefined ? compactDynamics(scenario.dynamics) : mergeDynamics(scenario.dynamics, changes.dynamics),
     followers: storedFollowers(scenario.followers),
   };
-  const resolved = await resolveInput(actor, raw, {
-    liftId: scenario.liftId,
-    trainId: scenario.trainId,
-    followerTrainIds: storedFollowers(scenario.followers).map((f) => f.trainId),
-  });
-  return getSequelize().transaction((transaction) => createScenarioIn(actor, resolved, "create", transaction));
+  const resolved = await resolveInput(
+    actor,
+    raw,
+    { liftId: scenario.liftId, trainId: scenario.trainId, followerTrainIds: storedFollowers(scenario.followers).map((f) => f.trainId) },
+    transaction,
+  );
+  return createScenarioIn(actor, resolved, action, transaction);
 }
 
 async function countRuns(scenarioId: number, transaction: Transaction): Promise<number> {
