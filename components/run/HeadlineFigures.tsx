@@ -149,6 +149,13 @@ function OperationsLines({ checks, summary, units }: { checks: Check[]; summary:
   const lines: { id: string; tone: "fail" | "note"; text: string }[] = [];
   trains.forEach((t, i) => {
     const who = many ? `Train ${i + 1}: ` : "";
+    // With several trains, each one's own pick-up and release first.
+    if (many)
+      lines.push({
+        id: `train-${i + 1}`,
+        tone: "note",
+        text: `${who}${t.engagementTime !== null ? `dog engages at ${secs(t.engagementTime)}` : "not picked up"}${t.release ? ` · released at the crest at ${secs(t.release.time)}` : ""} · peak dog force ${formatQuantity(t.peakDogForce, "force", units)} · ${t.ardCatches} ARD catch${t.ardCatches === 1 ? "" : "es"}`,
+      });
     const st = t.stop;
     if (st) {
       const restart =
