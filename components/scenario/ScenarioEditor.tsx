@@ -73,6 +73,9 @@ const BASE_LABELS: FieldLabel[] = [
   { path: "trainId", label: "Train" },
   { path: "loading", label: "Loading" },
   { path: "runSettings.integrator", label: "Integrator" },
+  // The engine's names of the stop and restart times, as its cross-field messages spell them.
+  { path: "drive.stop.time", label: "Stop at", q: "time" },
+  { path: "drive.restart.time", label: "Restart at", q: "time" },
 ];
 
 /** Labels for messages in words: the fixed fields and those of each following train. */

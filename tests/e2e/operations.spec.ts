@@ -67,4 +67,30 @@ test.describe("operations: a stop on the lift and several trains", () => {
     expect(engaged2).toBeLessThan(released1);
     await expect(page.getByTestId("plot-forces")).toContainText("train 2");
   });
+
+  test("an engineer sees the trains, the stop and the restart on the editor's timeline, and a restart before the stop is refused", async ({ page }) => {
+    test.setTimeout(60_000);
+    await signInUi(page, demoAccount("engineer").email);
+    await openDemo(page, "two-train dispatch");
+    await page.getByTestId("edit-scenario").locator("summary").click();
+    await expect(page.getByTestId("follower-0")).toBeVisible();
+    await expect(page.getByTestId("lift-timeline")).toContainText("train 1 at 0.0 s · train 2 at 12.0 s");
+
+    await openDemo(page, "emergency stop");
+    await page.getByTestId("edit-scenario").locator("summary").click();
+    const timeline = page.getByTestId("lift-timeline");
+    await expect(page.getByTestId("timeline-stop")).toContainText("stop at 15.0 s, brake in 0.3 s");
+    await expect(page.getByTestId("timeline-restart")).toContainText("restart at 22.0 s");
+    // The strip follows the field; the server refuses a restart before the stop with the field named, and
+    // nothing is saved (the page still shows 22 s after a reload).
+    const restart = page.locator("#f-dynamics-drive-restart-time");
+    await restart.fill("10");
+    await expect(timeline).toContainText("restart at 10.0 s");
+    await page.getByTestId("save-scenario").click();
+    await expect(page.getByTestId("save-banner")).toContainText("The server did not accept the scenario");
+    await expect(page.getByTestId("error-dynamics.drive.restart.time")).toContainText("Restart at must be later than");
+    await page.reload();
+    await page.getByTestId("edit-scenario").locator("summary").click();
+    await expect(page.getByTestId("timeline-restart")).toContainText("restart at 22.0 s");
+  });
 });
