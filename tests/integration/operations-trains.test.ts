@@ -7,6 +7,9 @@ import { importScenario } from "@/lib/scenarios/import";
 import { createEntry } from "@/lib/logbook/service";
 import { runWithTodaysChain } from "@/lib/logbook/chain-run";
 import { json } from "@/lib/runs/serialize";
+import { takeSnapshot } from "@/lib/reports/snapshot";
+import type { Report } from "@/models/Report";
+import type { ReportContent } from "@/lib/reports/content";
 import type { Role } from "@/lib/auth/roles";
 import type { Actor } from "@/lib/http/actor";
 import { closeDb, designCounts, expectHttpError, liftBody, makeOrganisation, scenarioBody, trainBody } from "./design-fixtures";
@@ -70,6 +73,13 @@ describe("several trains in a stored scenario", () => {
     const copy = await copyScenario(eng, s.id, {});
     expect(copy.followers.map((f) => [f.trainId, f.startTime])).toEqual([[secondId, 20]]);
     expect((await exportScenario(eng, copy.id)).scenario.trains).toHaveLength(2);
+
+    // What a report's approval signs keeps the following trains and their train rows.
+    const file = (await exportScenario(eng, s.id)).scenario;
+    const snap = await takeSnapshot({ scenarioId: s.id, runId: null, liftRevisionId: s.liftRevisionId } as Report, { inputs: file } as unknown as ReportContent);
+    expect((snap.scenario!.followers as { trainId: number; startTime: number }[]).map((f) => [f.trainId, f.startTime])).toEqual([[secondId, 20]]);
+    expect(snap.followerTrains?.map((t) => [t.id, t.name])).toEqual([[secondId, "Second train"]]);
+    expect((snap.inputs.trains as unknown[]).length).toBe(2);
   });
 
   it("refuses trains that overlap at their start with the follower's path, and stores nothing", async () => {
