@@ -23,6 +23,7 @@ import * as m0042 from "./0042_training";
 import * as m0043 from "./0043_calibrations";
 import * as m0044 from "./0044_logbook_idempotency";
 import * as m0045 from "./0045_seed_steps";
+import * as m0046 from "./0046_scenario_followers";
 
 export interface Migration {
   name: string;
@@ -57,4 +58,5 @@ export const migrations: Migration[] = [
   { name: "0043_calibrations", ...m0043 },
   { name: "0044_logbook_idempotency", ...m0044 },
   { name: "0045_seed_steps", ...m0045 },
+  { name: "0046_scenario_followers", ...m0046 },
 ];

@@ -8,6 +8,7 @@ import {
 } from "sequelize";
 
 import { LOADINGS, type Loading } from "@/lib/scenarios/loading";
+import type { ScenarioFollower } from "@/lib/scenarios/followers";
 
 export { LOADINGS, type Loading };
 
@@ -39,6 +40,11 @@ export class Scenario extends Model<InferAttributes<Scenario>, InferCreationAttr
    * drive.motor/location/stop, chain.damping/lossFactor, takeUp.friction/damping, contacts); null = none.
    */
   declare dynamics: Record<string, unknown> | null;
+  /**
+   * The trains after the lead train (format 2 `trains[1..n]`), each with its own train row, loading and entry
+   * conditions (lib/scenarios/schema.ts `followerSchema`); null = the lead train alone.
+   */
+  declare followers: CreationOptional<ScenarioFollower[] | null>;
   declare notes: string | null;
   declare version: CreationOptional<number>;
   declare archivedAt: Date | null;
@@ -64,6 +70,7 @@ export function initScenario(sequelize: Sequelize): typeof Scenario {
       runSettings: { type: DataTypes.JSON, allowNull: false },
       startTime: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
       dynamics: { type: DataTypes.JSON, allowNull: true },
+      followers: { type: DataTypes.JSON, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: true },
       version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
       archivedAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -19,6 +19,7 @@ import { EntryForm } from "./EntryForm";
 import { Reading } from "./Reading";
 import { SettingsForm } from "./SettingsForm";
 import { TrendCards } from "./TrendCards";
+import { ChainRunPanel } from "./ChainRunPanel";
 import { KIND_LABELS, type AlertJson, type EntryJson, type TrendJson } from "./types";
 import { alertMessageIn } from "@/lib/alerts/words";
 
@@ -33,6 +34,7 @@ export function LogbookView({
   canWrite,
   canSettings,
   canUpload,
+  canRun = false,
 }: {
   lifts: { id: number; name: string }[];
   liftId: number;
@@ -40,6 +42,8 @@ export function LogbookView({
   canWrite: boolean;
   canSettings: boolean;
   canUpload: boolean;
+  /** May start runs: with canWrite, the "Run with today's chain" panel. */
+  canRun?: boolean;
 }) {
   const router = useRouter();
   const len = units === "us" ? { unit: "in", scale: 1 / INCH, digits: 2 } : { unit: "mm", scale: 1000, digits: 0 };
@@ -88,6 +92,7 @@ export function LogbookView({
         </Alert>
       )}
       {trend && <TrendCards trend={trend} len={len} />}
+      {canWrite && canRun && trend && <ChainRunPanel liftId={liftId} latest={trend.elongation.latest} />}
       {canWrite && trend && (
         <EntryForm
           liftId={liftId}

@@ -62,6 +62,14 @@ function headline(c: Check, s: Summary, units: UnitSystem): { value: string; sub
       const steady = typeof s.steadyChainSpeed === "number" ? ` · steady chain speed ${formatQuantity(s.steadyChainSpeed, "speed", units)}` : "";
       return { value: formatQuantity(s.peakDrivePower, "power", units), sub: `${typeof c.limit === "number" ? `motor ${formatQuantity(c.limit, "power", units)}` : "no motor rating"}${steady}` };
     }
+    case "release": {
+      const r = s.release ?? null;
+      if (!r) return { value: "—", sub: "the dog was not released during the run" };
+      return {
+        value: r.margin !== null ? `${r.margin.toFixed(2)}×` : "—",
+        sub: `kinetic energy / energy to clear the crest at ${formatQuantity(r.speed, "speed", units)}${typeof c.limit === "number" ? ` · needs ${c.limit}×` : ""}`,
+      };
+    }
     case "riderAccel":
       return { value: `${s.peakRiderAccel.toFixed(2)} g`, sub: typeof c.value === "number" ? `uses ${(c.value * 100).toFixed(0)} % of the envelope` : `limit ${c.limit}` };
     default:
@@ -81,6 +89,7 @@ const DEFINITIONS: Record<string, string[]> = {
   takeUpWear: ["Wear elongation of the loop that the travel left after the elastic drop and thermal growth can take up.", `Allowance: ${LIMIT_SOURCES.wearAllowance}`],
   takeUpCreep: [SUMMARY_DEFINITIONS.takeUpCreepRate],
   drivePower: ["Motor power = chain pull × speed / efficiency.", SUMMARY_DEFINITIONS.steadyChainSpeed, `Limit: ${LIMIT_SOURCES.motorRating}`],
+  release: [SUMMARY_DEFINITIONS.release, `Limit: ${LIMIT_SOURCES.releaseEnergyMargin}`],
   riderAccel: [SUMMARY_DEFINITIONS.peakRiderAccel, SUMMARY_DEFINITIONS.riderAccelExposure, `Limits: ${LIMIT_SOURCES.maxRiderAccel} ${LIMIT_SOURCES.riderAccelSustained} ${LIMIT_SOURCES.riderAccelCeiling} ${LIMIT_SOURCES.riderAccelBackwardScale}`],
 };
 
@@ -124,6 +133,61 @@ export function HeadlineFigures({ checks, summary, units, dim }: { checks: Check
           );
         })}
       </div>
+      <OperationsLines checks={checks} summary={summary} units={units} />
     </section>
+  );
+}
+
+/**
+ * Per train: what a stop on the lift did (peak ARD force, rollback, restart to pick-up), a release that did not
+ * clear the crest with the margin asked, and a re-engagement after the release, each on its own line.
+ */
+function OperationsLines({ checks, summary, units }: { checks: Check[]; summary: Summary; units: UnitSystem }) {
+  const trains = summary.trains ?? [];
+  const many = trains.length > 1;
+  const margin = checks.find((c) => c.key === "release")?.limit;
+  const lines: { id: string; tone: "fail" | "note"; text: string }[] = [];
+  trains.forEach((t, i) => {
+    const who = many ? `Train ${i + 1}: ` : "";
+    // With several trains, each one's own pick-up and release first.
+    if (many)
+      lines.push({
+        id: `train-${i + 1}`,
+        tone: "note",
+        text: `${who}${t.engagementTime !== null ? `dog engages at ${secs(t.engagementTime)}` : "not picked up"}${t.release ? ` · released at the crest at ${secs(t.release.time)}` : ""} · peak dog force ${formatQuantity(t.peakDogForce, "force", units)} · ${t.ardCatches} ARD catch${t.ardCatches === 1 ? "" : "es"}`,
+      });
+    const st = t.stop;
+    if (st) {
+      const restart =
+        st.restartTime === null
+          ? "no restart in the run"
+          : st.restartToPickup !== null
+            ? `restart → pick-up ${secs(st.restartToPickup)}`
+            : "not picked up again after the restart";
+      lines.push({
+        id: `stop-${i}`,
+        tone: st.ardCatches > 0 ? "fail" : "note",
+        text: `${who}${st.kind === "brake" ? "brake stop" : "power loss"} at ${secs(st.time)} · peak ARD force ${formatQuantity(st.peakArdForce, "force", units)} · rollback ${formatQuantity(st.rollback, "smallLength", units)} · ${restart}`,
+      });
+    }
+    const r = t.release;
+    if (r && r.margin !== null && typeof margin === "number" && r.margin < margin)
+      lines.push({
+        id: `release-${i}`,
+        tone: "fail",
+        text: `${who}release check failed: at the release the train carried ${r.margin.toFixed(2)}× the energy to clear the crest, less than the ${margin}× asked`,
+      });
+    if (r && r.reengagedAt !== null)
+      lines.push({ id: `reengaged-${i}`, tone: "fail", text: `${who}fell back onto the chain after the release: a dog engaged again at ${secs(r.reengagedAt)}` });
+  });
+  if (!lines.length) return null;
+  return (
+    <ul className="space-y-1 text-[12.5px]" data-testid="operations-lines">
+      {lines.map((l) => (
+        <li key={l.id} data-testid={`line-${l.id}`} className={cx("rounded-md border px-3 py-1.5 font-mono tabular-nums", l.tone === "fail" ? "border-fail/30 bg-fail/[0.04] text-ink-900" : "border-steel-300/70 bg-white text-ink-800")}>
+          {l.text}
+        </li>
+      ))}
+    </ul>
   );
 }

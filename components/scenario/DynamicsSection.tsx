@@ -17,6 +17,8 @@ import {
   MOTOR_KINDS,
   SPEED_LOOP_FIELDS,
   STOP_FIELDS,
+  RESTART_FIELD,
+  ELONGATION_FIELD,
   TAKEUP_DAMPING_FIELDS,
   type MotorKind,
 } from "./dynamics-fields";
@@ -71,7 +73,8 @@ export function DynamicsSection({ draft, set, shown, units, disabled, engine }: 
         def={{ ...def, hint }}
         units={units}
         value={own}
-        onChange={(v) => set(def.path, v)}
+        // An empty restart time removes the restart (the section has no other field).
+        onChange={(v) => (def === RESTART_FIELD && v === undefined ? set("dynamics.drive.restart", undefined) : set(def.path, v))}
         error={labelledError(def, units, shown(def.path))}
         disabled={disabled}
       />
@@ -131,13 +134,20 @@ export function DynamicsSection({ draft, set, shown, units, disabled, engine }: 
           "dynamics.drive.stop",
           "Stop event",
           stop?.kind ?? "",
-          (v) => set("dynamics.drive.stop", v ? { ...(stop ?? {}), kind: v } : undefined),
+          (v) => {
+            set("dynamics.drive.stop", v ? { ...(stop ?? {}), kind: v } : undefined);
+            // A restart needs a stop before it.
+            if (!v) set("dynamics.drive.restart", undefined);
+          },
           [{ value: "", label: "None (the drive runs to the end)" }, ...STOPS.map((s) => ({ value: s.value, label: s.label }))],
           STOPS.find((s) => s.value === stop?.kind)?.help ?? "Optional: stop the drive during the run to see the train settle onto the chain or roll back onto the ARD.",
           "drive-stop",
         )}
         {motorFields.map(field)}
-        {stop?.kind ? STOP_FIELDS.map(field) : null}
+        {stop?.kind ? [...STOP_FIELDS, RESTART_FIELD].map(field) : null}
+      </Section>
+      <Section title="Chain wear" description="The chain as it is today: its elongation (pitch growth) lengthens the loop and lowers the take-up.">
+        {field(ELONGATION_FIELD)}
       </Section>
       <Section
         title="Damping and contacts"

@@ -25,6 +25,8 @@ import { DYNAMICS_FIELDS, DYNAMICS_SECTIONS, dynamicsSchema } from "@/lib/scenar
 import { LOADING_LABELS, type ScenarioJson } from "./types";
 import { DynamicsSection, labelledError } from "./DynamicsSection";
 import { ALL_DYNAMICS_FIELDS, START_TIME_FIELD } from "./dynamics-fields";
+import { followersSchema } from "@/lib/scenarios/followers";
+import { TrainsSection, followerLabels } from "./TrainsSection";
 
 const LOADINGS = ["empty", "full", "riders"] as const;
 
@@ -40,6 +42,7 @@ const scenarioFormSchema = z.object({
   startTime: trainSchema.shape.startTime,
   runSettings: runSettingsSchema,
   dynamics: dynamicsSchema,
+  followers: followersSchema,
 });
 
 /** Every dynamics field, null where the draft has none: the server then drops it (back to the revision's value). */
@@ -60,7 +63,7 @@ const FIELDS: FieldDef[] = [
   { path: "runSettings.segments", label: "Chain segments", q: "count", int: true, hint: "More segments: finer waves, slower run" },
 ];
 
-const FORM_LABELS: FieldLabel[] = [
+const BASE_LABELS: FieldLabel[] = [
   ...FIELDS,
   ...ALL_DYNAMICS_FIELDS,
   RIDER_FIELD,
@@ -70,6 +73,15 @@ const FORM_LABELS: FieldLabel[] = [
   { path: "trainId", label: "Train" },
   { path: "loading", label: "Loading" },
   { path: "runSettings.integrator", label: "Integrator" },
+  // The engine's names of the stop and restart times, as its cross-field messages spell them.
+  { path: "drive.stop.time", label: "Stop at", q: "time" },
+  { path: "drive.restart.time", label: "Restart at", q: "time" },
+];
+
+/** Labels for messages in words: the fixed fields and those of each following train. */
+const formLabels = (followers: unknown): FieldLabel[] => [
+  ...BASE_LABELS,
+  ...(Array.isArray(followers) ? followers.flatMap((_, i) => followerLabels(i)) : []),
 ];
 
 export function ScenarioEditor({
@@ -100,8 +112,17 @@ export function ScenarioEditor({
           startTime: scenario.startTime ?? 0,
           runSettings: { duration: 40, segments: 60, ...scenario.runSettings },
           dynamics: scenario.dynamics ?? {},
+          // The draft holds the fields the API takes (not the train's name it answers with).
+          followers: (scenario.followers ?? []).map((f) => ({
+            trainId: f.trainId,
+            loading: f.loading,
+            ...(f.loading === "riders" ? { riderCount: f.riderCount } : {}),
+            entrySpeed: f.entrySpeed,
+            startPosition: f.startPosition,
+            startTime: f.startTime,
+          })),
         }
-      : { name: "", notes: "", loading: "full", entrySpeed: 2, startPosition: 14, startTime: 0, runSettings: { duration: 40, segments: 60 }, dynamics: {} },
+      : { name: "", notes: "", loading: "full", entrySpeed: 2, startPosition: 14, startTime: 0, runSettings: { duration: 40, segments: 60 }, dynamics: {}, followers: [] },
   );
   const [version, setVersion] = useState(scenario?.version ?? 0);
   const [touched, setTouched] = useState<Set<string>>(new Set());
@@ -117,7 +138,7 @@ export function ScenarioEditor({
 
   const errors = useMemo(() => {
     const r = scenarioFormSchema.safeParse(draft);
-    return r.success ? {} : fieldErrors(r.error.issues.map((i) => ({ ...i, message: scenarioIssueMessage(i.message) })), FORM_LABELS, units);
+    return r.success ? {} : fieldErrors(r.error.issues.map((i) => ({ ...i, message: scenarioIssueMessage(i.message, i.path) })), formLabels(draft.followers), units);
   }, [draft, units]);
   const shown = (p: string) => serverErrors[p] ?? (showAll || touched.has(p) ? errors[p] : undefined);
   const set = (p: string, v: unknown) => {
@@ -159,7 +180,7 @@ export function ScenarioEditor({
       if (err instanceof ApiError && err.status === 409)
         setBanner({ tone: "caution", title: "This scenario changed while you were editing", text: `${err.message} Nothing was saved.` });
       else if (err instanceof ApiError && err.status === 400) {
-        const words = fieldErrors(err.issues, FORM_LABELS, units);
+        const words = fieldErrors(err.issues, formLabels(draft.followers), units);
         setServerErrors(words);
         setShowAll(true);
         setBanner({ tone: "error", title: "The server did not accept the scenario", text: Object.values(words).join(" · ") || err.message });
@@ -239,6 +260,7 @@ export function ScenarioEditor({
           <NumberInput key={`${f.path}-${units}`} def={f} units={units} value={getPath(draft, f.path)} onChange={(v) => set(f.path, v)} error={f === START_TIME_FIELD ? labelledError(f, units, shown(f.path)) : shown(f.path)} disabled={disabled} />
         ))}
       </Section>
+      <TrainsSection draft={draft} set={set} shown={shown} units={units} disabled={disabled} trains={trains.data?.items ?? []} />
       <DynamicsSection draft={draft} set={set} shown={shown} units={units} disabled={disabled} engine={engine} />
       {canWrite && (
         <Button type="submit" busy={busy} data-testid="save-scenario">

@@ -84,6 +84,22 @@ export const STOP_FIELDS: FieldDef[] = [
   },
 ];
 
+export const RESTART_FIELD: FieldDef = {
+  path: `${D}.drive.restart.time`,
+  label: "Restart at",
+  q: "time",
+  optional: true,
+  hint: "Time the drive starts again after the stop, from the start of the run (it ramps up over the lift's ramp time). Must be later than the stop. Empty: no restart.",
+};
+
+export const ELONGATION_FIELD: FieldDef = {
+  path: `${D}.chain.elongation`,
+  label: "Chain elongation (pitch growth)",
+  q: "fraction",
+  optional: true,
+  hint: "Wear as growth of the chain's pitch over its new length, e.g. 1.5 %. It lengthens the loop, so the take-up starts lower in its travel. Empty: a new chain. The logbook's newest reading can set it (Run with today's chain).",
+};
+
 export const TAKEUP_DAMPING_FIELDS: FieldDef[] = [
   {
     path: `${D}.takeUp.friction`,
@@ -153,6 +169,8 @@ export const ALL_DYNAMICS_FIELDS: FieldDef[] = [
   ...INDUCTION_FIELDS,
   ...SPEED_LOOP_FIELDS,
   ...STOP_FIELDS,
+  RESTART_FIELD,
+  ELONGATION_FIELD,
   ...TAKEUP_DAMPING_FIELDS,
   ...CHAIN_DAMPING_FIELDS,
   ...CONTACT_FIELDS,

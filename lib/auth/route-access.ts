@@ -138,6 +138,8 @@ export const API_ROUTES: Record<string, ApiRouteAccess> = {
   "/api/logbook/alerts": { methods: { GET: needs("logbook:read") } },
   "/api/logbook/lifts/[id]": { methods: { GET: needs("logbook:read") }, rows: { id: "lifts" } },
   "/api/logbook/lifts/[id]/settings": { methods: { PUT: needs("logbook:settings") }, rows: { id: "lifts" } },
+  // A copy of a scenario of the lift with the newest measured elongation, and its run (logbook:write and run:start).
+  "/api/logbook/lifts/[id]/chain-run": { methods: { POST: needs("logbook:write") }, rows: { id: "lifts" } },
   "/api/uploads": { methods: { POST: needs("logbook:write") } },
   "/api/uploads/[id]": { methods: { GET: needs("logbook:read") }, rows: { id: "uploads" } },
   "/api/recordings": { methods: { GET: needs("logbook:read"), POST: needs("recording:upload") } },

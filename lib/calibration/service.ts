@@ -11,6 +11,7 @@ import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
 import { dispatchCalibrationJob } from "./queue";
 import { RUNNER_ID } from "@/lib/jobs/runner-id";
 import { resolveEngineScenario } from "@/lib/scenarios/engine";
+import { loadFollowerTrains } from "@/lib/scenarios/service";
 import { getModels, type Calibration, type Recording } from "@/models";
 import type { CalibrationResult, RecordedTrace } from "./fit";
 import type { CalibrationInputs } from "./runner";
@@ -107,7 +108,7 @@ export async function startCalibration(actor: Actor, recordingId: number, input:
   if (scenario.liftId !== r.liftId) throw badRequest("The scenario is of another lift.", [{ path: "scenarioId", message: "choose a scenario of this recording's lift" }]);
   const [train, revision] = await Promise.all([Train.findByPk(scenario.trainId), LiftRevision.findByPk(r.liftRevisionId)]);
   if (!train || !revision) throw new HttpError(409, "The scenario's train or the recording's revision is missing.");
-  const resolved = resolveEngineScenario(scenario, revision, train);
+  const resolved = resolveEngineScenario(scenario, revision, train, await loadFollowerTrains(scenario));
   if (!resolved.ok) throw badRequest("The scenario does not make a valid engine scenario with the recording's revision.", resolved.issues);
   const trace = await recordedTrace(r);
   const fitFriction = body.fitFriction ?? false;

@@ -68,10 +68,12 @@ export function demoScenarioInput(s: DemoScenario): Record<string, unknown> {
   const lift = demoLift(s.lift);
   const r = lift.revisions[s.revision - 1];
   if (!r) throw new Error(`Demo lift ${lift.key} has no revision ${s.revision}`);
+  const followers = s.followers ?? [];
   const input = engineScenarioInput(
-    { ...demoScenarioFields(s), runSettings: s.runSettings },
+    { ...demoScenarioFields(s), runSettings: s.runSettings, followers: followers.map((f) => ({ ...f, trainId: 0, riderCount: f.riderCount ?? null })) },
     { geometry: r.geometry, chain: r.chain, drive: r.drive, takeUp: r.takeUp, antiRollback: r.antiRollback, limits: r.limits ?? null },
     demoTrainData(s.train),
+    followers.map((f) => demoTrainData(f.train)),
   );
   if (!r.limits) delete input.limits;
   return input;

@@ -29,8 +29,23 @@ export function takeUpMargin(src: FigureSource): number | null {
   return src.inputs.takeUp.travel - src.inputs.takeUp.position - drop;
 }
 
+/**
+ * Seconds the second train is carried by the chain before the first train's dog lets go at the release: how
+ * long both are on the chain. Null without a second train, an engagement or a release.
+ */
+export function dispatchOverlap(src: FigureSource): number | null {
+  const trains = src.summary.trains as { engagementTime?: number | null; release?: { time: number } | null }[] | undefined;
+  const released = trains?.[0]?.release?.time;
+  const engaged = trains?.[1]?.engagementTime;
+  return typeof released === "number" && typeof engaged === "number" ? released - engaged : null;
+}
+
+/** A summary figure by name or dotted path (e.g. "stop.rollback", "trains.1.engagementTime"), or a derived one above. */
 export function figure(src: FigureSource, field: string): unknown {
   if (field === "comeUpTime") return comeUpTime(src);
   if (field === "takeUpMargin") return takeUpMargin(src);
-  return src.summary[field];
+  if (field === "dispatchOverlap") return dispatchOverlap(src);
+  let v: unknown = src.summary;
+  for (const k of field.split(".")) v = v && typeof v === "object" ? (v as Record<string, unknown>)[k] : undefined;
+  return v;
 }

@@ -17,6 +17,7 @@ import type {
 import type { Loading } from "@/models/Scenario";
 import type { Dynamics } from "@/lib/scenarios/dynamics";
 import { THORNWICK_LIFT, THORNWICK_SCENARIO } from "./thornwick";
+import { OPERATIONS_DEMO_SCENARIOS } from "./operations-scenarios";
 
 export const DEMO_PARK = DEMO_ORGANISATIONS.park;
 
@@ -86,6 +87,8 @@ export interface DemoScenario {
   startTime?: number;
   /** The scenario's own drive model and damping over the revision (lib/scenarios/dynamics.ts). */
   dynamics?: Dynamics;
+  /** Trains after the lead train on the lift (scenario followers), each a demo train by key. */
+  followers?: { train: string; loading: Loading; riderCount?: number; entrySpeed: number; startPosition: number; startTime: number }[];
   runSettings: In<RunSettings>;
   notes: string;
   /** One line for the README: what to look at in this run. */
@@ -426,6 +429,8 @@ export const DEMO_SCENARIOS: DemoScenario[] = [
   },
   // A two-slope lift with a first drop, given as a profile (lib/demo/thornwick.ts).
   THORNWICK_SCENARIO,
+  // Lift operations: several trains, a stop and a restart (lib/demo/operations-scenarios.ts).
+  ...OPERATIONS_DEMO_SCENARIOS,
 ];
 
 export function demoLift(key: string): DemoLift {

@@ -3,6 +3,7 @@ import { initModels, type Models } from "@/models";
 import type { SeedStep } from "@/lib/db/seeds";
 import { demoAccount } from "@/lib/auth/demo-accounts";
 import { engineScenarioInput } from "@/lib/scenarios/resolve";
+import { storedFollowers } from "@/lib/scenarios/followers";
 import { parseScenario } from "@/sim/schema";
 import { simulate } from "@/sim/simulate";
 import { packEngineResult, type EngineResult } from "@/lib/runs/pack";
@@ -93,6 +94,16 @@ export async function seedDemoDesign(sequelize: Sequelize): Promise<void> {
           liftId,
           liftRevisionId: rev.id,
           trainId: trainIds.get(def.train)!,
+          followers: def.followers?.length
+            ? def.followers.map((f) => ({
+                trainId: trainIds.get(f.train)!,
+                loading: f.loading,
+                riderCount: f.loading === "riders" ? (f.riderCount ?? 0) : null,
+                entrySpeed: f.entrySpeed,
+                startPosition: f.startPosition,
+                startTime: f.startTime,
+              }))
+            : null,
           archivedAt: null,
           frozenAt: null,
           createdBy: engineerId,
@@ -120,7 +131,13 @@ export async function seedDemoRuns(sequelize: Sequelize): Promise<void> {
       m.Train.findByPk(scenario.trainId),
     ]);
     if (!revision || !train) continue;
-    const parsed = parseScenario(engineScenarioInput(scenario, revision, train));
+    const followerTrains = [];
+    for (const f of storedFollowers(scenario.followers)) {
+      const t = await m.Train.findByPk(f.trainId);
+      if (!t) throw new Error(`Demo scenario "${def.name}" points at a missing following train ${f.trainId}.`);
+      followerTrains.push(t);
+    }
+    const parsed = parseScenario(engineScenarioInput(scenario, revision, train, followerTrains));
     if (!parsed.ok) throw new Error(`Demo scenario "${def.name}" is not a valid engine scenario: ${parsed.issues.map((i) => i.path).join(", ")}`);
     const queuedAt = new Date();
     const t0 = performance.now();

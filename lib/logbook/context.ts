@@ -9,6 +9,7 @@ import { designStatics } from "@/sim";
 import type { Actor } from "@/lib/http/actor";
 import { ownOr404 } from "@/lib/http/actor";
 import { resolveEngineScenario } from "@/lib/scenarios/engine";
+import { loadFollowerTrains } from "@/lib/scenarios/service";
 import { getModels, type Lift, type LiftRevision } from "@/models";
 
 export interface LiftContext {
@@ -40,7 +41,7 @@ export async function loadLiftContext(actor: Actor, liftId: number): Promise<Lif
   const scenario = await Scenario.findOne({ where: { liftId: lift.id, archivedAt: { [Op.is]: null } }, order: [["id", "DESC"]] });
   const train = scenario ? await Train.findByPk(scenario.trainId) : null;
   if (scenario && train) {
-    const r = resolveEngineScenario(scenario, revision, train);
+    const r = resolveEngineScenario(scenario, revision, train, await loadFollowerTrains(scenario));
     if (r.ok) {
       const st = designStatics(r.scenario);
       thermalReserve = st.takeUp.thermal;

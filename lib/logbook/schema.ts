@@ -77,3 +77,13 @@ export const entryListQuery = z.object({
 
 /** Defaults: replacement at 3 % elongation for roller chain (common practice, no source); warning at 2.5 %. */
 export const DEFAULT_SETTINGS = { elongationLimit: 3, elongationWarning: 2.5, takeUpWarning: 0.8, horizonDays: 90 };
+
+/** "Run with today's chain": the scenario of the lift to copy with the newest measured elongation. */
+export const chainRunInputSchema = z
+  .object({
+    scenarioId: z
+      .number({ error: "scenarioId must be an id (a whole number): choose a scenario of this lift" })
+      .int({ error: "scenarioId must be a whole number" })
+      .positive({ error: "scenarioId must be an id" }),
+  })
+  .strict();

@@ -9,6 +9,7 @@ import type { Transaction } from "sequelize";
 import { getModels } from "@/models";
 import type { Report } from "@/models/Report";
 import { json } from "@/lib/runs/serialize";
+import { loadFollowerTrains } from "@/lib/scenarios/service";
 import type { ReportContent } from "./content";
 
 export interface ReportSnapshot {
@@ -18,6 +19,8 @@ export interface ReportSnapshot {
   scenario: Record<string, unknown> | null;
   liftRevision: Record<string, unknown> | null;
   train: Record<string, unknown> | null;
+  /** The train rows of the scenario's following trains, in order (absent in snapshots taken before several trains). */
+  followerTrains?: Record<string, unknown>[];
   /** The limits the checks used (from the run's inputs). */
   limits: Record<string, unknown> | null;
   engine: { scenarioFormat: string | null; resultFormat: string | null; solver: Record<string, unknown> | null };
@@ -36,12 +39,14 @@ export async function takeSnapshot(report: Report, content: ReportContent, trans
     LiftRevision.findByPk(report.liftRevisionId, { transaction }),
     scenario ? Train.findByPk(scenario.trainId, { transaction }) : null,
   ]);
+  const followerTrains = scenario ? await loadFollowerTrains(scenario, transaction) : [];
   return {
     takenAt: new Date().toISOString(),
     inputs,
     scenario: plain(scenario),
     liftRevision: plain(revision),
     train: plain(train),
+    followerTrains: followerTrains.map((t) => plain(t)!),
     limits: (inputs.limits as Record<string, unknown> | undefined) ?? null,
     engine: {
       scenarioFormat: typeof inputs.format === "string" ? inputs.format : null,

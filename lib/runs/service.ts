@@ -4,6 +4,7 @@ import type { Run } from "@/models/Run";
 import { ownOr404, type Actor } from "@/lib/http/actor";
 import { recordAudit } from "@/lib/audit/record";
 import { engineScenarioInput } from "@/lib/scenarios/resolve";
+import { loadFollowerTrains } from "@/lib/scenarios/service";
 import { badRequest, conflict, HttpError, notFound, unavailable } from "@/lib/http/errors";
 import { parseScenario, type Scenario as EngineScenario } from "@/sim/schema";
 import { getJobPool, QueueFullError, type Slot } from "@/lib/jobs/pool";
@@ -36,12 +37,13 @@ export async function resolveRunInputs(
   const { Scenario, LiftRevision, Train } = getModels();
   const scenario = ownOr404(await Scenario.findByPk(scenarioId), user, "Scenario");
   if (scenario.archivedAt) throw conflict("This scenario is archived; restore it before starting a run.");
-  const [revision, train] = await Promise.all([
+  const [revision, train, followerTrains] = await Promise.all([
     LiftRevision.findByPk(scenario.liftRevisionId),
     Train.findByPk(scenario.trainId),
+    loadFollowerTrains(scenario),
   ]);
   if (!revision || !train) throw notFound("The scenario's lift revision or train is missing.");
-  const resolved = engineScenarioInput(scenario, revision, train);
+  const resolved = engineScenarioInput(scenario, revision, train, followerTrains);
   const run = { ...(resolved.run as Record<string, unknown>) };
   for (const k of RUN_SECTION_OVERRIDES) if (overrides[k] !== undefined) run[k] = overrides[k];
   const parsed = parseScenario({ ...resolved, run });

@@ -6,6 +6,7 @@ import { SCENARIO_FORMAT, parseScenario, type FieldIssue, type Scenario as Engin
 import type { Loading } from "./loading";
 import { carMassFor, ridersFor } from "@/lib/trains/mass";
 import { dynamicsPathSet, withDynamics, type Dynamics } from "./dynamics";
+import { followerMessage, followerPathOf, storedFollowers, type ScenarioFollower } from "./followers";
 
 /** The scenario fields the engine needs (a model row or unsaved data). */
 export interface ScenarioLike {
@@ -20,6 +21,8 @@ export interface ScenarioLike {
   runSettings: Record<string, unknown>;
   /** The scenario's drive model and damping over the revision's sections (see dynamics.ts). */
   dynamics?: Dynamics | null;
+  /** The trains after the lead train (trains[1..n]); absent or null = the lead train alone. */
+  followers?: ScenarioFollower[] | null;
 }
 
 /** A lift revision as stored (model row: the `lift` section lives in `geometry`). */
@@ -45,12 +48,39 @@ export interface TrainLike {
   pawls?: number[] | null;
 }
 
+/** One engine train from a train row, its loading case and its entry conditions. */
+function engineTrain(
+  train: TrainLike,
+  own: { loading: Loading; riderCount?: number | null; entrySpeed: number; startPosition: number; startTime?: number | null },
+): Record<string, unknown> {
+  const riders = ridersFor(train, own.loading, own.riderCount);
+  return {
+    cars: train.cars,
+    carMass: carMassFor(train, riders),
+    carLength: train.carLength,
+    dogOffset: train.dogOffset,
+    rollingResistance: train.rollingResistance,
+    dragArea: train.dragArea,
+    entrySpeed: own.entrySpeed,
+    startPosition: own.startPosition,
+    ...(own.startTime ? { startTime: own.startTime } : {}),
+    ...(train.pawls && train.pawls.length ? { pawls: train.pawls } : {}),
+  };
+}
+
 /**
- * The raw `tautline-scenario/2` object, before validation. A scenario row has one train (`trains[0]`);
- * the format's list leaves room for more.
+ * The raw `tautline-scenario/2` object, before validation: the scenario's lead train is `trains[0]`, its
+ * followers `trains[1..n]`; `followerTrains[i]` is the train row of `scenario.followers[i]`.
  */
-export function engineScenarioInput(scenario: ScenarioLike, revision: RevisionLike, train: TrainLike): Record<string, unknown> {
-  const riders = ridersFor(train, scenario.loading, scenario.riderCount);
+export function engineScenarioInput(
+  scenario: ScenarioLike,
+  revision: RevisionLike,
+  train: TrainLike,
+  followerTrains: readonly TrainLike[] = [],
+): Record<string, unknown> {
+  const followers = storedFollowers(scenario.followers);
+  if (followerTrains.length < followers.length)
+    throw new Error(`The scenario has ${followers.length} following trains but ${followerTrains.length} train rows were given.`);
   const dyn = scenario.dynamics ?? null;
   const contacts = withDynamics("contacts", undefined, dyn);
   return {
@@ -62,20 +92,7 @@ export function engineScenarioInput(scenario: ScenarioLike, revision: RevisionLi
     drive: withDynamics("drive", revision.drive, dyn),
     takeUp: withDynamics("takeUp", revision.takeUp, dyn),
     ...(contacts ? { contacts } : {}),
-    trains: [
-      {
-        cars: train.cars,
-        carMass: carMassFor(train, riders),
-        carLength: train.carLength,
-        dogOffset: train.dogOffset,
-        rollingResistance: train.rollingResistance,
-        dragArea: train.dragArea,
-        entrySpeed: scenario.entrySpeed,
-        startPosition: scenario.startPosition,
-        ...(scenario.startTime ? { startTime: scenario.startTime } : {}),
-        ...(train.pawls && train.pawls.length ? { pawls: train.pawls } : {}),
-      },
-    ],
+    trains: [engineTrain(train, scenario), ...followers.map((f, i) => engineTrain(followerTrains[i]!, f))],
     antiRollback: revision.antiRollback,
     run: scenario.runSettings,
     limits: revision.limits ?? {},
@@ -85,8 +102,8 @@ export function engineScenarioInput(scenario: ScenarioLike, revision: RevisionLi
 export type ResolveResult = { ok: true; scenario: EngineScenario } | { ok: false; issues: FieldIssue[] };
 
 /** Builds and validates the engine scenario; every problem is listed with its engine field path. */
-export function resolveEngineScenario(scenario: ScenarioLike, revision: RevisionLike, train: TrainLike): ResolveResult {
-  return parseScenario(engineScenarioInput(scenario, revision, train));
+export function resolveEngineScenario(scenario: ScenarioLike, revision: RevisionLike, train: TrainLike, followerTrains: readonly TrainLike[] = []): ResolveResult {
+  return parseScenario(engineScenarioInput(scenario, revision, train, followerTrains));
 }
 
 /**
@@ -95,7 +112,16 @@ export function resolveEngineScenario(scenario: ScenarioLike, revision: Revision
  */
 export function toScenarioIssue(issue: FieldIssue, dynamics?: Dynamics | null): FieldIssue {
   const p = issue.path;
-  // The scenario's one train is trains[0]; its fields are the scenario's entry conditions or the train row.
+  // A following train: its entry fields are the scenario's followers.i, the rest belongs to its train row.
+  const fp = followerPathOf(p);
+  if (fp) {
+    const message = followerMessage(issue.message);
+    const [, i, field] = /^followers\.(\d+)(?:\.(.*))?$/.exec(fp)!;
+    if (field === "entrySpeed" || field === "startPosition" || field === "startTime") return { path: fp, message };
+    if (field === "carMass") return { path: `followers.${i}.loading`, message: `with this loading: ${message}` };
+    return { path: `followers.${i}.trainId`, message: `the train does not fit: ${message}` };
+  }
+  // The lead train is trains[0]; its fields are the scenario's entry conditions or the train row.
   const t = p.replace(/^trains\.0(?=\.|$)/, "train");
   if (t === "train.entrySpeed") return { path: "entrySpeed", message: issue.message };
   if (t === "train.startPosition") return { path: "startPosition", message: issue.message };

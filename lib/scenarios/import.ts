@@ -16,7 +16,10 @@ import { readScenarioFile } from "./format";
 export interface ImportResult {
   scenario: ScenarioView;
   lift: LiftView;
+  /** The lead train (the file's trains[0]). */
   train: TrainView;
+  /** One train row per following train of the file (trains[1..n]), in order. */
+  followerTrains: TrainView[];
 }
 
 const IMPORTED_TRAIN_NOTE =
@@ -28,7 +31,9 @@ const clip = clipText;
 /**
  * Imports a `tautline-scenario/2` file (a version 1 file is converted on read and keeps its ideal
  * drive): validates it completely (400 with every problem at once, nothing stored), then creates a lift
- * with revision 1, a train and the scenario in one transaction. The drive model and the chain's and
+ * with revision 1, a train row per train of the file and the scenario in one transaction: the file's
+ * trains[0] becomes the scenario's lead train, trains[1..n] its following trains (each its own train row,
+ * loading "empty", so the engine sees exactly the file's car masses). The drive model and the chain's and
  * take-up's damping go into the revision (they are the lift's); the contacts into the scenario.
  * Exporting the new scenario gives back the file's values (with the format's defaults filled in).
  */
@@ -37,11 +42,6 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
   const parsed = readScenarioFile(file);
   if (!parsed.ok) throw badRequest("The scenario file has problems; nothing was imported.", parsed.issues);
   const s: EngineScenario = parsed.scenario;
-  // A scenario row holds one train; a file with several is refused rather than cut short.
-  if (s.trains.length !== 1)
-    throw badRequest("The scenario file has problems; nothing was imported.", [
-      { path: "trains", message: `trains has ${s.trains.length} trains; Tautline stores one train per scenario (import each train as its own scenario)` },
-    ]);
   const train0 = s.trains[0]!;
 
   const revisionParsed = liftRevisionSchema.safeParse({
@@ -69,29 +69,35 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
   const revision = revisionParsed.data;
 
   const { Train } = getModels();
+  const many = s.trains.length > 1;
   return getSequelize().transaction(async (transaction) => {
     const lift = await createLiftIn(actor, revision, `Imported from a ${parsed.format} file`, "import", transaction);
-    const trainRow = await Train.create(
-      {
-        organisationId: actor.organisationId,
-        name: clip(`${s.name} – train`, 120),
-        notes: IMPORTED_TRAIN_NOTE,
-        cars: train0.cars,
-        carMassEmpty: train0.carMass,
-        seatsPerCar: 0,
-        riderMass: DEFAULT_RIDER_MASS,
-        carLength: train0.carLength,
-        dogOffset: train0.dogOffset,
-        rollingResistance: train0.rollingResistance,
-        dragArea: train0.dragArea,
-        pawls: train0.pawls ?? null,
-        archivedAt: null,
-        createdBy: actor.id,
-      },
-      { transaction },
-    );
+    const trainRows = [];
+    for (const [i, t] of s.trains.entries()) {
+      const row = await Train.create(
+        {
+          organisationId: actor.organisationId,
+          name: clip(`${s.name} – train${many ? ` ${i + 1}` : ""}`, 120),
+          notes: IMPORTED_TRAIN_NOTE,
+          cars: t.cars,
+          carMassEmpty: t.carMass,
+          seatsPerCar: 0,
+          riderMass: DEFAULT_RIDER_MASS,
+          carLength: t.carLength,
+          dogOffset: t.dogOffset,
+          rollingResistance: t.rollingResistance,
+          dragArea: t.dragArea,
+          pawls: t.pawls ?? null,
+          archivedAt: null,
+          createdBy: actor.id,
+        },
+        { transaction },
+      );
+      await recordAudit({ transaction, actor, entity: "train", entityId: row.id, action: "import", after: trainView(row) });
+      trainRows.push(row);
+    }
+    const [trainRow, ...followerRows] = trainRows as [(typeof trainRows)[number], ...typeof trainRows];
     const train = trainView(trainRow);
-    await recordAudit({ transaction, actor, entity: "train", entityId: trainRow.id, action: "import", after: train });
 
     const { Lift, LiftRevision } = getModels();
     const liftRow = (await Lift.findByPk(lift.id, { transaction }))!;
@@ -112,14 +118,23 @@ export async function importScenario(actor: Actor, file: unknown): Promise<Impor
           startTime: train0.startTime,
           runSettings: s.run,
           dynamics: { contacts: s.contacts },
+          followers: s.trains.slice(1).map((t, i) => ({
+            trainId: followerRows[i]!.id,
+            loading: "empty" as const,
+            riderCount: null,
+            entrySpeed: t.entrySpeed,
+            startPosition: t.startPosition,
+            startTime: t.startTime,
+          })),
         },
         lift: liftRow,
         revision: revRow,
         train: trainRow,
+        followerTrains: followerRows,
       },
       "import",
       transaction,
     );
-    return { scenario, lift, train };
+    return { scenario, lift, train, followerTrains: followerRows.map((r) => trainView(r)) };
   });
 }

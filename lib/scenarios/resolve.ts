@@ -17,8 +17,8 @@ export {
  * validated by the engine's `scenarioSchema` (export = this JSON; runs start from it). Throws a 400
  * listing the problems if the stored data no longer makes a valid scenario.
  */
-export function toEngineScenario(scenario: ScenarioLike, liftRevision: RevisionLike, train: TrainLike): EngineScenario {
-  const r = resolveEngineScenario(scenario, liftRevision, train);
+export function toEngineScenario(scenario: ScenarioLike, liftRevision: RevisionLike, train: TrainLike, followerTrains: readonly TrainLike[] = []): EngineScenario {
+  const r = resolveEngineScenario(scenario, liftRevision, train, followerTrains);
   if (!r.ok) throw badRequest("This scenario does not make a valid engine scenario.", r.issues);
   return r.scenario;
 }

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { runSettingsSchema, trainSchema, trainSchemaV1 } from "@/sim/schema";
 import { dynamicsSchema } from "./dynamics";
 import { LOADINGS } from "./loading";
+import { followerIssueMessage, followersSchema } from "./followers";
 import { nameField, optionalText } from "@/lib/http/text";
 import { versionField } from "@/lib/http/version";
 
@@ -37,6 +38,8 @@ export const scenarioInputSchema = z
     runSettings: runSettingsSchema,
     /** The scenario's drive model and damping over the pinned revision (lib/scenarios/dynamics.ts). */
     dynamics: dynamicsSchema,
+    /** The trains after this one on the lift (format 2 `trains[1..n]`), each with its own train row. */
+    followers: followersSchema,
   })
   .strict()
   .superRefine((s, ctx) => {
@@ -47,9 +50,13 @@ export const scenarioInputSchema = z
   });
 export type ScenarioInput = z.input<typeof scenarioInputSchema>;
 
-/** A scenario's one train is trains[0]: the engine's message for any train ("trains.*.startTime …") says so. */
-export function scenarioIssueMessage(message: string): string {
-  return message.replace(/trains\.\*\./g, "trains.0.");
+/**
+ * The lead train is trains[0]: the engine's message for any train ("trains.*.startTime …") says so; a
+ * message about a following train (path followers.i…) names followers.i.
+ */
+export function scenarioIssueMessage(message: string, path?: string | readonly PropertyKey[]): string {
+  const m = path === undefined ? message : followerIssueMessage(message, path);
+  return m.replace(/trains\.\*\./g, "trains.0.");
 }
 export type ScenarioData = z.output<typeof scenarioInputSchema>;
 

@@ -19,6 +19,12 @@ import { carMassFor, ridersFor } from "@/lib/trains/mass";
 import { resolveEngineScenario, toEngineScenario, toScenarioIssue } from "./resolve";
 import { scenarioInputSchema, scenarioIssueMessage, scenarioUpdateSchema, type ScenarioData } from "./schema";
 import { compactDynamics, mergeDynamics, type Dynamics } from "./dynamics";
+import { compactFollowers, storedFollowers, type ScenarioFollower } from "./followers";
+
+/** A following train as the API shows it: the stored fields and its train's name. */
+export interface ScenarioFollowerView extends ScenarioFollower {
+  trainName: string | null;
+}
 
 export interface ScenarioView {
   id: number;
@@ -45,6 +51,8 @@ export interface ScenarioView {
   runSettings: Record<string, unknown>;
   /** The scenario's drive model and damping over the pinned revision; null = the revision's values and defaults. */
   dynamics: Dynamics | null;
+  /** The trains after the lead train on the lift (engine trains[1..n]); empty = the lead train alone. */
+  followers: ScenarioFollowerView[];
   version: number;
   archivedAt: Date | null;
   frozenAt: Date | null;
@@ -54,7 +62,10 @@ export interface ScenarioView {
 
 type WithParts = Scenario & { lift?: Lift | null; liftRevision?: LiftRevision | null; train?: Train | null };
 
-export function scenarioView(s: Scenario, parts: { lift?: Lift | null; revision?: LiftRevision | null; train?: Train | null } = {}): ScenarioView {
+export function scenarioView(
+  s: Scenario,
+  parts: { lift?: Lift | null; revision?: LiftRevision | null; train?: Train | null; followerTrains?: readonly (Train | null)[] } = {},
+): ScenarioView {
   const w = s as WithParts;
   const lift = parts.lift ?? w.lift ?? null;
   const revision = parts.revision ?? w.liftRevision ?? null;
@@ -80,6 +91,7 @@ export function scenarioView(s: Scenario, parts: { lift?: Lift | null; revision?
     startTime: s.startTime ?? 0,
     runSettings: s.runSettings,
     dynamics: compactDynamics(s.dynamics),
+    followers: storedFollowers(s.followers).map((f, i) => ({ ...f, trainName: parts.followerTrains?.[i]?.name ?? null })),
     version: s.version,
     archivedAt: s.archivedAt,
     frozenAt: s.frozenAt,
@@ -136,23 +148,37 @@ async function loadOwnScenario(actor: Actor, id: number, transaction?: Transacti
   );
 }
 
-/** The scenario with its pinned revision and train (what a run or an export needs). */
+/** The train rows of a scenario's following trains, in order (throws if one is missing: they are never deleted while used). */
+export async function loadFollowerTrains(scenario: Pick<Scenario, "id" | "followers">, transaction?: Transaction): Promise<Train[]> {
+  const list = storedFollowers(scenario.followers);
+  if (!list.length) return [];
+  const { Train } = getModels();
+  const rows = await Train.findAll({ where: { id: [...new Set(list.map((f) => f.trainId))] }, transaction });
+  return list.map((f) => {
+    const t = rows.find((r) => r.id === f.trainId);
+    if (!t) throw new Error(`Scenario ${scenario.id} points at a missing following train ${f.trainId}.`);
+    return t;
+  });
+}
+
+/** The scenario with its pinned revision, lead train and following trains (what a run or an export needs). */
 export async function loadScenarioParts(actor: Actor, id: number, transaction?: Transaction) {
   const { Lift, LiftRevision, Train } = getModels();
   const scenario = await loadOwnScenario(actor, id, transaction);
-  const [lift, revision, train] = await Promise.all([
+  const [lift, revision, train, followerTrains] = await Promise.all([
     Lift.findByPk(scenario.liftId, { transaction }),
     LiftRevision.findByPk(scenario.liftRevisionId, { transaction }),
     Train.findByPk(scenario.trainId, { transaction }),
+    loadFollowerTrains(scenario, transaction),
   ]);
   if (!lift || !revision || !train) throw new Error(`Scenario ${id} points at a missing lift, revision or train.`);
-  return { scenario, lift, revision, train };
+  return { scenario, lift, revision, train, followerTrains };
 }
 
 export async function getScenario(actor: Actor, id: number): Promise<ScenarioView> {
   assertCan(actor, "design:read");
-  const { scenario, lift, revision, train } = await loadScenarioParts(actor, id);
-  return scenarioView(scenario, { lift, revision, train });
+  const { scenario, lift, revision, train, followerTrains } = await loadScenarioParts(actor, id);
+  return scenarioView(scenario, { lift, revision, train, followerTrains });
 }
 
 interface Resolved {
@@ -160,6 +186,7 @@ interface Resolved {
   lift: Lift;
   revision: LiftRevision;
   train: Train;
+  followerTrains: Train[];
 }
 
 /**
@@ -170,11 +197,11 @@ interface Resolved {
 async function resolveInput(
   actor: Actor,
   raw: Record<string, unknown>,
-  keep: { liftId?: number; trainId?: number },
+  keep: { liftId?: number; trainId?: number; followerTrainIds?: number[] },
   transaction?: Transaction,
 ): Promise<Resolved> {
   const parsed = scenarioInputSchema.safeParse(raw);
-  if (!parsed.success) throwIfIssues(zodIssues(parsed.error).map((i) => ({ ...i, message: scenarioIssueMessage(i.message) })));
+  if (!parsed.success) throwIfIssues(zodIssues(parsed.error).map((i) => ({ ...i, message: scenarioIssueMessage(i.message, i.path) })));
   const data = parsed.data!;
   const { Lift, LiftRevision, Train } = getModels();
   const issues: FieldIssue[] = [];
@@ -202,13 +229,29 @@ async function resolveInput(
       issues.push({ path: "riderCount", message: `riderCount must be at most the train's ${seats} seats` });
   }
 
+  // Each following train: a train of this organisation, not archived (unless it was already there), riders within its seats.
+  const followers = compactFollowers(data.followers) ?? [];
+  const followerTrains: Train[] = [];
+  for (const [i, f] of followers.entries()) {
+    const t = await Train.findByPk(f.trainId, { transaction });
+    if (!t || t.organisationId !== actor.organisationId) {
+      issues.push({ path: `followers.${i}.trainId`, message: `followers.${i}.trainId ${f.trainId}: no such train` });
+      continue;
+    }
+    if (t.archivedAt && !keep.followerTrainIds?.includes(t.id)) issues.push({ path: `followers.${i}.trainId`, message: `followers.${i}.trainId: that train is archived` });
+    const seats = t.cars * t.seatsPerCar;
+    if (f.loading === "riders" && (f.riderCount ?? 0) > seats)
+      issues.push({ path: `followers.${i}.riderCount`, message: `followers.${i}.riderCount must be at most the train's ${seats} seats` });
+    followerTrains.push(t);
+  }
+
   const dynamics = compactDynamics(data.dynamics);
   if (revision && trainOk && issues.length === 0) {
-    const r = resolveEngineScenario({ ...data, riderCount: data.riderCount ?? null, dynamics }, revision, train);
+    const r = resolveEngineScenario({ ...data, riderCount: data.riderCount ?? null, dynamics, followers }, revision, train, followerTrains);
     if (!r.ok) issues.push(...r.issues.map((i) => toScenarioIssue(i, dynamics)));
   }
   throwIfIssues(issues);
-  return { data: { ...data, liftRevisionId: revision!.id }, lift: lift!, revision: revision!, train: train! };
+  return { data: { ...data, liftRevisionId: revision!.id }, lift: lift!, revision: revision!, train: train!, followerTrains };
 }
 
 function rowFields(d: Resolved["data"]) {
@@ -225,6 +268,7 @@ function rowFields(d: Resolved["data"]) {
     startTime: d.startTime ?? 0,
     runSettings: d.runSettings as Record<string, unknown>,
     dynamics: compactDynamics(d.dynamics),
+    followers: compactFollowers(d.followers),
   };
 }
 
@@ -235,7 +279,7 @@ export async function createScenarioIn(actor: Actor, r: Resolved, action: "creat
     { ...rowFields(r.data), organisationId: actor.organisationId, archivedAt: null, frozenAt: null, createdBy: actor.id },
     { transaction },
   );
-  const view = scenarioView(row, { lift: r.lift, revision: r.revision, train: r.train });
+  const view = scenarioView(row, { lift: r.lift, revision: r.revision, train: r.train, followerTrains: r.followerTrains });
   await recordAudit({ transaction, actor, entity: "scenario", entityId: row.id, action, after: view });
   return view;
 }
@@ -264,9 +308,9 @@ export async function updateScenario(actor: Actor, id: number, input: unknown): 
     if (row.archivedAt && isRestoreRequest(input)) {
       assertVersion(row.version, input.version, "scenario");
       const parts = await loadScenarioParts(actor, id, transaction);
-      const before = scenarioView(row, { lift: parts.lift, revision: parts.revision, train: parts.train });
+      const before = scenarioView(row, parts);
       await row.update({ archivedAt: null, version: row.version + 1 }, { transaction });
-      const after = scenarioView(row, { lift: parts.lift, revision: parts.revision, train: parts.train });
+      const after = scenarioView(row, parts);
       await recordAudit({ transaction, actor, entity: "scenario", entityId: row.id, action: "update", before, after });
       return after;
     }
@@ -282,6 +326,7 @@ export async function updateScenario(actor: Actor, id: number, input: unknown): 
       entrySpeed: row.entrySpeed,
       startPosition: row.startPosition,
       startTime: row.startTime ?? 0,
+      followers: storedFollowers(row.followers),
     };
     // Changing the lift without naming a revision pins the new lift's current one.
     if (!("liftId" in changes) || changes.liftId === row.liftId) current.liftRevisionId = row.liftRevisionId;
@@ -294,12 +339,13 @@ export async function updateScenario(actor: Actor, id: number, input: unknown): 
     // Dynamics merge section by section, field by field; a null field goes back to the revision's value.
     const dynamics = "dynamics" in changes ? mergeDynamics(row.dynamics, changes.dynamics) : compactDynamics(row.dynamics);
     const merged: Record<string, unknown> = { ...current, ...changes, runSettings, dynamics };
-    const resolved = await resolveInput(actor, merged, { liftId: row.liftId, trainId: row.trainId }, transaction);
+    const keepFollowers = storedFollowers(row.followers).map((f) => f.trainId);
+    const resolved = await resolveInput(actor, merged, { liftId: row.liftId, trainId: row.trainId, followerTrainIds: keepFollowers }, transaction);
     assertVersion(row.version, version, "scenario");
     const parts = await loadScenarioParts(actor, id, transaction);
-    const before = scenarioView(row, { lift: parts.lift, revision: parts.revision, train: parts.train });
+    const before = scenarioView(row, parts);
     await row.update({ ...rowFields(resolved.data), version: row.version + 1 }, { transaction });
-    const after = scenarioView(row, { lift: resolved.lift, revision: resolved.revision, train: resolved.train });
+    const after = scenarioView(row, { lift: resolved.lift, revision: resolved.revision, train: resolved.train, followerTrains: resolved.followerTrains });
     await recordAudit({ transaction, actor, entity: "scenario", entityId: row.id, action: "update", before, after });
     return after;
   });
@@ -317,9 +363,27 @@ export async function copyScenario(actor: Actor, id: number, input: unknown = {}
   assertCan(actor, "design:write");
   const { scenario } = await loadScenarioParts(actor, id);
   const { name } = validate(scenarioCopySchema, input);
+  return getSequelize().transaction((transaction) =>
+    deriveScenarioIn(actor, scenario, { name: name ?? `${clipText(scenario.name, 193)} (copy)` }, "create", transaction),
+  );
+}
+
+/**
+ * A new scenario from a stored one (same revision, train, followers and inputs) with a new name and, if
+ * given, dynamics merged over its own field by field; validated like any save (400 with every problem,
+ * nothing stored) and audited. The caller checks the permission: copyScenario (design) and the logbook's
+ * run with today's chain.
+ */
+export async function deriveScenarioIn(
+  actor: Actor,
+  scenario: Scenario,
+  changes: { name: string; notes?: string | null; dynamics?: unknown },
+  action: "create",
+  transaction: Transaction,
+): Promise<ScenarioView> {
   const raw: Record<string, unknown> = {
-    name: name ?? `${clipText(scenario.name, 193)} (copy)`,
-    notes: scenario.notes,
+    name: changes.name,
+    notes: changes.notes === undefined ? scenario.notes : changes.notes,
     liftId: scenario.liftId,
     liftRevisionId: scenario.liftRevisionId,
     trainId: scenario.trainId,
@@ -329,10 +393,16 @@ export async function copyScenario(actor: Actor, id: number, input: unknown = {}
     startPosition: scenario.startPosition,
     startTime: scenario.startTime ?? 0,
     runSettings: scenario.runSettings,
-    dynamics: compactDynamics(scenario.dynamics),
+    dynamics: changes.dynamics === undefined ? compactDynamics(scenario.dynamics) : mergeDynamics(scenario.dynamics, changes.dynamics),
+    followers: storedFollowers(scenario.followers),
   };
-  const resolved = await resolveInput(actor, raw, { liftId: scenario.liftId, trainId: scenario.trainId });
-  return getSequelize().transaction((transaction) => createScenarioIn(actor, resolved, "create", transaction));
+  const resolved = await resolveInput(
+    actor,
+    raw,
+    { liftId: scenario.liftId, trainId: scenario.trainId, followerTrainIds: storedFollowers(scenario.followers).map((f) => f.trainId) },
+    transaction,
+  );
+  return createScenarioIn(actor, resolved, action, transaction);
 }
 
 async function countRuns(scenarioId: number, transaction: Transaction): Promise<number> {
@@ -374,6 +444,6 @@ export function exportFileName(name: string): string {
 /** The scenario as a `tautline-scenario/2` file (the engine's format, SI units). */
 export async function exportScenario(actor: Actor, id: number) {
   assertCan(actor, "design:read");
-  const { scenario, revision, train } = await loadScenarioParts(actor, id);
-  return { fileName: exportFileName(scenario.name), scenario: toEngineScenario(scenario, revision, train) };
+  const { scenario, revision, train, followerTrains } = await loadScenarioParts(actor, id);
+  return { fileName: exportFileName(scenario.name), scenario: toEngineScenario(scenario, revision, train, followerTrains) };
 }

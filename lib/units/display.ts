@@ -30,6 +30,8 @@ export type Quantity =
   | "accelG"
   | "ratio"
   | "percent"
+  /** A fraction stored as such (0.015) and shown in per cent (1.5 %). */
+  | "fraction"
   | "count"
   | "rate"
   | "tempDelta"
@@ -67,6 +69,8 @@ const SI: Record<Quantity, DisplayUnit> = {
   accelG: { label: "g", factor: 1, digits: 2 },
   ratio: { label: "", factor: 1, digits: 3 },
   percent: { label: "%", factor: 1, digits: 1 },
+  /** A fraction stored as such (0.015) and shown in per cent (1.5 %). */
+  fraction: { label: "%", factor: 100, digits: 2 },
   count: { label: "", factor: 1, digits: 0 },
   rate: { label: "mm/s", factor: 1000, digits: 2 },
   tempDelta: { label: "K", factor: 1, digits: 0 },

@@ -26,6 +26,7 @@ export default async function LogbookPage({ searchParams }: { searchParams: Prom
           canWrite={can(user.role, "logbook:write")}
           canSettings={can(user.role, "logbook:settings")}
           canUpload={can(user.role, "recording:upload")}
+          canRun={can(user.role, "run:start")}
         />
       ) : (
         <p className="text-[14px] text-steel-500">No lifts yet: an engineer adds them under Lifts.</p>

@@ -34,9 +34,9 @@ export default async function ScenarioPage({
   let engine: Scenario | null = null;
   try {
     const parts = await loadScenarioParts(user, id);
-    view = JSON.parse(JSON.stringify(scenarioView(parts.scenario, { lift: parts.lift, revision: parts.revision, train: parts.train }))) as ScenarioJson;
+    view = JSON.parse(JSON.stringify(scenarioView(parts.scenario, parts))) as ScenarioJson;
     if (parts.revision && parts.train) {
-      const r = resolveEngineScenario(parts.scenario, parts.revision, parts.train);
+      const r = resolveEngineScenario(parts.scenario, parts.revision, parts.train, parts.followerTrains);
       if (r.ok) engine = JSON.parse(JSON.stringify(r.scenario)) as Scenario;
     }
   } catch (err) {
