@@ -32,7 +32,8 @@ export type Quantity =
   | "tempDelta"
   | "perKelvin"
   | "frequency"
-  | "linearDamping";
+  | "linearDamping"
+  | "energy";
 
 export interface DisplayUnit {
   /** Unit label shown beside a field. */
@@ -71,6 +72,7 @@ const SI: Record<Quantity, DisplayUnit> = {
   frequency: { label: "Hz", factor: 1, digits: 2 },
   /** Force per unit speed (a dashpot), N·s/m. */
   linearDamping: { label: "N·s/m", factor: 1, digits: 0 },
+  energy: { label: "kJ", factor: 1e-3, digits: 1 },
 };
 
 const US: Record<Quantity, DisplayUnit> = {
@@ -91,6 +93,9 @@ const US: Record<Quantity, DisplayUnit> = {
   tempDelta: { label: "°F", factor: 1.8, digits: 0, sig: 4 },
   perKelvin: { label: "1/°F", factor: 1 / 1.8, digits: 7, sig: 4 },
   linearDamping: { label: "lbf·s/in", factor: INCH / LBF, digits: 1, sig: 4 },
+  // Energy in ft·lbf, as US mechanical practice states work and kinetic energy (kip·ft reads as a moment);
+  // a train's energy at the crest is thousands of ft·lbf, shown grouped ("7,328 ft·lbf").
+  energy: { label: "ft·lbf", factor: 1 / (LBF * FT), digits: 0, sig: 4 },
 };
 
 export function unitOf(q: Quantity, system: UnitSystem): DisplayUnit {

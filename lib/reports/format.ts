@@ -1,6 +1,6 @@
 /** Numbers as the report prints them, in the reader's unit system (SI inside, converted only here). */
 import { reasonText, type ReasonKind, type ReasonPart } from "@/sim/checks";
-import { display, type Quantity, type UnitSystem } from "@/sim/units";
+import { display, FOOT, POUND_FORCE, type Quantity, type UnitSystem } from "@/sim/units";
 
 export function fmtQ(si: number | null | undefined, quantity: Quantity, units: UnitSystem, digits = 2): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return "—";
@@ -27,6 +27,9 @@ const US_REASON: Record<ReasonKind, (si: number) => string> = {
   length: (v) => fmtQ(v, "length", "us", 2),
   power: (v) => fmtQ(v, "power", "us", 1),
   rate: (v) => `${fmtQ(v, "shortLength", "us", 3)}/s`,
+  speed: (v) => fmtQ(v, "speed", "us", 2),
+  // Energy in ft·lbf (1 ft·lbf = 0.3048 m × 1 lbf), as the screen shows it (lib/client/units.ts).
+  energy: (v) => `${(v / (FOOT * POUND_FORCE)).toFixed(0)} ft·lbf`,
 };
 
 /** A check's reason in the report's units: the engine's SI line, or its parts converted to US customary. */
