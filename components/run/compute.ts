@@ -1,5 +1,5 @@
 /** The run and its checks, as the worker computes them (pure; also used for server results). */
-import { designStatics, evaluateChecks, simulate, type Check, type Scenario, type Series, type Summary } from "@/sim";
+import { designStatics, evaluateChecks, simulate, type Check, type DesignStatics, type Scenario, type Series, type Summary } from "@/sim";
 import { SERIES_KEYS, TRAIN_SERIES_KEYS, type TrainSeries } from "@/sim/frames";
 import type { RunData } from "./types";
 
@@ -17,9 +17,20 @@ export const PREVIEW = { segments: 12, frameBudget: 60, sampleInterval: 0.05 } a
 export const PREVIEW_STEP_FRACTION = 0.9;
 export const FULL = { frameBudget: 600, sampleInterval: 0.01 } as const;
 
+/**
+ * The design statics (steady running) of the last scenario asked for. They do not depend on the trains'
+ * entry speed (tests/unit/preview-vs-full.test.ts holds that), so an entry-speed slider reuses them.
+ */
+let staticsCache: { key: string; statics: DesignStatics } | null = null;
+export function staticsFor(scenario: Scenario): DesignStatics {
+  const key = JSON.stringify({ ...scenario, trains: scenario.trains.map((t) => ({ ...t, entrySpeed: 0 })) });
+  if (staticsCache?.key !== key) staticsCache = { key, statics: designStatics(scenario) };
+  return staticsCache.statics;
+}
+
 export function checksFor(scenario: Scenario, summary: Summary): Check[] {
   try {
-    return evaluateChecks(summary, designStatics(scenario), scenario.limits);
+    return evaluateChecks(summary, staticsFor(scenario), scenario.limits);
   } catch {
     return [];
   }
