@@ -7,6 +7,7 @@
 import os from "node:os";
 import { chromium } from "@playwright/test";
 import { DEMO_PASSWORD } from "../lib/auth/demo-accounts";
+import { PREVIEW_PARTS } from "../components/run/previewTiming";
 
 const url = (process.env.BENCH_URL ?? `http://127.0.0.1:${process.env.PORT ?? 3000}`).replace(/\/$/, "");
 const chromiumPath = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -108,7 +109,10 @@ async function main(): Promise<number> {
         `(targets: median < 50 ms, max < 100 ms); keypress to read-out seen by the bench (adds the protocol round trip): median ${med(roundTrips)} ms, max ${max(roundTrips)} ms`,
     );
     console.log(`[bench-ui] where a preview's time goes (median / max ms):`);
-    for (const [k, v] of Object.entries(parts)) console.log(`[bench-ui]   ${k.padEnd(12)} ${med(v).toFixed(1).padStart(6)} / ${max(v).toFixed(1).padStart(6)}`);
+    for (const [k, what] of PREVIEW_PARTS) {
+      const v = parts[k] ?? [];
+      if (v.length) console.log(`[bench-ui]   ${k.padEnd(11)} ${med(v).toFixed(1).padStart(6)} / ${max(v).toFixed(1).padStart(6)}  ${what}`);
+    }
     console.log(`[bench-ui] machine load average (1 min) during the moves: ${Math.min(...load).toFixed(2)}–${Math.max(...load).toFixed(2)} on ${os.cpus().length} cores`);
     return 0;
   } finally {
