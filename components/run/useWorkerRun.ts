@@ -17,9 +17,27 @@ import { previewArrived, previewInput, previewSent, previewUnpacked } from "./pr
 import { useRunStore } from "./store";
 import type { RunData, WorkerMessage, WorkerRequest, WorkerResult } from "./types";
 
+/**
+ * A run worker; with a scenario, it loads the engine and runs a preview of it at once. The time from creation
+ * to that warm-up's end is measured as "whatif:workerStart" (read by scripts/bench-ui.ts): what the first
+ * slider move would otherwise wait for.
+ */
 function newWorker(warmWith: Scenario | null): Worker {
+  const created = performance.now();
   const w = new Worker(new URL("./worker.ts", import.meta.url), { type: "module" });
-  if (warmWith) w.postMessage({ type: "warm", scenario: warmWith } satisfies WorkerRequest);
+  if (warmWith) {
+    const onWarm = (e: MessageEvent<WorkerMessage>) => {
+      if (e.data?.type !== "warm") return;
+      w.removeEventListener("message", onWarm);
+      try {
+        performance.measure("whatif:workerStart", { start: created, end: performance.now() });
+      } catch {
+        // No measure options in this browser: nothing to record.
+      }
+    };
+    w.addEventListener("message", onWarm);
+    w.postMessage({ type: "warm", scenario: warmWith } satisfies WorkerRequest);
+  }
   return w;
 }
 

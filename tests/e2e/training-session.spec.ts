@@ -5,6 +5,9 @@ import { waitForMail } from "./support/mail";
 // A trainer builds a session from a saved run with two captions and shares it; the park's viewer gets the
 // e-mail, watches it read-only with the captions at their moments, and the trainer sees who watched.
 test("a trainer builds a session with two captions and a viewer watches it", async ({ browser }) => {
+  // Two people, a mail round trip and a run's replay loaded in the builder: more than the default 30 s on a
+  // loaded machine.
+  test.setTimeout(90_000);
   const title = `Pick-up in two steps ${Date.now().toString(36)}`;
   const trainer = await browser.newPage();
   await signInUi(trainer, "trainer@lanternfell.example");
