@@ -124,7 +124,7 @@ export function useWorkerRun(warmWith: Scenario | null = null) {
   }, [set, dropFull]);
 
   /** Sends the newest waiting preview when the preview worker is free. */
-  const pump = useCallback(() => {
+  const pump = useCallback(function pumpNext() {
     const job = pending.current;
     const w = preview.current;
     if (!job || previewInFlight.current || !w) return;
@@ -147,7 +147,7 @@ export function useWorkerRun(warmWith: Scenario | null = null) {
         // A full run started since: keep its result on screen, but still say how long the preview took.
         set({ previewBusy: newer, previewLatencyMs: performance.now() - job.input });
       } else if (m.type === "error") set({ error: m.message, previewBusy: newer });
-      pump();
+      pumpNext();
     };
     w.postMessage({ type: "run", id, scenario: job.scenario, coarse: true } satisfies WorkerRequest);
     previewSent(id);

@@ -33,7 +33,7 @@ export function PinReplay({ runId, duration, units, index, onPin }: { runId: num
   const data = loaded?.runId === runId ? loaded.data : null;
   const error = loaded?.runId === runId ? loaded.error : null;
   if (error) return <Alert tone="error" title="The run's replay cannot be shown" testId={`pin-replay-error-${index}`}>{error}</Alert>;
-  if (!data) return <p className="text-[13px] text-steel-500">Loading the run's replay…</p>;
+  if (!data) return <p className="text-[13px] text-steel-500">{"Loading the run's replay…"}</p>;
   const pin = () => {
     const s = useReplayStore.getState();
     s.setPlaying(false);
