@@ -60,8 +60,11 @@ export function useWorkerRun(warmWith: Scenario | null = null) {
   const set = useRunStore((s) => s.set);
 
   useEffect(() => {
-    full.current = newWorker(warmRef.current);
-    preview.current = newWorker(warmRef.current);
+    // Without a scenario to warm with (a read-only reader), the workers are made only if a run is asked for.
+    if (warmRef.current) {
+      full.current = newWorker(warmRef.current);
+      preview.current = newWorker(warmRef.current);
+    }
     return () => {
       full.current?.terminate();
       preview.current?.terminate();
@@ -126,8 +129,9 @@ export function useWorkerRun(warmWith: Scenario | null = null) {
   /** Sends the newest waiting preview when the preview worker is free. */
   const pump = useCallback(function pumpNext() {
     const job = pending.current;
+    if (!job || previewInFlight.current) return;
+    if (!preview.current) preview.current = newWorker(null);
     const w = preview.current;
-    if (!job || previewInFlight.current || !w) return;
     pending.current = null;
     const id = ++seq.current;
     previewInFlight.current = true;
