@@ -31,8 +31,11 @@ export interface WhatIf {
   takeUpMass: number;
 }
 
-/** A run, or a warm-up that only loads and compiles the engine (its result is dropped). */
-export type WorkerRequest = { type: "run"; id: number; scenario: Scenario; coarse: boolean } | { type: "warm"; scenario: Scenario };
+/**
+ * A run, or a warm-up: `runs` previews of the scenario whose results are dropped, so the engine is loaded and
+ * compiled by the JavaScript engine's optimiser before the first real request (a real request ends it).
+ */
+export type WorkerRequest = { type: "run"; id: number; scenario: Scenario; coarse: boolean } | { type: "warm"; scenario: Scenario; runs: number };
 
 /** A result as the worker sends it: the series packed into one transferred Float64Array. */
 export type WorkerResult = Omit<RunData, "origin" | "series"> & { packed: PackedSeries };

@@ -2,8 +2,8 @@
 /**
  * The browser's run worker: takes a scenario, runs sim's simulate() off the main thread, posts progress
  * about every 1 % (full runs) and then the result with its checks; the series travel as one transferred
- * Float64Array. The page keeps the worker warm (a "warm" request compiles the engine before the first
- * slider move); cancelling a full run = the page terminates this worker and starts a fresh one.
+ * Float64Array. The page keeps the worker warm (a "warm" request runs a few previews so the engine is
+ * compiled before the first slider move); cancelling a full run = the page terminates this worker and starts a fresh one.
  */
 import { packSeries, runScenario } from "./compute";
 import { wallNow } from "./previewTiming";
@@ -12,18 +12,30 @@ import type { WorkerMessage, WorkerRequest } from "./types";
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 const post = (m: WorkerMessage, transfer: Transferable[] = []) => scope.postMessage(m, transfer);
 
+/** Warm-up previews still to run; a real request sets it to 0. */
+let warmLeft = 0;
+
+/** One warm-up preview per task, so a real request waiting in the queue goes first and ends the warm-up. */
+function warmStep(scenario: WorkerRequest & { type: "warm" }): void {
+  if (warmLeft <= 0) return void post({ type: "warm" });
+  warmLeft--;
+  try {
+    runScenario(scenario.scenario, true);
+  } catch {
+    warmLeft = 0; // a scenario the engine refuses: the real run reports it
+  }
+  setTimeout(() => warmStep(scenario), 0);
+}
+
 scope.onmessage = (e: MessageEvent<WorkerRequest>) => {
   const req = e.data;
   const received = wallNow();
   if (req.type === "warm") {
-    try {
-      runScenario(req.scenario, true);
-    } catch {
-      // A scenario the engine refuses: the real run reports it.
-    }
-    post({ type: "warm" });
+    warmLeft = Math.max(1, req.runs);
+    warmStep(req);
     return;
   }
+  warmLeft = 0;
   const { id, scenario, coarse } = req;
   let setupDone = 0;
   let integrated = 0;
