@@ -119,7 +119,7 @@ async function main(): Promise<number> {
       if (v.length) console.log(`[bench-ui]   ${k.padEnd(11)} ${med(v).toFixed(1).padStart(6)} / ${max(v).toFixed(1).padStart(6)}  ${what}`);
     }
     if (workerStarts.length)
-      console.log(`[bench-ui] worker start at page load (engine loaded + warm-up preview, off the slider's path): ${workerStarts.map((x) => x.toFixed(0)).join(", ")} ms`);
+      console.log(`[bench-ui] workers' start at page load, to the end of each one's warm-up (engine loaded, warm-up previews; a run asked for meanwhile goes first and counts here): ${workerStarts.map((x) => x.toFixed(0)).join(", ")} ms`);
     console.log(`[bench-ui] machine load average (1 min) during the moves: ${Math.min(...load).toFixed(2)}–${Math.max(...load).toFixed(2)} on ${os.cpus().length} cores`);
     return 0;
   } finally {
