@@ -11,10 +11,10 @@ import { RIDER_ACCEL_LEVEL_STEP, type RiderAccelExposure, type Summary } from ".
 export type CheckState = "pass" | "caution" | "fail";
 
 /** Kinds of quantity a reason quotes; each display layer maps them to its own units (SI or US customary). */
-export type ReasonKind = "force" | "smallLength" | "length" | "power" | "rate";
+export type ReasonKind = "force" | "smallLength" | "length" | "power" | "rate" | "speed" | "energy";
 
 /**
- * One piece of a reason: plain text, or an SI quantity (N, m, W, m/s) with the decimals its SI text uses.
+ * One piece of a reason: plain text, or an SI quantity (N, m, W, m/s, J) with the decimals its SI text uses.
  * Plain factors, counts, seconds and g stay in the text: they read the same in both unit systems.
  */
 export type ReasonPart = { text: string } | { q: number; kind: ReasonKind; digits: number };
@@ -43,6 +43,8 @@ const SI_TEXT: Record<ReasonKind, (si: number, d: number) => string> = {
   length: (v, d) => `${fmt(v, d)} m`,
   power: (v, d) => `${fmt(v / 1000, d)} kW`,
   rate: (v, d) => `${fmt(v * 1000, d)} mm/s`,
+  speed: (v, d) => `${v.toFixed(d)} m/s`,
+  energy: (v, d) => `${(v / 1000).toFixed(d)} kJ`,
 };
 
 /** A quantity part in SI, as the `reason` line prints it. */
@@ -63,6 +65,8 @@ const mm = (v: number, digits: number): ReasonPart => ({ q: v, kind: "smallLengt
 const m = (v: number, digits: number): ReasonPart => ({ q: v, kind: "length", digits });
 const kW = (v: number): ReasonPart => ({ q: v, kind: "power", digits: 1 });
 const mmPerS = (v: number, digits: number): ReasonPart => ({ q: v, kind: "rate", digits });
+const mPerS = (v: number, digits: number): ReasonPart => ({ q: v, kind: "speed", digits });
+const kJ = (v: number): ReasonPart => ({ q: v, kind: "energy", digits: 1 });
 
 /** Builds `reason` and `parts` from text and quantity pieces. */
 function because(...pieces: (string | ReasonPart)[]): { reason: string; parts: ReasonPart[] } {
@@ -114,11 +118,15 @@ function releaseCheck(summary: Summary, limits: Limits): Check {
   const base = { key: "release", label: "Release: energy to clear the crest", limit, unit: "" };
   const r = summary.release ?? null;
   if (!r) return { ...base, state: "pass", value: null, ...because("The dog was not released during the run.") };
-  const kJ = (e: number) => `${(e / 1000).toFixed(1)} kJ`;
   const head = [
-    // Speed stays in the text (reasons have no speed kind): m/s with mph beside it.
-    `At the release (t = ${r.time.toFixed(2)} s) the train moves at ${r.speed.toFixed(2)} m/s (${(r.speed / 0.44704).toFixed(1)} mph)`,
-    `: kinetic energy ${kJ(r.kineticEnergy)} against ${kJ(r.energyNeeded)} to rise `,
+    `At the release (t = ${r.time.toFixed(2)} s) the train moves at `,
+    mPerS(r.speed, 2),
+    // mph beside it, as the SI line has always read (plain text: it is the same in both systems).
+    ` (${(r.speed / 0.44704).toFixed(1)} mph): kinetic energy `,
+    kJ(r.kineticEnergy),
+    " against ",
+    kJ(r.energyNeeded),
+    " to rise ",
     m(r.rise, 2),
     " to the crest with rolling resistance",
   ];

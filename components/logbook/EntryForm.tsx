@@ -6,6 +6,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Input, Select } from "@/components/ui/Field";
 import { ApiError, issueMap, newIdempotencyKey, sendJson } from "@/lib/client/fetch";
 import { KIND_LABELS, type AlertJson, type EntryJson, type Len, type TrendJson } from "./types";
+import { readTyped, type TypedField } from "./typed";
 
 export function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; trend: TrendJson; len: Len; onSaved: (a: AlertJson[]) => void }) {
   const [kind, setKind] = useState<EntryJson["kind"]>("take-up");
@@ -16,23 +17,28 @@ export function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; tre
   const [photo, setPhoto] = useState<File | null>(null);
   // One key per entry being written: Save pressed again after a lost answer cannot store it twice.
   const [writeKey, setWriteKey] = useState(newIdempotencyKey);
-  const num = (k: string) => (v[k] === undefined || v[k] === "" ? undefined : Number(v[k]));
   const set = (k: string) => (e: { target: { value: string } }) => setV({ ...v, [k]: e.target.value });
 
-  // Lengths are typed in the form's unit (mm or in): problems are said in that unit too, never in metres.
-  const lengthIssues = (): Record<string, string> => {
-    const out: Record<string, string> = {};
-    const fields = kind === "elongation" ? [["measuredLength", "Measured length"]] : kind === "take-up" ? [["position", "Position"]] : [];
-    for (const [k, label] of fields) if (num(k) === undefined || !Number.isFinite(num(k)!)) out[k] = `${label} must be a number in ${len.unit}`;
-    return out;
-  };
+  // Numbers are read by the shared parser; lengths are typed in the form's unit (mm or in) and problems are
+  // said in that unit too, never in metres.
+  const numberFields = (): TypedField[] =>
+    kind === "elongation"
+      ? [
+          { key: "measuredLength", label: "Measured length", unit: len.unit, required: true },
+          { key: "pitches", label: "Over pitches", unit: "pitches" },
+        ]
+      : kind === "take-up"
+        ? [{ key: "position", label: "Position", unit: len.unit, required: true }]
+        : kind === "links-removed"
+          ? [{ key: "links", label: "Links removed", unit: "links" }]
+          : [];
   const inFormUnits = (serverIssues: Record<string, string>): Record<string, string> =>
     serverIssues.position ? { ...serverIssues, position: `Position must be within the take-up travel of ${(trend.travel * len.scale).toFixed(len.digits)} ${len.unit}` } : serverIssues;
 
   const submit = async () => {
     setIssues({});
     setMessage(null);
-    const local = lengthIssues();
+    const { values: num, issues: local } = readTyped(v, numberFields());
     if (Object.keys(local).length) {
       setIssues(local);
       setMessage("Check the marked fields.");
@@ -41,9 +47,9 @@ export function EntryForm({ liftId, trend, len, onSaved }: { liftId: number; tre
     setBusy(true);
     try {
       const body: Record<string, unknown> = { kind, liftId, notes: v.notes || undefined, measuredAt: v.measuredAt ? new Date(v.measuredAt).toISOString() : undefined };
-      if (kind === "elongation") Object.assign(body, { measuredLength: (num("measuredLength") ?? NaN) / len.scale, pitches: num("pitches") });
-      if (kind === "take-up") body.position = (num("position") ?? NaN) / len.scale;
-      if (kind === "links-removed") body.links = num("links");
+      if (kind === "elongation") Object.assign(body, { measuredLength: (num.measuredLength ?? NaN) / len.scale, pitches: num.pitches });
+      if (kind === "take-up") body.position = (num.position ?? NaN) / len.scale;
+      if (kind === "links-removed") body.links = num.links;
       if (kind === "lubrication") body.lubricant = v.lubricant || undefined;
       if (kind === "inspection") {
         body.findings = v.findings ?? "";

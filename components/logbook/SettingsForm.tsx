@@ -6,6 +6,14 @@ import { Card, CardBody, CardHeader } from "@/components/ui/Card";
 import { Field, Input } from "@/components/ui/Field";
 import { ApiError, issueMap, sendJson } from "@/lib/client/fetch";
 import type { TrendJson } from "./types";
+import { readTyped, type TypedField } from "./typed";
+
+const FIELDS: readonly TypedField[] = [
+  { key: "elongationLimit", label: "Elongation limit", unit: "%", required: true },
+  { key: "elongationWarning", label: "Elongation warning", unit: "%", required: true },
+  { key: "takeUpWarning", label: "Take-up warning", unit: "% of usable travel", required: true },
+  { key: "horizonDays", label: "Forecast horizon", unit: "days", required: true },
+];
 
 export function SettingsForm({ liftId, trend, onSaved }: { liftId: number; trend: TrendJson; onSaved: () => void }) {
   const s = trend.settings;
@@ -13,13 +21,19 @@ export function SettingsForm({ liftId, trend, onSaved }: { liftId: number; trend
   const [issues, setIssues] = useState<Record<string, string>>({});
   const [msg, setMsg] = useState<string | null>(null);
   const save = async () => {
+    const { values: n, issues: local } = readTyped(v, FIELDS);
+    if (Object.keys(local).length) {
+      setIssues(local);
+      setMsg("Check the marked fields. Nothing was saved.");
+      return;
+    }
     try {
       await sendJson(`/api/logbook/lifts/${liftId}/settings`, "PUT", {
         version: s.version,
-        elongationLimit: Number(v.elongationLimit),
-        elongationWarning: Number(v.elongationWarning),
-        takeUpWarning: Number(v.takeUpWarning) / 100,
-        horizonDays: Number(v.horizonDays),
+        elongationLimit: n.elongationLimit,
+        elongationWarning: n.elongationWarning,
+        takeUpWarning: n.takeUpWarning! / 100,
+        horizonDays: n.horizonDays,
       });
       setIssues({});
       setMsg("Levels saved.");
@@ -48,7 +62,11 @@ export function SettingsForm({ liftId, trend, onSaved }: { liftId: number; trend
           <Button variant="secondary" onClick={() => void save()}>
             Save levels
           </Button>
-          {msg && <span className="text-[13px] text-steel-700">{msg}</span>}
+          {msg && (
+            <span className="text-[13px] text-steel-700" data-testid="settings-message">
+              {msg}
+            </span>
+          )}
         </div>
       </CardBody>
     </Card>

@@ -3,9 +3,11 @@
  * The run's time series with uPlot (fast with tens of thousands of points): four panels on one time
  * axis, drag to zoom (all panels follow), double-click to zoom out, a hover read-out, the cursor synced
  * with the replay (click a plot to move the replay there), CSV and PNG export. The chain tension at the
- * dog comes from the replay frames (sim's dogTensionAt), put on the series' times.
+ * dog comes from the replay frames (sim's dogTensionAt), put on the series' times. The plots are made once per
+ * set of panels and units; a new result (a what-if preview while a slider moves) only replaces their data
+ * (uPlot setData), so the panels are redrawn, not rebuilt.
  */
-import { useEffect, useMemo, useRef, useState } from "react";
+import { useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
 import uPlot from "uplot";
 import "uplot/dist/uPlot.min.css";
 import { dogTensionAt, type Frame, type Layout, type Series } from "@/sim";
@@ -33,6 +35,7 @@ export function RunPlots({
   layout,
   dogOffset,
   dogRelease,
+  onDrawn,
 }: {
   series: Series;
   units: UnitSystem;
@@ -44,6 +47,8 @@ export function RunPlots({
   layout?: Layout;
   dogOffset?: number;
   dogRelease?: number;
+  /** Called when the plots have drawn a new result (after their data was replaced). */
+  onDrawn?: () => void;
 }) {
   const holders = useRef<(HTMLDivElement | null)[]>([]);
   const plots = useRef<uPlot[]>([]);
@@ -60,10 +65,19 @@ export function RunPlots({
   // Without frames there is no tension at the dog: leave its line (and its note) out.
   const panels = useMemo(() => panelsFor(series).map((p) => ({ ...p, lines: p.lines.filter((l) => l.key !== "dogTension" || dogTension) })), [series, dogTension]);
   const hovering = useRef(false);
+  // The latest series and drawn-callback for the handlers of plots that outlive one result.
+  const seriesRef = useRef(series);
+  const onDrawnRef = useRef(onDrawn);
+  const dataFor = (ps: typeof panels) => ps.map((p) => panelData(p, series, { chainSpeed: chain, dogTension }, units) as uPlot.AlignedData);
+  // Plots are rebuilt only when the panels' lines or the units change.
+  const shape = `${units}|${panels.map((p) => `${p.id}:${p.lines.map((l) => `${l.key}${l.train ? `.${l.train.index}.${l.train.key}` : ""}`).join(",")}`).join("|")}`;
+  const shapeMade = useRef<string | null>(null);
+  const placeRef = useRef<(t: number) => void>(() => {});
 
   useEffect(() => {
     const width = Math.max(280, (box.current?.clientWidth ?? 800) - 16);
     const syncKey = `run-${Math.random().toString(36).slice(2)}`;
+    const initial = dataFor(panels);
     let syncing = false;
     const made: uPlot[] = panels.map((p, pi) => {
       const u = unitOf(p.q, units).label;
@@ -111,7 +125,8 @@ export function RunPlots({
         },
       };
       const el = holders.current[pi]!;
-      const plot = new uPlot(opts, panelData(p, series, { chainSpeed: chain, dogTension }, units) as uPlot.AlignedData, el);
+      if (pi === panels.length - 1) opts.hooks!.draw = [() => onDrawnRef.current?.()];
+      const plot = new uPlot(opts, initial[pi], el);
       plot.over.addEventListener("mouseenter", () => (hovering.current = true));
       plot.over.addEventListener("mouseleave", () => (hovering.current = false));
       plot.over.addEventListener("click", () => {
@@ -122,7 +137,8 @@ export function RunPlots({
         s.setT(plot.posToVal(left, "x"));
       });
       plot.over.addEventListener("dblclick", () => {
-        for (const o of plots.current) o.setScale("x", { min: series.t[0], max: series.t[series.t.length - 1] });
+        const t = seriesRef.current.t;
+        for (const o of plots.current) o.setScale("x", { min: t[0], max: t[t.length - 1] });
       });
       return plot;
     });
@@ -131,13 +147,16 @@ export function RunPlots({
     // The replay clock moves the cursor on every panel (unless the pointer is over a plot).
     const place = (t: number) => {
       if (hovering.current) return;
-      const idx = nearestSample(series.t, t);
+      const ts = seriesRef.current.t;
+      const idx = nearestSample(ts, t);
       for (const plot of made) {
-        const left = plot.valToPos(series.t[idx], "x");
+        const left = plot.valToPos(ts[idx], "x");
         if (Number.isFinite(left)) plot.setCursor({ left, top: 10 }, false);
       }
       setCursorIdx(idx);
     };
+    placeRef.current = place;
+    shapeMade.current = shape;
     place(useReplayStore.getState().t);
     // While playing, follow at most ~12 times a second (the canvas keeps its own frame rate).
     let lastPlace = 0;
@@ -162,8 +181,23 @@ export function RunPlots({
       ro.disconnect();
       for (const plot of made) plot.destroy();
       plots.current = [];
+      shapeMade.current = null;
     };
-  }, [series, chain, dogTension, panels, units]);
+    // Made once per shape; the data effect below keeps them current.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [shape]);
+
+  // A new result on the same panels: replace the data in place (uPlot redraws, then calls onDrawn).
+  useLayoutEffect(() => {
+    seriesRef.current = series;
+    onDrawnRef.current = onDrawn;
+    // First mount or new shape: the effect above (re)makes the plots with this data.
+    if (shapeMade.current !== shape) return;
+    const data = dataFor(panels);
+    plots.current.forEach((plot, i) => plot.setData(data[i]));
+    placeRef.current(useReplayStore.getState().t);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [series, chain, dogTension, panels, units, onDrawn]);
 
   const exportCsv = () => {
     const blob = new Blob([seriesCsv(series, chain, units, dogTension)], { type: "text/csv" });

@@ -1,5 +1,6 @@
 "use client";
 /** Everything a result shows: headline figures, notes, replay with the settle-back account, plots, caution. */
+import { memo, useCallback, useLayoutEffect } from "react";
 import { Card } from "@/components/ui/Card";
 import { SafetyNote } from "@/components/ui/SafetyNote";
 import { RunPlots } from "@/components/plot/RunPlots";
@@ -11,6 +12,8 @@ import { SettleBackPanel } from "./SettleBackPanel";
 import { DriveDampingPanel } from "./DriveDampingPanel";
 import { runTrains } from "./runTrains";
 import type { RunData } from "./types";
+import { previewCommitted, previewDrawn } from "./previewTiming";
+import { useRunStore } from "./store";
 
 const ORIGIN: Record<RunData["origin"], string> = {
   browser: "Run in this browser",
@@ -18,8 +21,16 @@ const ORIGIN: Record<RunData["origin"], string> = {
   server: "Saved run",
 };
 
-export function RunResults({ data, units, initialT, fileStem }: { data: RunData; units: UnitSystem; initialT?: number; fileStem: string }) {
+/** Memoised: slider moves and progress ticks re-render the run view, not the result until it changes. */
+export const RunResults = memo(function RunResults({ data, units, initialT, fileStem }: { data: RunData; units: UnitSystem; initialT?: number; fileStem: string }) {
   const s = data.summary;
+  const previewId = data.previewId;
+  useLayoutEffect(() => previewCommitted(previewId), [previewId]);
+  // A preview's latency is counted to the plots drawing it (see previewTiming.ts).
+  const onDrawn = useCallback(() => {
+    const b = previewDrawn(previewId);
+    if (b) useRunStore.getState().set({ previewLatencyMs: b.total });
+  }, [previewId]);
   return (
     <div className="min-w-0 space-y-5" data-testid="run-results" data-origin={data.origin}>
       <SafetyNote className="rounded-md border border-caution/40 bg-caution/[0.06] px-3 py-2" />
@@ -62,8 +73,9 @@ export function RunResults({ data, units, initialT, fileStem }: { data: RunData;
         layout={data.layout}
         dogOffset={runTrains(data)[0]!.train.dogOffset}
         dogRelease={data.scenario.lift.dogRelease}
+        onDrawn={onDrawn}
       />
       <SafetyNote />
     </div>
   );
-}
+});

@@ -7,6 +7,7 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
+import { useShallow } from "zustand/react/shallow";
 import type { Scenario } from "@/sim";
 import { Alert } from "@/components/ui/Alert";
 import { Badge } from "@/components/ui/Badge";
@@ -47,11 +48,15 @@ export function ScenarioRunView({
   fileStem: string;
 }) {
   const router = useRouter();
-  const { status, progress, error, whatIf, progressEvents } = useRunStore();
+  // Only what this view shows: the preview's busy flag and latency re-render the what-if panel alone.
+  const { status, progress, error, whatIf, progressEvents } = useRunStore(
+    useShallow((s) => ({ status: s.status, progress: s.progress, error: s.error, whatIf: s.whatIf, progressEvents: s.progressEvents })),
+  );
   const data = useRunStore((s) => shownData(s));
   const reset = useRunStore((s) => s.reset);
   const set = useRunStore((s) => s.set);
-  const { runFull, cancel, runPreview } = useWorkerRun();
+  // The workers start with the view and compile the engine on this scenario before the first slider move.
+  const { runFull, cancel, runPreview } = useWorkerRun(canStart ? scenario : null);
   // The scenario's own runs only: a study's cases are other inputs and live with their study.
   const runs = useResource<{ items?: RunJson[]; runs?: RunJson[]; total: number }>(`/api/scenarios/${scenarioId}/runs?pageSize=8&source=own`);
   const [openFailed, setOpenFailed] = useState(false);

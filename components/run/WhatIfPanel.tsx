@@ -23,7 +23,8 @@ export function WhatIfPanel({
 }: {
   base: Scenario;
   units: UnitSystem;
-  runPreview: (s: Scenario) => void;
+  /** `input`: the input event's timeStamp, where the preview's latency is counted from. */
+  runPreview: (s: Scenario, input?: number) => void;
   runFull: (s: Scenario) => Promise<unknown>;
 }) {
   // The entry speed shown is the first train's; a what-if entry speed applies to every train.
@@ -38,11 +39,11 @@ export function WhatIfPanel({
   }, []);
 
   const changed = w.entrySpeed !== original.entrySpeed || w.chainSpeed !== original.chainSpeed || w.takeUpMass !== original.takeUpMass;
-  const move = (p: Partial<WhatIf>) => {
+  const move = (p: Partial<WhatIf>, input: number) => {
     const next = { ...w, ...p };
     setW(next);
     set({ whatIf: next });
-    runPreview(withWhatIf(base, next));
+    runPreview(withWhatIf(base, next), input);
     if (timer.current) clearTimeout(timer.current);
     timer.current = setTimeout(() => void runFull(withWhatIf(base, next)), SETTLE_MS);
   };
@@ -69,7 +70,7 @@ export function WhatIfPanel({
         max={max}
         step={step}
         value={w[key]}
-        onChange={(e) => move({ [key]: Number(e.target.value) })}
+        onChange={(e) => move({ [key]: Number(e.target.value) }, e.timeStamp)}
         data-testid={`whatif-${key}`}
         aria-label={label}
       />

@@ -11,6 +11,8 @@ import { ApiError, getJson, sendJson } from "@/lib/client/fetch";
 import { NumberInput } from "@/components/ui/NumberInput";
 import { useSubmitOnce } from "@/components/ui/useSubmitOnce";
 import type { SessionJson } from "./types";
+import { PinReplay } from "./PinReplay";
+import type { UnitSystem } from "@/lib/client/units";
 import { formatDate } from "@/lib/client/dates";
 
 /** "items.1.captions.0.at" → "Run 2, caption 1, time:" (never the dotted path). */
@@ -50,13 +52,15 @@ interface Progress {
   items: { itemId: number; watchedTo: number; completed: boolean; lastAt: string }[];
 }
 
-export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: { id: number; label: string; duration: number }[] }) {
+export function SessionBuilder({ initial, runs, units = "si" }: { initial: SessionJson; runs: { id: number; label: string; duration: number }[]; units?: UnitSystem }) {
   const [session, setSession] = useState(initial);
   const [title, setTitle] = useState(initial.title);
   const [items, setItems] = useState<Draft[]>(initial.items.map((i) => ({ runId: i.runId, title: i.title ?? "", captions: i.captions.map((c) => ({ at: c.at, text: c.text })) })));
   const [msg, setMsg] = useState<{ tone: "error" | "success"; text: string; issues?: string[] } | null>(null);
   const [invite, setInvite] = useState("");
   const [progress, setProgress] = useState<Progress[]>([]);
+  /** The run item whose replay is open to pin captions at its moments (one at a time: one replay clock). */
+  const [replayOf, setReplayOf] = useState<number | null>(null);
 
   const loadProgress = useCallback(() => {
     getJson<{ progress: Progress[] }>(`/api/training/sessions/${session.id}/views`)
@@ -67,6 +71,7 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
 
   const update = (k: number, d: Partial<Draft>) => setItems(items.map((it, j) => (j === k ? { ...it, ...d } : it)));
   const move = (k: number, by: number) => {
+    setReplayOf(null);
     const next = [...items];
     const [x] = next.splice(k, 1);
     next.splice(k + by, 0, x);
@@ -147,7 +152,14 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
                   <Button size="sm" variant="ghost" disabled={k === items.length - 1} onClick={() => move(k, 1)}>
                     Down
                   </Button>
-                  <Button size="sm" variant="ghost" onClick={() => setItems(items.filter((_, j) => j !== k))}>
+                  <Button
+                    size="sm"
+                    variant="ghost"
+                    onClick={() => {
+                      setReplayOf(null);
+                      setItems(items.filter((_, j) => j !== k));
+                    }}
+                  >
                     Remove
                   </Button>
                 </div>
@@ -184,9 +196,23 @@ export function SessionBuilder({ initial, runs }: { initial: SessionJson; runs: 
                   </Button>
                 </div>
               ))}
-              <Button size="sm" variant="secondary" onClick={() => update(k, { captions: [...it.captions, { at: undefined, text: "" }] })} data-testid={`add-caption-${k}`}>
-                Add a caption
-              </Button>
+              <div className="flex flex-wrap gap-2">
+                <Button size="sm" variant="secondary" onClick={() => update(k, { captions: [...it.captions, { at: undefined, text: "" }] })} data-testid={`add-caption-${k}`}>
+                  Add a caption
+                </Button>
+                <Button size="sm" variant="ghost" onClick={() => setReplayOf(replayOf === k ? null : k)} data-testid={`show-replay-${k}`}>
+                  {replayOf === k ? "Hide the replay" : "Find a moment in the replay"}
+                </Button>
+              </div>
+              {replayOf === k && (
+                <PinReplay
+                  runId={it.runId}
+                  duration={run?.duration ?? 0}
+                  units={units}
+                  index={k}
+                  onPin={(at) => update(k, { captions: [...it.captions, { at, text: "" }] })}
+                />
+              )}
             </CardBody>
           </Card>
         );

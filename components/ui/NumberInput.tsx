@@ -26,7 +26,8 @@ export function fieldId(path: string): string {
   return `f-${path.replace(/\./g, "-")}`;
 }
 
-const readerMark = () => decimalMarkOf(typeof navigator === "undefined" ? undefined : navigator.language);
+/** The reader's decimal mark, from the browser's language ("." where it cannot tell). */
+export const readerMark = () => decimalMarkOf(typeof navigator === "undefined" ? undefined : navigator.language);
 
 export function NumberInput({
   def,

@@ -27,6 +27,9 @@ const US_REASON: Record<ReasonKind, (si: number) => string> = {
   length: (v) => fmtQ(v, "length", "us", 2),
   power: (v) => fmtQ(v, "power", "us", 1),
   rate: (v) => `${fmtQ(v, "smallLength", "us", 3)}/s`,
+  speed: (v) => fmtQ(v, "speed", "us", 2),
+  // Energy in ft·lbf, as the screen shows it (lib/units/display.ts).
+  energy: (v) => fmtQ(v, "energy", "us", 0),
 };
 
 /** A check's reason in the report's units: the engine's SI line, or its parts converted to US customary. */

@@ -32,6 +32,8 @@ export type Quantity =
   | "percent"
   /** A fraction stored as such (0.015) and shown in per cent (1.5 %). */
   | "fraction"
+  /** Energy: kJ, or ft·lbf in US customary. */
+  | "energy"
   | "count"
   | "rate"
   | "tempDelta"
@@ -71,6 +73,7 @@ const SI: Record<Quantity, DisplayUnit> = {
   percent: { label: "%", factor: 1, digits: 1 },
   /** A fraction stored as such (0.015) and shown in per cent (1.5 %). */
   fraction: { label: "%", factor: 100, digits: 2 },
+  energy: { label: "kJ", factor: 1e-3, digits: 1 },
   count: { label: "", factor: 1, digits: 0 },
   rate: { label: "mm/s", factor: 1000, digits: 2 },
   tempDelta: { label: "K", factor: 1, digits: 0 },
@@ -98,6 +101,8 @@ const US: Record<Quantity, DisplayUnit> = {
   tempDelta: { label: "°F", factor: 1.8, digits: 0, sig: 4 },
   perKelvin: { label: "1/°F", factor: 1 / 1.8, digits: 7, sig: 4 },
   linearDamping: { label: "lbf·s/in", factor: INCH / LBF, digits: 1, sig: 4 },
+  // Energy in ft·lbf, as US mechanical practice states work and kinetic energy (kip·ft reads as a moment).
+  energy: { label: "ft·lbf", factor: 1 / (LBF * FT), digits: 0, sig: 4 },
 };
 
 export function unitOf(q: Quantity, system: UnitSystem): DisplayUnit {

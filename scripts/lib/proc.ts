@@ -29,6 +29,8 @@ export function capture(
       if (timer) clearTimeout(timer);
       resolve({ code: code ?? 1, stdout, stderr });
     });
+    // A command that exits without reading its input closes the pipe: that is its answer, not an error here.
+    child.stdin.on("error", () => {});
     child.stdin.end(opts.input ?? "");
   });
 }

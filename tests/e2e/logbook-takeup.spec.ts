@@ -20,7 +20,15 @@ test("an operator logs a take-up reading that raises an alert", async ({ page })
   await page.goto(`/logbook?lift=${lift.id}`);
   await expect(page.getByTestId("take-up-chart")).toBeVisible();
   await page.locator("#kind").selectOption("take-up");
-  await page.locator("#position").fill(String(mm));
+  // Numbers are read as in every form: an ambiguous "1,234" is refused by the field's name and unit and
+  // nothing is stored; a decimal comma reads as a decimal point (mm + 0.4 shows as mm).
+  const entriesBefore = await page.getByTestId("entries").textContent();
+  await page.locator("#position").fill("1,234");
+  await page.getByTestId("save-entry").click();
+  await expect(page.getByTestId("entry-message")).toHaveText("Check the marked fields.");
+  await expect(page.getByText('Position: "1,234" could be read two ways; type 1.234 or 1234 without a thousands separator (mm)')).toBeVisible();
+  expect(await page.getByTestId("entries").textContent()).toBe(entriesBefore);
+  await page.locator("#position").fill(`${mm},4`);
   await page.getByTestId("save-entry").click();
   await expect(page.getByTestId("entry-message")).toHaveText("Saved.");
   await expect(page.getByTestId("raised-alerts")).toContainText("end of its usable travel");

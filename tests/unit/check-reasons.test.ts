@@ -90,6 +90,32 @@ describe("check reasons in the reader's units", () => {
     for (const c of checks) expect(reasonIn(c, "us")).not.toMatch(/\b(kN|mm|kW|m)\b/);
   });
 
+  it("write the release check's speed and energies in ft/s and ft·lbf for a US reader, with no SI unit left", () => {
+    // Source: NIST SP 811 (2008), Appendix B.8/B.9: 1 m/s = 3.280 840 ft/s, 1 kJ = 737.5621 ft·lbf
+    // (1 ft·lbf = 1.355 818 J).
+    const FT_PER_S = 3.28084;
+    const FT_LBF_PER_KJ = 737.562;
+    const released = {
+      ...summary,
+      release: { time: 41.25, position: 96.4, speed: 1.82, kineticEnergy: 9_936, rise: 0.74, energyNeeded: 7_880, margin: 1.26, reengagedAt: null },
+    } as unknown as Summary;
+    const release = evaluateChecks(released, statics, { allowRollback: true, motorRating: 200_000 }).find((c) => c.key === "release")!;
+    expect(release.reason).toContain("moves at 1.82 m/s");
+    expect(release.reason).toContain("kinetic energy 9.9 kJ against 7.9 kJ");
+    const us = formatReason(release, "us");
+    expect(us).not.toMatch(/m\/s|kJ|\bm\b/);
+    // 1.82 m/s = 5.97 ft/s; 9.936 kJ = 7328 ft·lbf; 7.880 kJ = 5812 ft·lbf (hand conversion).
+    expect(us).toContain(`moves at ${num(1.82 * FT_PER_S, 2)} ft/s`);
+    expect(us).toContain("moves at 5.97 ft/s");
+    expect(us).toContain(`kinetic energy ${num(9.936 * FT_LBF_PER_KJ, 0)} ft·lbf against ${num(7.88 * FT_LBF_PER_KJ, 0)} ft·lbf`);
+    expect(us).toContain("kinetic energy 7,328 ft·lbf against 5,812 ft·lbf");
+    expect(us).toContain(`rise ${num(0.74 / FOOT, 2)} ft to the crest`);
+    const report = reasonIn(release, "us");
+    expect(report).not.toMatch(/m\/s|kJ|\bm\b/);
+    expect(report).toContain(`moves at ${(1.82 * FT_PER_S).toFixed(2)} ft/s`);
+    expect(report).toContain(`kinetic energy ${(9.936 * FT_LBF_PER_KJ).toFixed(0)} ft·lbf against ${(7.88 * FT_LBF_PER_KJ).toFixed(0)} ft·lbf`);
+  });
+
   it("fall back to the SI line for a check without parts (stored by an older version)", () => {
     const old = { ...byKey("snatch"), parts: undefined } as unknown as Check;
     expect(formatReason(old, "us")).toBe(old.reason);

@@ -14,7 +14,7 @@ export default async function EditSessionPage({ params }: { params: Promise<{ id
   return (
     <>
       <PageHeader eyebrow="Edit replay session" title={session.title} />
-      <SessionBuilder initial={session} runs={options} />
+      <SessionBuilder initial={session} runs={options} units={user.units} />
     </>
   );
 }
