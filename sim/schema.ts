@@ -7,7 +7,7 @@
  */
 import { z } from "zod";
 import { meshCounts } from "./loop";
-import { elongationDrop } from "./wear";
+import { wearDrop } from "./wear";
 import { PARAMETRIC_FIELDS, parametricProfile, profileIssues, profileLength, type ProfilePiece } from "./profile";
 
 export const SCENARIO_FORMAT = "tautline-scenario/2";
@@ -117,6 +117,11 @@ export const chainSchema = chainSchemaV1.extend({
    * The loop lengthens, pitch and catch spacing grow, E·A stays; the take-up starts lower (see sim/wear.ts).
    */
   elongation: num("chain.elongation", "fraction of length", { min: 0, max: 0.1 }).optional(),
+  /**
+   * Pitches taken out of the loop since the chain was new (maintenance shortening a worn chain); absent means
+   * none. The loop shortens by linksRemoved × the worn pitch and the take-up starts that much / 2 higher.
+   */
+  linksRemoved: num("chain.linksRemoved", "links", { min: 0, max: 5000, int: true }).optional(),
 });
 
 /** Drive fields of version 1. */
@@ -571,13 +576,24 @@ export function crossFieldIssues(data: unknown): FieldIssue[] {
   if (pos !== undefined && travel !== undefined && pos > travel)
     out.push({ path: "takeUp.position", message: "takeUp.position must not exceed takeUp.travel" });
   const el = n("chain", "elongation");
+  const removed = n("chain", "linksRemoved");
   const bottomRun = n("lift", "bottomRun") ?? 4;
-  if (el !== undefined && el > 0 && pos !== undefined && travel !== undefined && from !== undefined && to !== undefined && from < to && pos <= travel) {
-    const drop = elongationDrop({ chainFrom: from, chainTo: to, bottomRun }, el);
+  const worn = (el !== undefined && el > 0) || (removed !== undefined && removed > 0);
+  if (worn && pos !== undefined && travel !== undefined && from !== undefined && to !== undefined && from < to && pos <= travel) {
+    const e = el ?? 0;
+    const drop = wearDrop({ chainFrom: from, chainTo: to, bottomRun }, e, removed ?? 0, pitch ?? 0);
+    const what = removed
+      ? `chain.elongation ${e} with ${removed} links removed changes the loop by ${(2 * drop).toFixed(3)} m`
+      : `chain.elongation ${e} lengthens the loop by ${(2 * drop).toFixed(3)} m`;
     if (pos + drop > travel)
       out.push({
         path: "chain.elongation",
-        message: `chain.elongation ${el} lengthens the loop by ${(2 * drop).toFixed(3)} m: the take-up would start ${(pos + drop).toFixed(3)} m below its top stop, past takeUp.travel ${travel} m (shorten the chain or reset the take-up)`,
+        message: `${what}: the take-up would start ${(pos + drop).toFixed(3)} m below its top stop, past takeUp.travel ${travel} m (shorten the chain or reset the take-up)`,
+      });
+    else if (pos + drop < 0)
+      out.push({
+        path: "chain.linksRemoved",
+        message: `${what}: the take-up would start ${(-(pos + drop)).toFixed(3)} m above its top stop (the chain would be too short: fewer links removed)`,
       });
   }
   return out;

@@ -2,6 +2,8 @@
  * Chain wear as elongation (pitch growth), not as lost stiffness: a chain worn by a fraction e is (1 + e) times
  * its new length on the same sprocket path. Its pitch and catch spacing grow by (1 + e), its E·A stays, and the
  * 2:1 take-up takes up the extra length e·L_loop in its two legs: the counterweight starts e·L_loop/2 lower.
+ * Links taken out (`chain.linksRemoved`, n pitches of the worn chain) shorten the loop by n·p·(1 + e), and the
+ * counterweight starts that much / 2 higher.
  */
 import type { Scenario } from "./schema";
 
@@ -15,13 +17,27 @@ export function elongationDrop(lift: { chainFrom: number; chainTo: number; botto
   return (elongation * loopPathLength(lift)) / 2;
 }
 
-/** The scenario the engine runs: chain.elongation applied to the pitch, catch spacing and take-up position. */
+/**
+ * Net drop of the counterweight at the start for a chain elongated by `elongation` with `linksRemoved` pitches
+ * (new pitch `pitch`) taken out, m; negative when more chain was removed than the wear added.
+ */
+export function wearDrop(
+  lift: { chainFrom: number; chainTo: number; bottomRun: number },
+  elongation: number,
+  linksRemoved: number,
+  pitch: number,
+): number {
+  return elongationDrop(lift, elongation) - (linksRemoved * pitch * (1 + elongation)) / 2;
+}
+
+/** The scenario the engine runs: chain wear applied to the pitch, catch spacing and take-up position. */
 export function withElongation(s: Scenario): Scenario {
   const e = s.chain.elongation ?? 0;
-  if (!(e > 0)) return s;
+  const n = s.chain.linksRemoved ?? 0;
+  if (!(e > 0) && !(n > 0)) return s;
   return {
     ...s,
     chain: { ...s.chain, pitch: s.chain.pitch * (1 + e), catchSpacing: s.chain.catchSpacing * (1 + e) },
-    takeUp: { ...s.takeUp, position: s.takeUp.position + elongationDrop(s.lift, e) },
+    takeUp: { ...s.takeUp, position: s.takeUp.position + wearDrop(s.lift, e, n, s.chain.pitch) },
   };
 }

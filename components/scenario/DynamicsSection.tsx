@@ -19,6 +19,7 @@ import {
   STOP_FIELDS,
   RESTART_FIELD,
   ELONGATION_FIELD,
+  LINKS_REMOVED_FIELD,
   TAKEUP_DAMPING_FIELDS,
   type MotorKind,
 } from "./dynamics-fields";
@@ -148,6 +149,7 @@ export function DynamicsSection({ draft, set, shown, units, disabled, engine }: 
       </Section>
       <Section title="Chain wear" description="The chain as it is today: its elongation (pitch growth) lengthens the loop and lowers the take-up.">
         {field(ELONGATION_FIELD)}
+        {field(LINKS_REMOVED_FIELD)}
       </Section>
       <Section
         title="Damping and contacts"

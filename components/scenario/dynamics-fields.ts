@@ -100,6 +100,14 @@ export const ELONGATION_FIELD: FieldDef = {
   hint: "Wear as growth of the chain's pitch over its new length, e.g. 1.5 %. It lengthens the loop, so the take-up starts lower in its travel. Empty: a new chain. The logbook's newest reading can set it (Run with today's chain).",
 };
 
+export const LINKS_REMOVED_FIELD: FieldDef = {
+  path: `${D}.chain.linksRemoved`,
+  label: "Links removed",
+  q: "count",
+  optional: true,
+  hint: "Pitches taken out of the loop since the chain was new. The loop shortens by that many worn pitches, so the take-up starts higher. Empty: none. Run with today's chain sets it from the logbook's links-removed entries.",
+};
+
 export const TAKEUP_DAMPING_FIELDS: FieldDef[] = [
   {
     path: `${D}.takeUp.friction`,
@@ -171,6 +179,7 @@ export const ALL_DYNAMICS_FIELDS: FieldDef[] = [
   ...STOP_FIELDS,
   RESTART_FIELD,
   ELONGATION_FIELD,
+  LINKS_REMOVED_FIELD,
   ...TAKEUP_DAMPING_FIELDS,
   ...CHAIN_DAMPING_FIELDS,
   ...CONTACT_FIELDS,

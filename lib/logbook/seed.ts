@@ -13,7 +13,7 @@ import { parseScenario } from "@/sim/schema";
 import { simulate } from "@/sim/simulate";
 import { initModels, type LogbookEntry } from "@/models";
 import { DEMO_PARK } from "@/lib/demo/park";
-import { elongationPercent } from "./measure";
+import { elongationPercent, takeUpReset } from "./measure";
 
 const LIFT = "Emberline lift hill";
 const DAY = 86_400_000;
@@ -44,6 +44,10 @@ export async function seedDemoLogbook(sequelize: Sequelize): Promise<void> {
   const start = Date.UTC(2025, 10, 3, 7, 30);
   const base = { organisationId: org.id, liftId: lift.id, liftRevisionId: rev.id, userId: operator?.id ?? null, notes: null, idempotencyKey: null };
   const rows: Omit<InferCreationAttributes<LogbookEntry>, "id" | "createdAt" | "updatedAt">[] = [];
+  // Before the season's readings the chain was shortened once (invented: 20 pitches out after the winter's
+  // wear), so "Run with today's chain" sets the worn pitch and the shorter loop and still fits the take-up.
+  const links = 20;
+  rows.push({ ...base, kind: "links-removed" as const, measuredAt: new Date(start - 10 * DAY), data: { links, pitch, ...takeUpReset(links, pitch, null), positionBefore: null }, elongationPercent: null, takeUpPosition: null });
   for (let k = 0; k < 12; k++) {
     const at = new Date(start + k * 30 * DAY);
     // Invented wear: 0.8 % rising about 0.09 % a month; length over 20 pitches.

@@ -11,7 +11,7 @@ import { chainSchema, contactsSchema, driveSchema, takeUpSchema } from "@/sim/sc
 /** Engine fields a scenario may set, by section. */
 export const DYNAMICS_FIELDS = {
   drive: ["motor", "location", "stop", "restart"],
-  chain: ["damping", "lossFactor", "elongation"],
+  chain: ["damping", "lossFactor", "elongation", "linksRemoved"],
   takeUp: ["friction", "damping"],
   contacts: ["dogStiffness", "ardStiffness", "dampingRatio"],
 } as const;

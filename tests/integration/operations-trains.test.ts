@@ -192,6 +192,22 @@ describe("the logbook's run with today's chain", () => {
     expect([again.created, again.scenario.id, again.run.id]).toEqual([false, r.scenario.id, r.run.id]);
   });
 
+  it("takes the links removed up to the reading into the copy", async () => {
+    const op = org.as.operator;
+    const eng = org.as.engineer;
+    const shortened = (await createLift(eng, liftBody({ name: "Shortened chain lift" }))).id;
+    const s = await createScenario(eng, scenarioBody(shortened, leadId, { name: "Shortened source", runSettings: { duration: 6, segments: 12 } }));
+    await createEntry(op, { kind: "links-removed", liftId: shortened, measuredAt: "2026-05-01T08:00:00.000Z", links: 4 });
+    await createEntry(op, { kind: "elongation", liftId: shortened, measuredAt: "2026-06-01T08:00:00.000Z", measuredLength: 2.05232, pitches: 20, nominalPitch: 0.1016 });
+    // Taken out after the reading: not part of the chain the reading measured.
+    await createEntry(op, { kind: "links-removed", liftId: shortened, measuredAt: "2026-07-01T08:00:00.000Z", links: 2 });
+    const r = await runWithTodaysChain(op, shortened, { scenarioId: s.id });
+    expect(r.reading.linksRemoved).toBe(4);
+    expect(r.scenario.name).toBe("Shortened source · chain 1.00 %, 4 links out (2026-06-01)");
+    expect(r.scenario.dynamics?.chain).toEqual({ elongation: expect.closeTo(0.01, 9) as unknown as number, linksRemoved: 4 });
+    expect((await finished(r.run.id)).status).toBe("done");
+  });
+
   it("refuses a scenario of another lift, a viewer, and another organisation", async () => {
     const eng = org.as.engineer;
     const otherLift = (await createLift(eng, liftBody({ name: "Another lift" }))).id;

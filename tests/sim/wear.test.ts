@@ -39,3 +39,28 @@ describe("chain.elongation", () => {
     expect(parseScenario({ ...s, chain: { ...s.chain, elongation: -0.01 } }).ok).toBe(false);
   });
 });
+
+describe("chain.linksRemoved", () => {
+  it("raises the take-up's start by links·worn pitch/2, so a worn, shortened chain fits its travel again", () => {
+    const s = scenario({ run: { duration: 0.2 } });
+    const loop = 2 * (s.lift.chainTo - s.lift.chainFrom) + s.lift.bottomRun;
+    const room = s.takeUp.travel - s.takeUp.position;
+    // An elongation that would take the weight 0.2 m past its bottom stop…
+    const e = (2 * (room + 0.2)) / loop;
+    const tooLong = parseScenario({ ...s, chain: { ...s.chain, elongation: e } });
+    expect(tooLong.ok).toBe(false);
+    // …fits once enough pitches are out: each removed pitch of the worn chain (p·(1 + e)) lifts the weight by half
+    // of it. Source: geometry of a 2:1 take-up (common practice, no source), as for elongation above.
+    const n = Math.ceil((2 * 0.3) / (s.chain.pitch * (1 + e)));
+    const fresh = simulate(s, { frameBudget: 0, series: false });
+    const worn = simulate({ ...s, chain: { ...s.chain, elongation: e, linksRemoved: n } }, { frameBudget: 0, series: false });
+    const expected = (e * loop) / 2 - (n * s.chain.pitch * (1 + e)) / 2;
+    expect(worn.layout.takeUpStart - fresh.layout.takeUpStart).toBeCloseTo(expected, 9);
+    expect(worn.layout.takeUpStart).toBeLessThanOrEqual(s.takeUp.travel);
+    // Too many out and the weight would have to start above its top stop: refused with the field's path.
+    const tooShort = parseScenario({ ...s, chain: { ...s.chain, linksRemoved: Math.ceil((2 * s.takeUp.position) / s.chain.pitch) + 2 } });
+    expect(tooShort.ok).toBe(false);
+    if (tooShort.ok) return;
+    expect(tooShort.issues.find((i) => i.path === "chain.linksRemoved")?.message).toMatch(/above its top stop/);
+  });
+});
