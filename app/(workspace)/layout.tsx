@@ -2,7 +2,7 @@ import { redirect } from "next/navigation";
 import type { ReactNode } from "react";
 import { AppShell } from "@/components/shell/AppShell";
 import { getCurrentUser } from "@/lib/auth/session";
-import { getModels } from "@/models";
+import { organisationName } from "@/lib/auth/accounts";
 
 export const dynamic = "force-dynamic";
 
@@ -10,9 +10,8 @@ export const dynamic = "force-dynamic";
 export default async function WorkspaceLayout({ children }: { children: ReactNode }) {
   const user = await getCurrentUser();
   if (!user) redirect("/sign-in");
-  const org = await getModels().Organisation.findByPk(user.organisationId);
   return (
-    <AppShell user={user} organisationName={org?.name ?? ""}>
+    <AppShell user={user} organisationName={(await organisationName(user.organisationId)) ?? ""}>
       {children}
     </AppShell>
   );

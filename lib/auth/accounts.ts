@@ -8,7 +8,7 @@ import type { CurrentUser } from "./current-user";
 import { hashPassword, verifyPassword } from "./password";
 import { accountPrefix, RESET_PER_ACCOUNT, RESET_PER_IP, SIGN_IN_PER_ACCOUNT, SIGN_IN_PER_PAIR, rateLimiter } from "./rate-limit";
 import type { Role } from "./roles";
-import { consumeToken, issueToken, TOKEN_LIFETIME_MS } from "./tokens";
+import { consumeToken, findToken, issueToken, TOKEN_LIFETIME_MS, type TokenState } from "./tokens";
 import type {
   InviteUserInput,
   ProfileInput,
@@ -159,6 +159,27 @@ const expiredLink = (what: string) =>
   badRequest(`This ${what} link has expired or was already used.`, [
     { path: "token", message: `This ${what} link has expired or was already used. Ask for a new one.` },
   ]);
+
+/** The organisation's display name (the workspace frame, invitations); null when it is gone. */
+export async function organisationName(organisationId: number): Promise<string | null> {
+  return (await getModels().Organisation.findByPk(organisationId, { attributes: ["id", "name"] }))?.name ?? null;
+}
+
+/** What an invite link shows before it is used: whom it invites, where, as what; or why it cannot be used. */
+export type InvitationLook =
+  | { state: "usable"; email: string; name: string; role: string; organisationName: string | null }
+  | { state: Exclude<TokenState, "usable"> | "unknown" };
+
+/** Looks an invite link up without using it: an account that is deactivated or already has a password reads as used. */
+export async function lookUpInvitation(token: string): Promise<InvitationLook> {
+  const found = await findToken(token, "invite");
+  const user = found.row?.get("user") as
+    | { email: string; name: string; role: string; active: boolean; passwordHash: string | null; organisationId: number }
+    | undefined;
+  if (found.state !== "usable") return { state: found.state };
+  if (!user?.active || user.passwordHash) return { state: "used" };
+  return { state: "usable", email: user.email, name: user.name, role: user.role, organisationName: await organisationName(user.organisationId) };
+}
 
 /** Uses an invite link: sets the name and first password. The link works once. */
 export async function acceptInvite(input: { token: string; name: string; password: string }): Promise<{ email: string }> {

@@ -126,6 +126,17 @@ export async function listLifts(actor: Actor, query: LiftListQuery = {}): Promis
   return toPage(items, count, q);
 }
 
+/** The organisation's lifts in use (not archived), by name: the choice of lift on the logbook's pages. */
+export async function liftChoices(actor: Actor): Promise<{ id: number; name: string }[]> {
+  assertCan(actor, "design:read");
+  const lifts = await getModels().Lift.findAll({
+    where: { organisationId: actor.organisationId, archivedAt: { [Op.is]: null } },
+    order: [["name", "ASC"]],
+    attributes: ["id", "name"],
+  });
+  return lifts.map((l) => ({ id: l.id, name: l.name }));
+}
+
 async function loadOwnLift(actor: Actor, id: number, transaction?: Transaction, lock = false): Promise<Lift> {
   const { Lift } = getModels();
   return ownOr404(

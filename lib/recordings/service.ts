@@ -14,7 +14,12 @@ import { findOwnRun, getRunResult } from "@/lib/runs/service";
 import { getModels, type Recording } from "@/models";
 import { fitVerdict } from "@/lib/calibration/gate";
 import { toCalibrationView } from "@/lib/calibration/service";
+import { runPickerOptions, type RunPickerOption } from "@/lib/runs/picker";
+import type { SettleBackAccount } from "@/lib/runs/settle-back";
+import type { UnitSystem } from "@/lib/units/display";
+import { STANDARD_GRAVITY } from "@/sim/units";
 import { alignAtEngagement, type OverlaySeries } from "./align";
+import { recordedSettleBack } from "./settle";
 import { detectEngagement, parseRecordingCsv, type ParseReport } from "./parse";
 import { RECORDING_MAX_BYTES, recordingInputSchema, type Channel } from "./schema";
 import { z } from "zod";
@@ -173,6 +178,54 @@ async function seriesOf(id: number): Promise<RecordingSeries> {
 export async function getRecording(actor: Actor, id: number): Promise<{ recording: RecordingView; series: RecordingSeries }> {
   const r = await ownRecording(actor, id);
   return { recording: view(r), series: await seriesOf(r.id) };
+}
+
+/** Everything a recording's page shows besides the recording's own plots. */
+export interface RecordingPageView {
+  recording: RecordingView;
+  /** The recording's lift (its name, and its version for saving fitted values). */
+  lift: { name: string; version: number } | null;
+  /** The lift's scenarios in the organisation, by name. */
+  scenarios: { id: number; name: string }[];
+  /** The organisation's newest finished runs of this lift (any revision), for the overlay. */
+  runs: RunPickerOption[];
+  /** "Why the train settled back" from the recorded train speed; null without a train or a settle-back. */
+  settleBack: SettleBackAccount | null;
+}
+
+/** A recording with its lift, the lift's scenarios and runs, and the recorded settle-back account (404 for another organisation's). */
+export async function getRecordingPage(actor: Actor, id: number, units: UnitSystem): Promise<RecordingPageView> {
+  const rec = await getRecording(actor, id);
+  const { Lift, LiftRevision, Scenario, Train } = getModels();
+  const liftId = rec.recording.liftId;
+  const lift = await Lift.findByPk(liftId);
+  const revisions = await LiftRevision.findAll({ where: { liftId }, attributes: ["id", "number"] });
+  const scenarios = await Scenario.findAll({ where: { liftId, organisationId: actor.organisationId }, order: [["name", "ASC"]] });
+  const runs = await runPickerOptions(actor, { units, liftRevisionIds: revisions.map((r) => r.id), limit: 50 });
+  // The settle-back account needs the lift's design and a train: the first scenario's.
+  const rev = await LiftRevision.findByPk(rec.recording.liftRevisionId);
+  const train = scenarios[0] ? await Train.findByPk(scenarios[0].trainId) : null;
+  const settleBack =
+    rev && train
+      ? recordedSettleBack(
+          { t: rec.series.t, trainSpeed: rec.series.trainSpeed, trainPosition: rec.series.trainPosition, engagementTime: rec.recording.engagementTime },
+          {
+            lift: rev.geometry as { angle: number; chainFrom: number; chainTo: number },
+            chain: rev.chain as { axialStiffness: number },
+            drive: rev.drive as { speed: number },
+            train: { cars: train.cars, carMass: train.carMassEmpty + train.seatsPerCar * train.riderMass, dogOffset: train.dogOffset, rollingResistance: train.rollingResistance, entrySpeed: 0 },
+            gravity: STANDARD_GRAVITY,
+          },
+          units,
+        )
+      : null;
+  return {
+    recording: rec.recording,
+    lift: lift ? { name: lift.name, version: lift.version } : null,
+    scenarios: scenarios.map((s) => ({ id: s.id, name: s.name })),
+    runs,
+    settleBack,
+  };
 }
 
 /** A done run of the same lift (any revision), of the actor's organisation. */

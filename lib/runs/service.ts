@@ -159,7 +159,8 @@ export interface RunPage {
   pageSize: number;
 }
 
-const STUDY_RUN_IDS = "(SELECT sc.run_id FROM study_cases sc WHERE sc.run_id IS NOT NULL)";
+/** SQL for the ids of runs that are a study's cases (a case's run is linked in the transaction that creates it). */
+export const STUDY_RUN_IDS = "(SELECT sc.run_id FROM study_cases sc WHERE sc.run_id IS NOT NULL)";
 
 export async function listRuns(user: Actor, scenarioId: number, q: Omit<ListRunsQuery, "source"> & Partial<Pick<ListRunsQuery, "source">>): Promise<RunPage> {
   const { Run } = getModels();
@@ -205,6 +206,17 @@ export async function studyCaseOf(runId: number): Promise<StudyCaseLabel | null>
   if (!c) return null;
   const st = await Study.findByPk(c.studyId, { attributes: ["id", "name"] });
   return { studyId: c.studyId, studyName: st?.name ?? `Study ${c.studyId}`, index: c.idx + 1 };
+}
+
+/** What a run's page heads itself with: its scenario's name and, for a study's case, whose case it is (404 for another organisation's run). */
+export async function getRunHeading(
+  user: Actor,
+  runId: number,
+): Promise<{ id: number; scenarioId: number; scenarioName: string; studyCase: StudyCaseLabel | null }> {
+  const { Run, Scenario } = getModels();
+  const run = ownOr404(await Run.findByPk(runId, { attributes: ["id", "organisationId", "scenarioId"] }), user, "Run");
+  const scenario = await Scenario.findOne({ where: { id: run.scenarioId, organisationId: user.organisationId }, attributes: ["name"] });
+  return { id: run.id, scenarioId: run.scenarioId, scenarioName: scenario?.name ?? "", studyCase: await studyCaseOf(run.id) };
 }
 
 /** Cancels a queued or running run; a finished one answers 409. */

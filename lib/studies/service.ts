@@ -244,6 +244,13 @@ async function findOwnStudy(actor: Actor, id: number): Promise<Study> {
   return ownOr404(await getModels().Study.findByPk(id), actor, NOT_FOUND);
 }
 
+/** A study's id and name, for its page's heading (404 for another organisation's). */
+export async function getStudyHeading(actor: Actor, id: number): Promise<{ id: number; name: string }> {
+  assertCan(actor, "study:read");
+  const study = ownOr404(await getModels().Study.findByPk(id, { attributes: ["id", "organisationId", "name"] }), actor, NOT_FOUND);
+  return { id: study.id, name: study.name };
+}
+
 export async function getStudy(actor: Actor, id: number, opts: { units?: UnitSystem } = {}): Promise<StudyView> {
   assertCan(actor, "study:read");
   let study = await findOwnStudy(actor, id);

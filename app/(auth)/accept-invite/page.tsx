@@ -4,8 +4,7 @@ import { LinkProblem } from "@/components/auth/LinkProblem";
 import { NewPasswordForm } from "@/components/auth/NewPasswordForm";
 import { ROLE_LABELS, isRole } from "@/lib/auth/roles";
 import { tokenSchema } from "@/lib/auth/schemas";
-import { findToken } from "@/lib/auth/tokens";
-import { getModels } from "@/models";
+import { lookUpInvitation } from "@/lib/auth/accounts";
 
 export const metadata: Metadata = { title: "Accept invitation" };
 
@@ -19,16 +18,12 @@ export default async function AcceptInvitePage({ searchParams }: { searchParams:
   if (!token) body = <LinkProblem state="missing" mode="invite" />;
   else if (!tokenSchema.safeParse(token).success) body = <LinkProblem state="unknown" mode="invite" />;
   else {
-    const found = await findToken(token, "invite");
-    const user = found.row?.get("user") as
-      | { email: string; name: string; role: string; active: boolean; passwordHash: string | null; organisationId: number }
-      | undefined;
-    if (found.state !== "usable" || !user?.active || user.passwordHash) {
-      body = <LinkProblem state={found.state === "usable" ? "used" : found.state} mode="invite" />;
+    const invitation = await lookUpInvitation(token);
+    if (invitation.state !== "usable") {
+      body = <LinkProblem state={invitation.state} mode="invite" />;
     } else {
-      const org = await getModels().Organisation.findByPk(user.organisationId);
-      lead = `You are joining ${org?.name ?? "your organisation"} as ${isRole(user.role) ? ROLE_LABELS[user.role] : user.role}. Choose the password you will sign in with.`;
-      body = <NewPasswordForm mode="invite" token={token} email={user.email} name={user.name} />;
+      lead = `You are joining ${invitation.organisationName ?? "your organisation"} as ${isRole(invitation.role) ? ROLE_LABELS[invitation.role] : invitation.role}. Choose the password you will sign in with.`;
+      body = <NewPasswordForm mode="invite" token={token} email={invitation.email} name={invitation.name} />;
     }
   }
   return (

@@ -10,6 +10,7 @@ import { ROLE_LABELS } from "@/lib/auth/roles";
 import { AlertsPanel } from "@/components/logbook/AlertsPanel";
 import { openAlerts } from "@/lib/alerts/notify";
 import { RecentRuns } from "@/components/dashboard/RecentRuns";
+import { recentRuns } from "@/lib/runs/recent";
 
 export const metadata: Metadata = { title: "Overview" };
 
@@ -27,6 +28,7 @@ const GROUP_LABELS = { design: "Design", operate: "Operations", admin: "Admin" }
 export default async function DashboardPage() {
   const user = await pageUser("/dashboard");
   const alerts = can(user.role, "logbook:read") ? await openAlerts(user.organisationId) : [];
+  const runs = can(user.role, "run:read") ? await recentRuns(user) : null;
   const areas = NAV_ITEMS.filter((i) => i.href !== "/dashboard" && (!i.action || can(user.role, i.action)));
   return (
     <>
@@ -38,9 +40,9 @@ export default async function DashboardPage() {
       <div className="mb-5">
         <AlertsPanel alerts={alerts} units={user.units} />
       </div>
-      {can(user.role, "run:read") && (
+      {runs && (
         <div className="mb-5">
-          <RecentRuns organisationId={user.organisationId} units={user.units} />
+          <RecentRuns runs={runs} units={user.units} />
         </div>
       )}
       <div className="grid gap-5 lg:grid-cols-3">

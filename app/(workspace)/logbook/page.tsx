@@ -1,16 +1,15 @@
 import type { Metadata } from "next";
-import { Op } from "sequelize";
 import { LogbookView } from "@/components/logbook/LogbookView";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
-import { getModels } from "@/models";
+import { liftChoices } from "@/lib/lifts/service";
 
 export const metadata: Metadata = { title: "Logbook" };
 
 export default async function LogbookPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await pageUser("/logbook");
-  const lifts = (await getModels().Lift.findAll({ where: { organisationId: user.organisationId, archivedAt: { [Op.is]: null } }, order: [["name", "ASC"]], attributes: ["id", "name"] })).map((l) => ({ id: l.id, name: l.name }));
+  const lifts = await liftChoices(user);
   const sp = await searchParams;
   const asked = Number(sp.lift);
   const liftId = lifts.find((l) => l.id === asked)?.id ?? lifts[0]?.id;

@@ -1,15 +1,14 @@
 import type { Metadata } from "next";
-import { Op } from "sequelize";
 import { UploadWizard } from "@/components/recording/UploadWizard";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { pageUser } from "@/lib/auth/page-guard";
-import { getModels } from "@/models";
+import { liftChoices } from "@/lib/lifts/service";
 
 export const metadata: Metadata = { title: "Upload a logger recording" };
 
 export default async function UploadPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await pageUser("/logbook/upload");
-  const lifts = (await getModels().Lift.findAll({ where: { organisationId: user.organisationId, archivedAt: { [Op.is]: null } }, order: [["name", "ASC"]], attributes: ["id", "name"] })).map((l) => ({ id: l.id, name: l.name }));
+  const lifts = await liftChoices(user);
   const asked = Number((await searchParams).lift);
   const liftId = lifts.find((l) => l.id === asked)?.id ?? lifts[0]?.id;
   return (

@@ -1,16 +1,12 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { toId } from "@/lib/http/ids";
 import { SavedRunView } from "@/components/run/SavedRunView";
 import { PageHeader } from "@/components/ui/PageHeader";
-import { pageUser } from "@/lib/auth/page-guard";
+import { pageRow, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
-import { HttpError } from "@/lib/http/errors";
 import Link from "next/link";
 import { Badge } from "@/components/ui/Badge";
 import { RunComments } from "@/components/run/RunComments";
-import { getRun, studyCaseOf, type StudyCaseLabel } from "@/lib/runs/service";
-import { getModels } from "@/models";
+import { getRunHeading } from "@/lib/runs/service";
 
 export const metadata: Metadata = { title: "Run" };
 
@@ -22,20 +18,7 @@ export default async function RunPage({
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
   const user = await pageUser("/runs/[id]");
-  const id = toId((await params).id);
-  if (id === null) notFound();
-  let scenarioName = "";
-  let scenarioId = 0;
-  let studyCase: StudyCaseLabel | null = null;
-  try {
-    const run = await getRun(user, id);
-    scenarioId = run.scenarioId;
-    scenarioName = (await getModels().Scenario.findByPk(run.scenarioId, { attributes: ["name"] }))?.name ?? "";
-    studyCase = await studyCaseOf(run.id);
-  } catch (err) {
-    if (err instanceof HttpError && err.status === 404) notFound();
-    throw err;
-  }
+  const { id, scenarioId, scenarioName, studyCase } = await pageRow(params, (runId) => getRunHeading(user, runId));
   const sp = await searchParams;
   const t = typeof sp.t === "string" ? Number(sp.t) : undefined;
   return (

@@ -1,21 +1,16 @@
 import type { Metadata } from "next";
-import { notFound } from "next/navigation";
-import { toId } from "@/lib/http/ids";
 import { PageHeader } from "@/components/ui/PageHeader";
 import { StudyDetail } from "@/components/study/StudyDetail";
-import { pageUser } from "@/lib/auth/page-guard";
+import { pageRow, pageUser } from "@/lib/auth/page-guard";
 import { can } from "@/lib/auth/permissions";
-import { getModels } from "@/models";
+import { getStudyHeading } from "@/lib/studies/service";
 
 export const metadata: Metadata = { title: "Study" };
 export const dynamic = "force-dynamic";
 
 export default async function StudyPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser("/studies/[id]");
-  const id = toId((await params).id);
-  if (id === null) notFound();
-  const study = await getModels().Study.findByPk(id, { attributes: ["id", "organisationId", "name"] });
-  if (!study || study.organisationId !== user.organisationId) notFound();
+  const study = await pageRow(params, (id) => getStudyHeading(user, id));
   return (
     <>
       <PageHeader eyebrow="Studies" title={study.name} description="Progress, every case, the plots, the acceptable region and the recommended operating window." />
