@@ -26,7 +26,7 @@ export const EVENT_ENGAGE = 1;
 export const EVENT_CLICK = 2;
 export const EVENT_SEPARATE = 4;
 export const EVENT_RELEASE = 8;
-/** A train appeared (its startTime) or the drive changed phase (stop, brake set, restart). */
+/** A train appeared (its startTime) or left the model at the end of the track while others run on. */
 export const EVENT_APPEAR = 16;
 export const EVENT_DRIVE = 32;
 /** Events after which the forces must be evaluated again before the next step. */
@@ -49,6 +49,8 @@ export interface TrainState {
   dogDamping: number;
   ardDamping: number;
   active: boolean;
+  /** Left the model at the end of the track (with other trains still to run): never appears again. */
+  gone: boolean;
   // Contact modes, changed only between steps.
   engaged: number; // catch index in contact with the dog, NaN for none
   engageOffset: number; // penetration found at detection (the contact starts without a force jump)
@@ -171,6 +173,7 @@ export class LiftSystem {
         dogOffset: ts.dogOffset,
         pawls,
         active: false,
+        gone: false,
         engaged: NaN,
         engageOffset: 0,
         lastCatchIndex: NaN,
@@ -488,6 +491,10 @@ export class LiftSystem {
       const tr = this.trains[j];
       let ev = 0;
       const ix = L.iX + j;
+      if (tr.gone) {
+        tr.events = 0;
+        continue;
+      }
       if (!tr.active) {
         if (t + 1e-12 < tr.settings.startTime) {
           tr.events = 0;
@@ -497,6 +504,12 @@ export class LiftSystem {
         ev |= EVENT_APPEAR;
       }
       const x = Y[ix];
+      if (x >= this.track.length && this.othersToRun(j, t)) {
+        this.leave(j, Y);
+        tr.events = EVENT_APPEAR;
+        all |= EVENT_APPEAR;
+        continue;
+      }
       this.placePawls(tr, x, false);
       if (this.dogInZone(x, tr.dogOffset)) {
         const K = this.lattice.indexAtOrBehind(this.materialAtDog(Y, x, tr.dogOffset));
@@ -547,6 +560,31 @@ export class LiftSystem {
     tr.engaged = NaN;
     tr.lastCatchIndex = NaN;
     if (t > 0) Y[L.iWork] += 0.5 * tr.model.mass * ts.entrySpeed ** 2 + tr.model.potential(ts.startPosition);
+  }
+
+  /** True while another train is on the track or still to appear (the run goes on without train j). */
+  othersToRun(j: number, t: number): boolean {
+    return this.trains.some((o, k) => k !== j && !o.gone && (o.active || t + 1e-12 < o.settings.startTime));
+  }
+
+  /**
+   * A train leaves the model at the end of the track while other trains run on: its energy leaves as work
+   * taken out of the system (the mirror of appear), so the energy balance still closes.
+   */
+  leave(j: number, Y: Float64Array): void {
+    const L = this.layout;
+    const tr = this.trains[j];
+    const x = Y[L.iX + j];
+    const v = Y[L.iV + L.iX + j];
+    Y[L.iWork] -= 0.5 * tr.model.mass * v * v + tr.model.potential(x);
+    tr.active = false;
+    tr.gone = true;
+    tr.engaged = NaN;
+    tr.lastCatchIndex = NaN;
+    tr.dogForce = tr.ardForce = tr.dogDelta = tr.dogDeltaRate = tr.ax = 0;
+    tr.ardDelta.fill(0);
+    tr.ardPawl = -1;
+    Y[L.iV + L.iX + j] = 0;
   }
 
   /** Kinetic + potential + elastic energy (valid after rhs() at the same state, for the contacts). */

@@ -201,6 +201,8 @@ export function simulate(input: Scenario | unknown, options: SimulateOptions = {
     trainReachedEnd: reachedEnd,
   });
 
+  const left = sys.trains.filter((tr) => tr.gone).length;
+  if (left > 0) notes.push(`${left} of ${sys.trains.length} trains left the track at its end while others ran on (each one's figures end there).`);
   if (reachedEnd) notes.push(`A train reached the end of the track at t = ${fin.t.toFixed(2)} s; the run ends there.`);
   if (sum.engagementTime === null) notes.push("The dog never engaged a catch point.");
   if (sum.slackSegments > 0) notes.push(`The chain went slack: up to ${sum.slackSegments} segment(s) at once carried no tension.`);

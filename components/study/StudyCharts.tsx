@@ -95,7 +95,7 @@ export function StudyLinePlots({ study, units }: { study: StudyView; units: Unit
       {dispatch ? (
         <p className="text-[12.5px] text-steel-600" data-testid="study-surge-note">
           A ring marks an interval where the following train&apos;s pick-up comes within one surge period of the first train&apos;s release at the crest ({SURGE_MARK_LABEL}): the two loads add on a chain that still rings.
-          {notCrested.length ? ` In ${notCrested.length} case(s) the run ended (a train reached the end of the track) before the last train's release: its crest is not in those figures.` : ""}
+          {notCrested.length ? ` In ${notCrested.length} case(s) the run ended before the last train's release: its crest is not in those figures.` : ""}
         </p>
       ) : null}
       <div className="grid gap-4 md:grid-cols-2" data-testid="study-line-plots">

@@ -81,3 +81,21 @@ describe("a dispatch case with a long interval", () => {
     expect(Math.abs(second - first) / first).toBeLessThan(0.01);
   });
 });
+
+describe("a train that reaches the end of the track while another is still on the lift", () => {
+  it("leaves the model and the run goes on until the following train has crested", () => {
+    // The first train climbs from 20 m up the 120 m incline at 4 m/s and runs off the 20 m exit at about 35 s;
+    // the second, sent 25 s later, is still on the chain then.
+    const base = standingTrain({ drive: { speed: 4 }, takeUp: { friction: 0 }, run: { duration: 12, segments: 30 } });
+    const s = dispatched(base, 25);
+    const r = simulate(s, { frameBudget: 0, series: false });
+    const [first, second] = r.summary.trains;
+    expect(first.dogReleaseTime).not.toBeNull();
+    expect(second.dogReleaseTime).not.toBeNull();
+    expect(second.dogReleaseTime!).toBeGreaterThan(first.dogReleaseTime!);
+    expect(r.notes.some((n) => /1 of 2 trains left the track/.test(n))).toBe(true);
+    // Source: conservation of energy (Meriam & Kraige, work–energy): the train's kinetic and potential energy
+    // leaves the model with it, so the balance still closes.
+    expect(r.summary.energyResidual!).toBeLessThan(0.01);
+  });
+});
