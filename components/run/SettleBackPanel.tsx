@@ -74,19 +74,7 @@ function StopCard({ label, account }: { label: string; account: StopAccount }) {
           <h3 className="text-[14.5px] font-bold text-ink-900">{account.predictsRollback ? "Why the train settled back at the stop" : "Why the chain held the train at the stop"}</h3>
         </div>
         {account.catchTime !== null && (
-          <Button
-            size="sm"
-            variant="secondary"
-            onClick={() => {
-              const s = useReplayStore.getState();
-              s.setPlaying(false);
-              s.setT(account.catchTime!);
-            }}
-            data-testid="go-to-stop-catch"
-            className="shrink-0 whitespace-nowrap"
-          >
-            Go to the catch
-          </Button>
+          <GoToCatch time={account.catchTime!} testId="go-to-stop-catch" />
         )}
       </div>
       <div className="mt-2 space-y-1.5 text-[13px] leading-relaxed text-ink-800" data-testid="stop-account-text">
@@ -101,6 +89,25 @@ function StopCard({ label, account }: { label: string; account: StopAccount }) {
   );
 }
 
+/** Stops the replay at the catch: the panel's link between the account and the picture. */
+function GoToCatch({ time, testId }: { time: number; testId: string }) {
+  return (
+    <Button
+      size="sm"
+      variant="secondary"
+      onClick={() => {
+        const s = useReplayStore.getState();
+        s.setPlaying(false);
+        s.setT(time);
+      }}
+      data-testid={testId}
+      className="shrink-0 whitespace-nowrap"
+    >
+      Go to the catch
+    </Button>
+  );
+}
+
 function SettleBackCard({ label, account, units }: { label: string; account: SettleBackAccount; units: UnitSystem }) {
   const t = useReplayTime(200);
   const near = Math.abs(t - account.catchTime) < 0.6 || (account.pickupTime !== null && t >= account.catchTime && t <= account.pickupTime);
@@ -111,19 +118,7 @@ function SettleBackCard({ label, account, units }: { label: string; account: Set
           <p className="font-mono text-[10.5px] font-semibold uppercase tracking-[0.14em] text-fail">{label ? `${label}: ` : ""}ARD catch at {formatQuantity(account.catchTime, "time", units)}</p>
           <h3 className="text-[14.5px] font-bold text-ink-900">Why the train settled back</h3>
         </div>
-        <Button
-          size="sm"
-          variant="secondary"
-          onClick={() => {
-            const s = useReplayStore.getState();
-            s.setPlaying(false);
-            s.setT(account.catchTime);
-          }}
-          data-testid="go-to-catch"
-          className="shrink-0 whitespace-nowrap"
-        >
-          Go to the catch
-        </Button>
+        <GoToCatch time={account.catchTime} testId="go-to-catch" />
       </div>
       <div className="mt-2 space-y-1.5 text-[13px] leading-relaxed text-ink-800" data-testid="settle-back-text">
         {account.sentences.map((s, i) => (
