@@ -96,6 +96,17 @@ async function reserveWithWait(organisationId: number): Promise<Slot> {
  * grid) at doubling meshes in a worker thread, the choice stored in the study's settings. A study that already
  * holds a choice (resumed, recovered) keeps it.
  */
+const probeState = globalThis as unknown as { tautlineMeshProbes?: Map<number, AbortController> };
+function meshProbes(): Map<number, AbortController> {
+  if (!probeState.tautlineMeshProbes) probeState.tautlineMeshProbes = new Map();
+  return probeState.tautlineMeshProbes;
+}
+
+/** Stops a study's mesh probe (the study was cancelled): its thread is free for the next job at once. */
+export function abortStudyMesh(studyId: number): void {
+  meshProbes().get(studyId)?.abort("the study was cancelled");
+}
+
 async function chooseStudyMesh(studyId: number): Promise<void> {
   const { Study, StudyCase } = getModels();
   const study = await Study.findByPk(studyId);
@@ -112,18 +123,22 @@ async function chooseStudyMesh(studyId: number): Promise<void> {
   if (!probes.length) choice = unprobedMeshChoice(st.base.run.segments, "no case makes a valid scenario");
   else {
     const slot = await reserveWithWait(study.organisationId);
+    const abort = new AbortController();
+    meshProbes().set(studyId, abort);
     try {
       const outcome = await getJobPool().run<StudyMeshOutcome, StudyMeshTask>(
         { kind: "study-mesh", studyId, probes, budgetMs: st.solver.budgetSeconds * 1000 * probes.length },
-        { organisationId: study.organisationId },
+        { organisationId: study.organisationId, signal: abort.signal },
       );
       choice = outcome.ok ? outcome.choice : unprobedMeshChoice(probes[0].run.segments, outcome.message);
     } catch (err) {
       choice = unprobedMeshChoice(probes[0].run.segments, err instanceof Error ? err.message : String(err));
     } finally {
+      meshProbes().delete(studyId);
       slot.release();
     }
   }
+  if (!(await stillRunning(studyId))) return;
   const fresh = await Study.findByPk(studyId, { attributes: ["id", "settings"] });
   if (!fresh) return;
   await Study.update({ settings: { ...fresh.settings, mesh: choice } }, { where: { id: studyId } });

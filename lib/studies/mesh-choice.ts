@@ -7,7 +7,7 @@
  * handed in); `probeStudyMesh` runs the engine (a worker thread calls it: no database).
  */
 import { simulate } from "@/sim/simulate";
-import { coarserSegments, MESH_FIGURES, MESH_TOLERANCE } from "@/sim/confidence";
+import { MESH_FIGURES, MESH_TOLERANCE } from "@/sim/confidence";
 import type { Scenario as EngineScenario } from "@/sim/schema";
 import type { Summary } from "@/sim/summary";
 
@@ -128,7 +128,8 @@ export function meshChoiceReason(c: Omit<MeshChoice, "reason">): string {
 /**
  * Chooses the mesh from `start` segments: `runAt(n)` gives the probe cases' check figures at n segments (it may
  * throw: the engine failed). Pairs (N, 2N) move up until they agree or N reaches `cap` (the last pair's finer mesh
- * is the cap). A start at or above the cap is compared with its coarser mesh (half) only.
+ * is the cap). A start at or above the cap is kept as it is, unprobed: it is already finer than the choice would go,
+ * and each case still reports its own coarse comparison (lib/runs/mesh-check.ts).
  */
 export function chooseMesh(
   start: number,
@@ -142,8 +143,12 @@ export function chooseMesh(
     const c = { segments, startSegments: start, settled, capped: !settled && !error, cap, tolerance, trials, error };
     return { ...c, reason: meshChoiceReason(c) };
   };
-  let coarse = start >= cap ? coarserSegments(start) : start;
-  let fine = start >= cap ? start : Math.min(2 * start, cap);
+  if (start >= cap) {
+    const c = { segments: start, startSegments: start, settled: false, capped: false, cap, tolerance, trials, error: null };
+    return { ...c, reason: `Cases run at the scenario's ${start} segments, at or above the ${cap} the mesh choice goes to: each case reports its own coarse comparison.` };
+  }
+  let coarse = start;
+  let fine = Math.min(2 * start, cap);
   let a: CheckFigures[];
   try {
     a = runAt(coarse);

@@ -20,7 +20,7 @@ import { jobMode } from "@/lib/jobs/dispatch";
 import type { UnitSystem } from "@/lib/units/display";
 import { createStudySchema, type StudyParameter } from "./schema";
 import { planStudy } from "./plan";
-import { driveStudy, storedSettings } from "./driver";
+import { abortStudyMesh, driveStudy, storedSettings } from "./driver";
 import { settleOpenCases, refreshStudy } from "./progress";
 import { operatingWindow, type OperatingWindow, type ValueNamer } from "./window";
 import { describeRegion, studyRegion, type StudyRegion } from "./region";
@@ -300,6 +300,7 @@ export async function cancelStudy(actor: Actor, id: number): Promise<StudyView> 
     );
     await recordAudit({ transaction, actor, entity: "study", entityId: id, action: "update", before: { status: study.status }, after: { status: "cancelled" } });
   });
+  abortStudyMesh(id);
   for (const runId of runIds) await abortRun(runId);
   for (const runId of runIds) await removeQueuedRun({ id: runId, organisationId: study.organisationId });
   await refreshStudy(id);

@@ -58,11 +58,14 @@ describe("chooseMesh", () => {
     expect(asked).toEqual([24, 48, 96, 192, 240]);
   });
 
-  it("compares a start at or above the cap with its coarser mesh only", () => {
+  it("keeps a start at or above the cap as it is, without probe runs", () => {
+    // Plumbing: a mesh already finer than the choice would go costs no probe (each case still reports its own
+    // coarse comparison).
     const { runAt, asked } = firstOrder(100_000, 30_000);
     const c = chooseMesh(300, runAt);
-    expect(asked).toEqual([150, 300]);
-    expect(c).toMatchObject({ segments: 300, settled: true });
+    expect(asked).toEqual([]);
+    expect(c).toMatchObject({ segments: 300, settled: false, capped: false, error: null });
+    expect(c.reason).toMatch(/^Cases run at the scenario's 300 segments, at or above the 240/);
   });
 
   it("keeps the last mesh that ran when the engine fails on a finer one", () => {
