@@ -111,7 +111,12 @@ async function send(c: FuzzCase): Promise<void> {
   let status = 0;
   let body: { error?: unknown; issues?: { path?: string }[] } | null = null;
   try {
-    const res = c.chunkedBytes ? await sendChunked(c, c.chunkedBytes) : await api.fetch(c.url, { method: c.method, headers: c.headers, data: c.body, maxRedirects: 0, timeout: 15_000 });
+    const big = c.body !== undefined && Buffer.byteLength(c.body) > 1_000_000;
+    const res = c.chunkedBytes
+      ? await sendStreamed(c, openBrace(c.chunkedBytes), true)
+      : big
+        ? await sendStreamed(c, Buffer.from(c.body!), false)
+        : await api.fetch(c.url, { method: c.method, headers: c.headers, data: c.body, maxRedirects: 0, timeout: 15_000 });
     status = res.status();
     const text = await res.text();
     try {
@@ -133,11 +138,19 @@ async function send(c: FuzzCase): Promise<void> {
   }
 }
 
+/** "{" then spaces: never valid JSON. */
+function openBrace(bytes: number): Buffer {
+  const b = Buffer.alloc(bytes, 0x20);
+  b[0] = 0x7b;
+  return b;
+}
+
 /**
- * A body streamed in 64 KiB chunks without Content-Length (Playwright's client always sets one), signed in
- * with the admin's cookies; the bytes are "{" then spaces, never valid JSON.
+ * A body over the limit streamed in 64 KiB chunks, signed in with the admin's cookies: without Content-Length
+ * (`chunked`, which Playwright's client cannot send) or with it.
  */
-async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => number; text: () => Promise<string> }> {
+async function sendStreamed(c: FuzzCase, body: Buffer, chunked: boolean): Promise<{ status: () => number; text: () => Promise<string> }> {
+  const bytes = body.length;
   const cookie = (await api.storageState()).cookies.map((k) => `${k.name}=${k.value}`).join("; ");
   const target = new URL(c.url, baseURL);
   // node:http rather than fetch: a server may answer 413 and close while the body is still being sent, and
@@ -146,7 +159,11 @@ async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => 
     let answered = false;
     const req = http.request(
       target,
-      { method: c.method, headers: { ...c.headers, cookie, origin: target.origin, "transfer-encoding": "chunked" }, timeout: 15_000 },
+      {
+        method: c.method,
+        headers: { ...c.headers, cookie, origin: target.origin, ...(chunked ? { "transfer-encoding": "chunked" } : { "content-length": String(bytes) }) },
+        timeout: 15_000,
+      },
       (res) => {
         answered = true;
         const parts: Buffer[] = [];
@@ -160,7 +177,8 @@ async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => 
       // Past the 1 MB limit the server stops reading and closes; when that close reaches us before its 413
       // does, the closed connection is the refusal (the row counts and "still answers" checks still apply).
       const code = (err as NodeJS.ErrnoException).code;
-      if (sent > 1_000_000 && (code === "EPIPE" || code === "ECONNRESET"))
+      // With a Content-Length over the limit the server may refuse before reading any of it.
+      if ((sent > 1_000_000 || !chunked) && (code === "EPIPE" || code === "ECONNRESET"))
         return resolve({ status: () => 413, text: async () => JSON.stringify({ error: `connection closed by the server past the body limit (${code})` }) });
       reject(err);
     });
@@ -169,8 +187,7 @@ async function sendChunked(c: FuzzCase, bytes: number): Promise<{ status: () => 
     const pump = () => {
       while (sent < bytes && !answered && !req.destroyed) {
         const n = Math.min(64 * 1024, bytes - sent);
-        const chunk = Buffer.alloc(n, 0x20);
-        if (sent === 0) chunk[0] = 0x7b;
+        const chunk = body.subarray(sent, sent + n);
         sent += n;
         if (!req.write(chunk)) return void req.once("drain", pump);
       }
