@@ -121,8 +121,7 @@ function releaseCheck(summary: Summary, limits: Limits): Check {
   const head = [
     `At the release (t = ${r.time.toFixed(2)} s) the train moves at `,
     mPerS(r.speed, 2),
-    // mph beside it, as the SI line has always read (plain text: it is the same in both systems).
-    ` (${(r.speed / 0.44704).toFixed(1)} mph): kinetic energy `,
+    ": kinetic energy ",
     kJ(r.kineticEnergy),
     " against ",
     kJ(r.energyNeeded),

@@ -63,8 +63,13 @@ async function screens(page: Page): Promise<string[]> {
 
 /** The settle-back demo scenario, where the "Why the train settled back" account is shown. */
 async function settleBackScenario(page: Page): Promise<string> {
+  return scenarioBySearch(page, "settles back onto the ARD");
+}
+
+/** The one demo scenario whose name contains `text`. */
+async function scenarioBySearch(page: Page, text: string): Promise<string> {
   await page.goto("/scenarios");
-  await page.getByTestId("scenario-table-search").fill("settles back onto the ARD");
+  await page.getByTestId("scenario-table-search").fill(text);
   await expect(page.getByTestId("scenario-table-row")).toHaveCount(1);
   const href = await page.getByTestId("scenario-table").getByRole("link").first().getAttribute("href");
   expect(href).toMatch(/^\/scenarios\/\d+/);
@@ -87,7 +92,9 @@ test.describe("units everywhere", () => {
     test.setTimeout(180_000);
     await page.setViewportSize({ width: 1440, height: 900 });
     await signInUi(page, ACCOUNT);
-    const paths = [...(await screens(page)), await settleBackScenario(page)];
+    // The demos with the stop account and with two trains on the lift, besides the first row of every list.
+    const stop = await scenarioBySearch(page, "emergency stop");
+    const paths = [...(await screens(page)), await settleBackScenario(page), stop, await scenarioBySearch(page, "two-train dispatch")];
     expect(paths.length).toBeGreaterThanOrEqual(12);
 
     for (const [units, forbidden] of [
@@ -99,7 +106,11 @@ test.describe("units everywhere", () => {
       for (const path of paths) {
         for (const line of await pageLines(page, path)) if (forbidden.test(line)) found.push(`${path}: ${line.slice(0, 160)}`);
       }
-      // The settle-back account is on the scenario page: check it was there to be read.
+      // The stop account is on the stop demo's page: check it was there to be read.
+      await page.goto(stop);
+      await expect(page.getByTestId("stop-account-text").first()).toContainText(units === "us" ? "ft/s" : "m/s");
+      // The settle-back account is on the settle-back demo's page.
+      await page.goto(await settleBackScenario(page));
       await expect(page.getByTestId("settle-back-text")).toContainText(units === "us" ? "ft/s" : "m/s");
       expect(found, `${units === "us" ? "SI" : "US"} units left on ${units.toUpperCase()} screens`).toEqual([]);
     }
