@@ -16,6 +16,7 @@ import type {
 } from "@/sim/schema";
 import type { Loading } from "@/models/Scenario";
 import type { Dynamics } from "@/lib/scenarios/dynamics";
+import type { TrainLike } from "@/lib/scenarios/engine";
 import { THORNWICK_LIFT, THORNWICK_SCENARIO } from "./thornwick";
 import { OPERATIONS_DEMO_SCENARIOS } from "./operations-scenarios";
 
@@ -42,18 +43,11 @@ export interface DemoLift {
   revisions: DemoRevision[];
 }
 
-export interface DemoTrain {
+/** A demo train: the engine's train fields (TrainLike) with its key, name and notes. */
+export interface DemoTrain extends TrainLike {
   key: string;
   name: string;
   notes: string;
-  cars: number;
-  carMassEmpty: number;
-  seatsPerCar: number;
-  riderMass: number;
-  carLength: number;
-  dogOffset: number;
-  rollingResistance: number;
-  dragArea: number;
   /** m behind the front; absent = one pawl at the dog. */
   pawls?: number[];
 }
