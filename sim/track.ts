@@ -6,7 +6,7 @@
  * slope it ends with (level for the parametric lift), so a train may hang over either end.
  */
 import type { LiftSettings } from "./schema";
-import { PARAMETRIC_FIELDS, parametricProfile, type ProfilePiece } from "./profile";
+import { PARAMETRIC_FIELDS, parametricProfile, type ParametricLift, type ProfilePiece } from "./profile";
 
 export interface TrackPoint {
   /** Horizontal position, m. */
@@ -218,4 +218,23 @@ export function trackOfPieces(profile: readonly ProfilePiece[]): Track {
   }
 
   return { length, pieces, sagStart, inclineStart, crestStart, exitStart, angle, highest, at, elevation, slope, curvature };
+}
+
+/**
+ * The parametric lift closest to a profile in the shape the parametric fields describe: its approach up to the
+ * first arc before the main incline, that arc's radius, the main incline's slope and length, the crest arcs'
+ * radius and the rest as the exit. A starting point for the parametric fields, not an equivalent of the profile.
+ */
+export function parametricOfProfile(profile: readonly ProfilePiece[]): ParametricLift {
+  const t = trackOfPieces(profile);
+  const th = t.angle > 0 ? t.angle : Math.PI / 180;
+  const round = (v: number) => Math.round(v * 1000) / 1000;
+  return {
+    approachLength: round(t.sagStart),
+    sagRadius: round(Math.max(1, (t.inclineStart - t.sagStart) / th)),
+    angle: round((t.angle * 180) / Math.PI),
+    inclineLength: round(Math.max(1, t.crestStart - t.inclineStart)),
+    crestRadius: round(Math.max(1, (t.exitStart - t.crestStart) / th)),
+    exitLength: round(Math.max(1, t.length - t.exitStart)),
+  };
 }

@@ -14,6 +14,7 @@ import { formatQuantity, unitOf, type UnitSystem } from "@/lib/client/units";
 import { getPath } from "@/components/ui/form-draft";
 import { readSurveyCsv } from "@/lib/lifts/survey-csv";
 import { parametricProfile, PARAMETRIC_FIELDS, type ProfilePiece } from "@/sim/profile";
+import { parametricOfProfile } from "@/sim/track";
 import { fitProfile, type SurveyPoint } from "@/sim/profile-fit";
 import { profileFieldDefs } from "./fields";
 
@@ -60,7 +61,19 @@ export function ProfileSection({
     set("lift.profile", next);
   };
   const choose = (mode: string) => {
-    if (mode === "parametric") return setPieces(null);
+    if (mode === "parametric") {
+      // Empty parametric fields start from the profile's nearest parametric shape (a starting point to edit).
+      const l = (draft.lift ?? {}) as Record<string, unknown>;
+      if (pieces && PARAMETRIC_FIELDS.some((k) => typeof l[k] !== "number")) {
+        try {
+          const near = parametricOfProfile(pieces as ProfilePiece[]);
+          for (const k of PARAMETRIC_FIELDS) if (typeof l[k] !== "number") set(`lift.${k}`, near[k]);
+        } catch {
+          // Pieces that do not make a track leave the fields empty: the form names them.
+        }
+      }
+      return setPieces(null);
+    }
     if (pieces) return;
     // Start from the parametric lift's five pieces when its fields are all numbers, else one level straight.
     const l = (draft.lift ?? {}) as Record<string, unknown>;

@@ -7,7 +7,8 @@ import example from "@/sim/examples/lift-hill-example-v2.json";
 import { parseScenario } from "@/sim/schema";
 import { simulate } from "@/sim/simulate";
 import { designStatics } from "@/sim/statics";
-import { buildTrack } from "@/sim/track";
+import { buildTrack, parametricOfProfile } from "@/sim/track";
+import { parametricProfile } from "@/sim/profile";
 import { standingTrain } from "./scenarios";
 
 const RAD = Math.PI / 180;
@@ -50,6 +51,16 @@ describe("a profile equal to the parametric lift", () => {
     const sb = designStatics(withProfile(EXAMPLE_PIECES));
     within(sb.worst.driveTension, sa.worst.driveTension, 0.01);
     within(sb.takeUp.required, sa.takeUp.required, 0.01);
+  });
+});
+
+describe("the parametric fields nearest a profile", () => {
+  it("give back the parametric lift its five pieces stand for", () => {
+    // Source: plane geometry (from memory): an arc of radius R turning the slope by θ is R·θ long, so the arc
+    // lengths between the named positions give back the radii.
+    const lift = { approachLength: 15, sagRadius: 30, angle: 40, inclineLength: 50, crestRadius: 25, exitLength: 40 };
+    const back = parametricOfProfile(parametricProfile(lift));
+    for (const k of Object.keys(lift) as (keyof typeof lift)[]) expect(back[k]).toBeCloseTo(lift[k], 3);
   });
 });
 
