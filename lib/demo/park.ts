@@ -17,12 +17,12 @@ import type {
 import type { Loading } from "@/models/Scenario";
 import type { Dynamics } from "@/lib/scenarios/dynamics";
 import type { TrainLike } from "@/lib/scenarios/engine";
+import { EMBERLINE_CHAIN as emberlineChain, type In } from "./parts";
 import { THORNWICK_LIFT, THORNWICK_SCENARIO } from "./thornwick";
 import { OPERATIONS_DEMO_SCENARIOS } from "./operations-scenarios";
 
 export const DEMO_PARK = DEMO_ORGANISATIONS.park;
 
-type In<T> = Partial<T> & Record<string, unknown>;
 
 export interface DemoRevision {
   changeSummary: string;
@@ -119,21 +119,6 @@ const emberlineGeometry: In<LiftSettings> = {
  * - Take-up: counterweight carriage on guide rollers; friction ≈ 2 % of the counterweight's weight
  *   (assumption); no dashpot fitted.
  */
-/*
- * Chains: a breaking strength at or above ASME B29.1's minimum for the pitch (12,500·P² lbf, P in inches),
- * and E·A = 30 × breaking strength, the chain catalogue's assumption (lib/chains/standard.ts).
- * Emberline: 4 in pitch (No. 320 size: minimum 200,000 lbf = 890 kN), 1000 kN lift chain (invented), so the
- * steady climb's ≈ 103 kN stays within the working load of 1/7 of breaking strength (the check's default).
- */
-const emberlineChain: In<ChainSettings> = {
-  massPerLength: 15,
-  axialStiffness: 3.0e7,
-  breakingStrength: 1.0e6,
-  pitch: 0.1016,
-  catchSpacing: 2,
-  catchOffset: 10,
-  guideFriction: 0.12,
-};
 
 /**
  * 250 kW four-pole motor (≈1480 rpm) through an 11.2:1 gearbox to an 11-tooth sprocket of pitch radius

@@ -3,10 +3,10 @@
  * 45° main incline, a crest onto a short level top where the dog lets go, and a first drop at −55°. Kept apart
  * from park.ts's other lifts so each demo lift is one block.
  */
-import type { AntiRollbackSettings, ChainSettings, DriveSettings, LiftSettings, TakeUpSettings } from "@/sim/schema";
+import type { AntiRollbackSettings, DriveSettings, LiftSettings, TakeUpSettings } from "@/sim/schema";
 import type { DemoLift, DemoScenario } from "./park";
+import { EMBERLINE_CHAIN, type In } from "./parts";
 
-type In<T> = Partial<T> & Record<string, unknown>;
 
 /*
  * Track (arc positions from the station): level 15 m; arc R 40 m to 20° (ends 28.96 m); 25 m at 20° (53.96 m);
@@ -32,16 +32,6 @@ const thornwickGeometry: In<LiftSettings> = {
   bottomRun: 4,
 };
 
-/** The Emberline lift's 4 in pitch, 1000 kN chain (park.ts), sliding in a plastic-lined trough (μ ≈ 0.12, common practice, no source). */
-const thornwickChain: In<ChainSettings> = {
-  massPerLength: 15,
-  axialStiffness: 3.0e7,
-  breakingStrength: 1.0e6,
-  pitch: 0.1016,
-  catchSpacing: 2,
-  catchOffset: 10,
-  guideFriction: 0.12,
-};
 
 /**
  * 315 kW four-pole induction motor (rated slip 1.5 %, breakdown 2.3: typical of the size, from memory) for the
@@ -68,7 +58,8 @@ export const THORNWICK_LIFT: DemoLift = {
     {
       changeSummary: "As built (profile from the survey)",
       geometry: thornwickGeometry,
-      chain: thornwickChain,
+      // The Emberline lift's chain, sliding in the same plastic-lined trough.
+      chain: EMBERLINE_CHAIN,
       drive: thornwickDrive,
       takeUp: thornwickTakeUp,
       antiRollback: thornwickArd,
